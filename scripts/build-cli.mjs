@@ -1,0 +1,23 @@
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build } from 'esbuild';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+
+/** Bundles src/cli into dist-cli/stratplot.mjs (one file, dependencies inlined, for a quick start). */
+export async function buildCli() {
+  await build({
+    entryPoints: [join(root, 'src/cli/index.ts')],
+    outfile: join(root, 'dist-cli/stratplot.mjs'),
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    logLevel: 'error',
+    // sql.js loads its wasm beside itself; jspdf's optional HTML helpers are never used by the CLI.
+    external: ['sql.js', 'canvg', 'html2canvas', 'dompurify'],
+    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
+  });
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) await buildCli();

@@ -1,0 +1,54 @@
+import mgrs from 'mgrs';
+import { describe, expect, it } from 'vitest';
+import { localFrameAt } from './localFrame';
+
+// WGS84 cross-check set from ../shared/REFERENCES.md §2 (proj4 2.22, an independent Krüger series
+// and GeographicLib GeoConvert agree to 1 mm).
+const CASES = [
+  [-33.8688, 151.2093, '56S', 334368.634, 6250948.345],
+  [-33.9249, 18.4241, '34S', 261881.599, 6243182.355],
+  [40.5, -73.5, '18N', 627103.087, 4484335.402],
+  [60.0, 5.0, '32N', 276979.926, 6658157.202],
+  [78.2, 15.6, '33N', 513696.945, 8680760.053],
+  [-1.2921, 36.8219, '37S', 257634.502, 9857079.966],
+  [51.5, -0.1, '30N', 701277.665, 5709417.125],
+  [45, 5.9999, '31N', 736438.145, 4987329.213],
+] as const;
+
+describe('localFrameAt', () => {
+  it.each(CASES)('puts %f, %f in zone %s at the published easting and northing', (lat, lon, zone, e, n) => {
+    const frame = localFrameAt(lon, lat);
+    expect(frame.utmZone).toBe(zone);
+    const [x, y] = frame.toXY(lon, lat);
+    expect(Math.abs(x - e)).toBeLessThan(0.002);
+    expect(Math.abs(y - n)).toBeLessThan(0.002);
+  });
+
+  it.each(CASES)('agrees with the independent mgrs library at %f, %f to the metre', (lat, lon) => {
+    // mgrs 2.2 truncates to the metre and uses an older series (≤ 1.2 cm off at a zone edge,
+    // REFERENCES.md §2); the cases sit ≥ 5 cm from a metre boundary, so the digits must match.
+    const frame = localFrameAt(lon, lat);
+    const [x, y] = frame.toXY(lon, lat);
+    const ref = mgrs.forward([lon, lat], 5);
+    const digits = ref.slice(-10);
+    expect(Number(digits.slice(0, 5))).toBe(Math.floor(x) % 100000);
+    expect(Number(digits.slice(5))).toBe(Math.floor(y) % 100000);
+  });
+
+  it('reports EPSG codes for both hemispheres', () => {
+    expect(localFrameAt(151.2, -33.9).epsg).toBe(32756);
+    expect(localFrameAt(-73.5, 40.5).epsg).toBe(32618);
+  });
+
+  it('returns to the same position within 1 mm after a round trip', () => {
+    const frame = localFrameAt(147.3, -42.9);
+    for (let i = 0; i < 50; i++) {
+      const lon = 144 + i * 0.12;
+      const lat = -43 + i * 0.05;
+      const [x, y] = frame.toXY(lon, lat);
+      const [lon2, lat2] = frame.toLonLat(x, y);
+      const [x2, y2] = frame.toXY(lon2, lat2);
+      expect(Math.hypot(x2 - x, y2 - y)).toBeLessThan(0.001);
+    }
+  });
+});
