@@ -14,7 +14,7 @@ export function geodesicRingAreaM2(ring: readonly LonLat[]): number {
   if (n > 1 && ring[0][0] === ring[n - 1][0] && ring[0][1] === ring[n - 1][1]) n -= 1;
   if (n < 3) return 0;
   for (let i = 0; i < n; i++) poly.AddPoint(ring[i][1], ring[i][0]);
-  return poly.Compute(false, true).area;
+  return poly.Compute(false, true).area ?? 0;
 }
 
 /** Length of one ring or line on the WGS84 ellipsoid, in metres (geodesic edges). */

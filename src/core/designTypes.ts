@@ -1,0 +1,116 @@
+import type { FeatureCollection, Point } from 'geojson';
+import type { ExclusionKind, Site } from './types';
+
+/** A plot's footprint on the ground, in metres; angles clockwise from true north. */
+export type Footprint =
+  | { shape: 'point' }
+  | { shape: 'square'; sideM: number; angleDeg: number }
+  | { shape: 'rect'; widthM: number; heightM: number; angleDeg: number }
+  | { shape: 'circle'; radiusM: number };
+
+export type AllocationMethod = 'proportional' | 'equal' | 'neyman';
+export type PlacementMethod = 'random' | 'balanced' | 'grid' | 'transect';
+export type ShareBasis = 'usable' | 'mapped';
+
+/** Every setting of a design; stored in the plan file and in the `design` member of plot files. */
+export interface DesignSettings {
+  /** Total primary plots; ignored when `targetHalfwidth` is set (then the size is computed). */
+  plots: number;
+  allocation: AllocationMethod;
+  shareBasis: ShareBasis;
+  minPerStratum: number;
+  /** Pilot standard deviations by stratum key (Neyman and target precision). */
+  sd: Record<string, number>;
+  /** Relative cost per plot by stratum key (Neyman); 1 when absent. */
+  cost: Record<string, number>;
+  /** Target half-width of the 95 % CI of the stratified mean: absolute, or relative to `pilotMean`. */
+  targetHalfwidth: { value: number; relative: boolean } | null;
+  pilotMean: number | null;
+  spacingM: number;
+  footprint: Footprint;
+  edgeBufferM: number;
+  reservePerStratum: number;
+  method: PlacementMethod;
+  gridSpacingM: number | null;
+  gridAngleDeg: number;
+  /** Baseline for transects, WGS84 [lon, lat] vertices. */
+  baseline: number[][] | null;
+  transectIntervalM: number | null;
+  quadratIntervalM: number | null;
+  seed: number;
+}
+
+/** One row of the allocation table. */
+export interface AllocationRow {
+  stratum: string;
+  mapped_m2: number;
+  usable_m2: number;
+  share: number;
+  plots: number;
+  reserve: number;
+  /** How many plots the stratum could hold under the spacing and footprint (null: not limited/unknown). */
+  capacity: number | null;
+}
+
+export type PlotRole = 'primary' | 'reserve';
+
+/** Properties of one plot, as written to plot files (snake_case is the file format). */
+export interface PlotProperties {
+  plot_id: string;
+  stratum: string;
+  role: PlotRole;
+  rank: number;
+  lon: number;
+  lat: number;
+  utm_zone: string;
+  easting: number;
+  northing: number;
+  mgrs: string;
+  nearest_exclusion_m: number | null;
+  nearest_exclusion_kind: ExclusionKind | null;
+  design_density_per_ha: number;
+  /** Transect designs only. */
+  transect?: number;
+  chainage_m?: number;
+  /** Field status, set after a crew reports back. */
+  status?: 'planned' | 'rejected' | 'promoted';
+  reject_reason?: string;
+  /** The plot id a promoted reserve replaces. */
+  replaces?: string;
+  notes?: string;
+}
+
+/** Summary of a design, the `design` member of a plot file. */
+export interface DesignSummary {
+  settings: DesignSettings;
+  seed: number;
+  crs: { utm_zone: string; epsg: number };
+  allocation: AllocationRow[];
+  warnings: string[];
+  /** What the estimates will cover, and the reserve rule, in words. */
+  statements: string[];
+  software: { name: 'stratplot'; version: string };
+}
+
+/** A plot file: GeoJSON points plus the design that made them. */
+export type PlotCollection = FeatureCollection<Point, PlotProperties> & { design: DesignSummary };
+
+/** Field decisions kept in the plan: plots a crew could not reach and what replaced them. */
+export interface FieldRejection {
+  plot_id: string;
+  reason: string;
+  /** Reserve promoted in its place, or null when the stratum had none left. */
+  replacement: string | null;
+  at: string;
+}
+
+/** The plan file: everything needed to reproduce and continue a design. */
+export interface PlanFile {
+  format: 'stratplot-plan';
+  version: 1;
+  savedAt: string;
+  site: Site;
+  design: DesignSettings;
+  result: PlotCollection | null;
+  rejections: FieldRejection[];
+}
