@@ -1,4 +1,15 @@
 import type { Command } from './command';
+import { areasCommand } from './commands/areas';
+import { estimateCommand } from './commands/estimate';
+import { exportCommand } from './commands/export';
+import { planCommand } from './commands/plan';
+import { recaptureCommand } from './commands/recapture';
 
 /** Every `stratplot` command by name; each lives in its own file under ./commands/. */
-export const COMMANDS: Record<string, Command> = {};
+export const COMMANDS: Record<string, Command> = {
+  areas: areasCommand,
+  estimate: estimateCommand,
+  export: exportCommand,
+  plan: planCommand,
+  recapture: recaptureCommand,
+};

@@ -38,6 +38,8 @@ export interface DesignSettings {
   transectIntervalM: number | null;
   quadratIntervalM: number | null;
   seed: number;
+  /** When a stratum cannot hold its plots, move the shortfall to strata with room (proportionally). */
+  redistributeShortfall?: boolean;
 }
 
 /** One row of the allocation table. */
@@ -78,6 +80,14 @@ export interface PlotProperties {
   /** The plot id a promoted reserve replaces. */
   replaces?: string;
   notes?: string;
+  /** Navigation added for field kits: the access point measured from, geodesic distance, bearings. */
+  access_point?: string;
+  distance_m?: number;
+  bearing_true_deg?: number;
+  bearing_mag_deg?: number;
+  /** Declination used for `bearing_mag_deg`, degrees east positive, and its model, e.g. "WMM-2025, epoch 2025.0, for 2026.20". */
+  declination_deg?: number;
+  mag_model?: string;
 }
 
 /** Summary of a design, the `design` member of a plot file. */

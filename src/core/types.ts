@@ -83,6 +83,11 @@ export interface ProblemLocation {
   ring?: number;
   vertex?: number;
   lonLat?: LonLat;
+  /** Which of the site's layers the feature belongs to (absent: strata). */
+  layer?: 'strata' | 'exclusions' | 'access' | 'boundary';
+  /** Tables (e.g. field results): the row as a spreadsheet numbers it (header = row 1) and the column name. */
+  row?: number;
+  column?: string;
 }
 
 /** A problem found in the input, worded for the person who made the map. */

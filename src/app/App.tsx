@@ -1,0 +1,57 @@
+import { useState } from 'react';
+import { FileBar } from './FileBar';
+import { HistoryButtons } from './HistoryButtons';
+import { MapView } from './map/MapView';
+import { DesignPanel } from './panels/DesignPanel';
+import { ExclusionsPanel } from './panels/ExclusionsPanel';
+import { PlotsPanel } from './panels/PlotsPanel';
+import { StrataPanel } from './panels/StrataPanel';
+import { StatusLine } from './StatusLine';
+import { type StepId, StepPath } from './StepPath';
+import { usePlanner } from './usePlanner';
+import { useShortcuts } from './useShortcuts';
+
+/** The planner: a map with the four-step sheet beside it. */
+export function App() {
+  useShortcuts();
+  const [step, setStep] = useState<StepId>('strata');
+  const done = {
+    strata: usePlanner((s) => s.site.parts.length > 0),
+    exclusions: usePlanner((s) => s.site.exclusions.length > 0),
+    design: usePlanner((s) => s.result !== null),
+    plots: usePlanner((s) => s.rejections.length > 0),
+  };
+  return (
+    <div className="planner">
+      <header className="masthead">
+        <div className="brand">
+          <span className="brand-mark" aria-hidden="true" />
+          <span className="brand-name">stratplot</span>
+          <span className="brand-sub">survey planner</span>
+        </div>
+        <StepPath step={step} onStep={setStep} done={done} />
+        <HistoryButtons />
+        <FileBar />
+      </header>
+      <main className="workspace">
+        <div className="map-pane">
+          <MapView />
+          <StatusLine />
+        </div>
+        <div className="sheet-pane">
+          {step === 'strata' ? <StrataPanel /> : null}
+          {step === 'exclusions' ? <ExclusionsPanel /> : null}
+          {step === 'design' ? <DesignPanel /> : null}
+          {step === 'plots' ? <PlotsPanel /> : null}
+          <div className="sheet-next">
+            {step !== 'plots' ? (
+              <button type="button" className="next" onClick={() => setStep(step === 'strata' ? 'exclusions' : step === 'exclusions' ? 'design' : 'plots')}>
+                Next step →
+              </button>
+            ) : null}
+          </div>
+        </div>
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+import { get, set } from 'idb-keyval';
+import { autosaveRestore, autosaveStart } from '../state/autosave';
+import { planFileApply } from '../state/planFile';
+import { demoDesign, demoSiteLoad } from './demoSite';
+import { plannerStore } from './plannerStoreInstance';
+
+const storage = { get: (k: string) => get(k), set: (k: string, v: unknown) => set(k, v) };
+
+/** Opens the work kept in this browser, or the invented demo site on a first visit; then keeps autosaving. */
+export async function bootPlanner(): Promise<void> {
+  let restored = false;
+  try {
+    restored = await autosaveRestore(plannerStore, storage, demoDesign(null));
+  } catch (e) {
+    plannerStore.setState({ notice: { tone: 'error', text: `${(e as Error).message}; the demo site was opened instead` } });
+  }
+  if (!restored) {
+    const { site, baseline } = await demoSiteLoad();
+    const design = demoDesign(baseline);
+    planFileApply(plannerStore, { format: 'stratplot-plan', version: 1, savedAt: '', site, design, result: null, rejections: [] }, design, true);
+  } else {
+    plannerStore.setState({ notice: { tone: 'info', text: 'Your work was restored from this browser’s copy.' } });
+  }
+  autosaveStart(plannerStore, storage, 250, () =>
+    plannerStore.setState({ notice: { tone: 'error', text: 'This browser refused to keep a copy of your work: save a plan file to be safe.' } }),
+  );
+}

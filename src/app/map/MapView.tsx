@@ -1,0 +1,99 @@
+import { Map as MapLibreMap, NavigationControl, Popup, ScaleControl, setWorkerUrl } from 'maplibre-gl';
+import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
+import { useEffect, useRef } from 'react';
+import type { PlotProperties } from '../../core/designTypes';
+import { DEMO_SITE_NAME } from '../demoSite';
+import { imageryLoadDemo } from '../imageryLoad';
+import { plannerStore } from '../plannerStoreInstance';
+import { notify } from '../usePlanner';
+import { drawControlInstall } from './drawControl';
+import { hatchImagesInstall, labelImagesInstall } from './labelImages';
+import { mapHandleSet } from './mapHandle';
+import { mapStyleInitial, mapStyleLandInstall } from './mapStyle';
+import { plotPopupContent } from './plotPopup';
+import { siteBounds } from './siteBounds';
+import { siteLayersAdd } from './siteLayers';
+import { EXCLUSION_COLOURS } from './palette';
+import { syncSiteToMap } from './syncSiteToMap';
+
+setWorkerUrl(workerUrl);
+
+declare global {
+  interface Window {
+    /** The planner's map, for the browser tests. */
+    __stratplotMap?: MapLibreMap;
+  }
+}
+
+const CLICK_LAYERS = ['sp-plots', 'sp-access', 'sp-exclusions-point', 'sp-exclusions-line', 'sp-exclusions-fill', 'sp-strata-fill'];
+
+/** Mounts the map, keeps its sources in step with the store, and turns clicks into selections and popups. */
+export function MapView() {
+  const holder = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!holder.current) return;
+    const map = new MapLibreMap({
+      container: holder.current,
+      style: mapStyleInitial(),
+      center: [0, 0],
+      zoom: 1,
+      attributionControl: { compact: true },
+      canvasContextAttributes: { preserveDrawingBuffer: true },
+      maxPitch: 0,
+      dragRotate: false,
+    });
+    map.touchZoomRotate.disableRotation();
+    map.addControl(new ScaleControl({ unit: 'metric', maxWidth: 140 }), 'bottom-left');
+    map.addControl(new NavigationControl({ showCompass: false }), 'top-right');
+    const popup = new Popup({ closeButton: true, maxWidth: '300px' });
+    const cleanups: (() => void)[] = [];
+    labelImagesInstall(map);
+    map.on('load', () => {
+      hatchImagesInstall(map, EXCLUSION_COLOURS);
+      mapStyleLandInstall(map);
+      siteLayersAdd(map);
+      cleanups.push(syncSiteToMap(map, plannerStore));
+      cleanups.push(drawControlInstall(map, plannerStore, notify));
+      const b = siteBounds(plannerStore.getState().site);
+      if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+      cleanups.push(
+        plannerStore.subscribe((s, prev) => {
+          if (s.focus && s.focus !== prev.focus) map.fitBounds(s.focus.bbox, { padding: 60, maxZoom: 18, duration: 400 });
+        }),
+      );
+      map.on('click', (e) => {
+        if (plannerStore.getState().tool !== 'none') return;
+        const hits = map.queryRenderedFeatures(e.point, { layers: CLICK_LAYERS.filter((l) => map.getLayer(l)) });
+        const hit = hits[0];
+        if (!hit) {
+          plannerStore.setState({ selection: null });
+          popup.remove();
+          return;
+        }
+        const id = String(hit.properties.id ?? hit.properties.plot_id);
+        if (hit.layer.id === 'sp-plots') {
+          const s = plannerStore.getState();
+          const plot = s.result?.features.find((f) => f.properties.plot_id === hit.properties.plot_id);
+          if (!plot) return;
+          const p: PlotProperties = plot.properties;
+          const label = s.site.strata.find((x) => x.key === p.stratum)?.label ?? p.stratum;
+          plannerStore.setState({ selection: { kind: 'plot', id: p.plot_id } });
+          popup.setLngLat([p.lon, p.lat]).setDOMContent(plotPopupContent(p, label)).addTo(map);
+          return;
+        }
+        popup.remove();
+        const kind = hit.layer.id === 'sp-strata-fill' ? 'part' : hit.layer.id === 'sp-access' ? 'access' : 'exclusion';
+        plannerStore.setState({ selection: { kind, id } });
+      });
+      window.__stratplotMap = map;
+      mapHandleSet(map);
+      if (plannerStore.getState().site.name === DEMO_SITE_NAME) void imageryLoadDemo();
+    });
+    return () => {
+      for (const c of cleanups) c();
+      mapHandleSet(null);
+      map.remove();
+    };
+  }, []);
+  return <div className="map-holder" ref={holder} role="application" aria-label="Site map: strata, exclusions with safety buffers, access points and plots" />;
+}

@@ -1,0 +1,26 @@
+import type { Geometry } from 'geojson';
+import type { Site } from '../../core/types';
+
+/** [west, south, east, north] of everything mapped at a site, or null when nothing is. */
+export function siteBounds(site: Site): [number, number, number, number] | null {
+  const b = [Infinity, Infinity, -Infinity, -Infinity] as [number, number, number, number];
+  const add = (lon: number, lat: number) => {
+    if (lon < b[0]) b[0] = lon;
+    if (lat < b[1]) b[1] = lat;
+    if (lon > b[2]) b[2] = lon;
+    if (lat > b[3]) b[3] = lat;
+  };
+  const walk = (c: unknown): void => {
+    if (Array.isArray(c) && typeof c[0] === 'number') add(c[0] as number, c[1] as number);
+    else if (Array.isArray(c)) for (const x of c) walk(x);
+  };
+  for (const p of site.parts) walk(p.geometry.coordinates);
+  for (const e of site.exclusions) walk((e.geometry as Exclude<Geometry, { type: 'GeometryCollection' }>).coordinates);
+  for (const a of site.access) add(a.lon, a.lat);
+  return Number.isFinite(b[0]) ? b : null;
+}
+
+/** Bounds of one geometry. */
+export function geometryBounds(g: Geometry): [number, number, number, number] | null {
+  return siteBounds({ name: '', strata: [], parts: [], exclusions: [{ id: '', kind: 'other', bufferM: 0, geometry: g as never }], access: [], boundary: null });
+}

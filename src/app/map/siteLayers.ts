@@ -1,0 +1,104 @@
+import type { GeoJSONSource, Map as MapLibreMap } from 'maplibre-gl';
+import type { FeatureCollection } from 'geojson';
+import { EXCLUSION_COLOURS, INK } from './palette';
+import { LABEL_PREFIX } from './labelImages';
+
+/** Source ids of the planner's own map data. */
+export const SOURCES = ['sp-strata', 'sp-buffers', 'sp-exclusions', 'sp-access', 'sp-plots', 'sp-footprints', 'sp-selection'] as const;
+export type SourceId = (typeof SOURCES)[number];
+
+const kindColour: unknown[] = ['match', ['get', 'kind'], ...Object.entries(EXCLUSION_COLOURS).flat(), '#555555'];
+const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
+
+/** Adds the planner's sources and layers above whatever base style is loaded. */
+export function siteLayersAdd(map: MapLibreMap): void {
+  for (const id of SOURCES) {
+    map.addSource(id, { type: 'geojson', data: EMPTY, promoteId: id === 'sp-plots' || id === 'sp-footprints' ? 'plot_id' : 'id' });
+  }
+  const c = kindColour as never;
+  map.addLayer({ id: 'sp-strata-fill', type: 'fill', source: 'sp-strata', paint: { 'fill-color': ['get', 'colour'], 'fill-opacity': 0.32 } });
+  map.addLayer({ id: 'sp-buffers-hatch', type: 'fill', source: 'sp-buffers', paint: { 'fill-pattern': ['concat', 'hatch-', ['get', 'kind']] } });
+  map.addLayer({ id: 'sp-buffers-edge', type: 'line', source: 'sp-buffers', paint: { 'line-color': c, 'line-width': 1, 'line-dasharray': [3, 2] } });
+  map.addLayer({ id: 'sp-strata-line', type: 'line', source: 'sp-strata', paint: { 'line-color': ['get', 'colour'], 'line-width': 1.6 } });
+  map.addLayer({
+    id: 'sp-exclusions-fill',
+    type: 'fill',
+    source: 'sp-exclusions',
+    filter: ['==', ['geometry-type'], 'Polygon'],
+    paint: { 'fill-color': c, 'fill-opacity': 0.25 },
+  });
+  map.addLayer({
+    id: 'sp-exclusions-line',
+    type: 'line',
+    source: 'sp-exclusions',
+    filter: ['!=', ['geometry-type'], 'Point'],
+    paint: { 'line-color': c, 'line-width': ['match', ['get', 'kind'], 'cliff', 3, 2] },
+  });
+  map.addLayer({
+    id: 'sp-exclusions-point',
+    type: 'circle',
+    source: 'sp-exclusions',
+    filter: ['==', ['geometry-type'], 'Point'],
+    paint: { 'circle-radius': 6, 'circle-color': '#ffffff', 'circle-stroke-color': c, 'circle-stroke-width': 3 },
+  });
+  map.addLayer({ id: 'sp-selection-line', type: 'line', source: 'sp-selection', paint: { 'line-color': '#f2b134', 'line-width': 4, 'line-opacity': 0.9 } });
+  map.addLayer({
+    id: 'sp-footprints',
+    type: 'line',
+    source: 'sp-footprints',
+    minzoom: 16,
+    paint: { 'line-color': INK, 'line-width': 1, 'line-dasharray': ['case', ['==', ['get', 'role'], 'reserve'], ['literal', [2, 2]], ['literal', [1, 0]]] as never },
+  });
+  map.addLayer({
+    id: 'sp-access',
+    type: 'circle',
+    source: 'sp-access',
+    paint: { 'circle-radius': 7, 'circle-color': '#ffffff', 'circle-stroke-color': INK, 'circle-stroke-width': 2.5 },
+  });
+  map.addLayer({
+    id: 'sp-plots',
+    type: 'circle',
+    source: 'sp-plots',
+    paint: {
+      'circle-radius': ['match', ['get', 'state'], 'reserve', 4.5, 'rejected', 4, 5.5],
+      'circle-color': ['match', ['get', 'state'], 'reserve', '#ffffff', 'rejected', '#b9b9b9', 'promoted', '#f2b134', INK],
+      'circle-stroke-color': ['match', ['get', 'state'], 'rejected', '#6d6d6d', INK],
+      'circle-stroke-width': ['match', ['get', 'state'], 'reserve', 2, 1.2],
+    },
+  });
+  map.addLayer({
+    id: 'sp-strata-label',
+    type: 'symbol',
+    source: 'sp-strata',
+    layout: { 'icon-image': ['concat', `${LABEL_PREFIX}!`, ['get', 'code'], ' ', ['get', 'label']], 'icon-allow-overlap': false, 'symbol-placement': 'point' },
+  });
+  map.addLayer({
+    id: 'sp-exclusions-label',
+    type: 'symbol',
+    source: 'sp-exclusions',
+    minzoom: 14,
+    layout: { 'icon-image': ['concat', LABEL_PREFIX, ['get', 'kind'], ': ', ['get', 'name']], 'icon-anchor': 'top', 'icon-offset': [0, 6] },
+  });
+  map.addLayer({
+    id: 'sp-access-label',
+    type: 'symbol',
+    source: 'sp-access',
+    layout: { 'icon-image': ['concat', LABEL_PREFIX, ['get', 'name']], 'icon-anchor': 'left', 'icon-offset': [10, 0], 'icon-allow-overlap': true },
+  });
+  map.addLayer({
+    id: 'sp-plots-label',
+    type: 'symbol',
+    source: 'sp-plots',
+    minzoom: 15,
+    layout: {
+      'icon-image': ['concat', LABEL_PREFIX, ['get', 'plot_id'], ['match', ['get', 'state'], 'rejected', ' ✕ rejected', 'promoted', ' ▲ promoted', '']],
+      'icon-anchor': 'left',
+      'icon-offset': [7, 0],
+    },
+  });
+}
+
+/** Replaces one source's data. */
+export function siteLayerSet(map: MapLibreMap, id: SourceId, data: FeatureCollection): void {
+  (map.getSource(id) as GeoJSONSource | undefined)?.setData(data);
+}

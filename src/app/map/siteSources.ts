@@ -1,0 +1,99 @@
+import type { Feature, FeatureCollection, Polygon } from 'geojson';
+import type { Footprint, PlotCollection } from '../../core/designTypes';
+import { type LocalFrame, localFrameAt } from '../../core/localFrame';
+import type { Site } from '../../core/types';
+
+const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
+
+/** Stratum features coloured by their stratum, with the label and code the map prints. */
+export function strataSource(site: Site): FeatureCollection {
+  const info = new Map(site.strata.map((s) => [s.key, s]));
+  return {
+    type: 'FeatureCollection',
+    features: site.parts.map((p) => {
+      const s = info.get(p.stratum);
+      return {
+        type: 'Feature',
+        geometry: p.geometry,
+        properties: { id: p.id, stratum: p.stratum, label: s?.label ?? p.stratum, code: s?.code ?? '?', colour: s?.colour ?? '#777777' },
+      };
+    }),
+  };
+}
+
+/** Exclusions as drawn (lines, points, polygons), with kind and name. */
+export function exclusionsSource(site: Site): FeatureCollection {
+  return {
+    type: 'FeatureCollection',
+    features: site.exclusions.map((e) => ({ type: 'Feature', geometry: e.geometry, properties: { id: e.id, kind: e.kind, name: e.name ?? e.kind, buffer_m: e.bufferM } })),
+  };
+}
+
+/** Access points with their names. */
+export function accessSource(site: Site): FeatureCollection {
+  return {
+    type: 'FeatureCollection',
+    features: site.access.map((a) => ({ type: 'Feature', geometry: { type: 'Point', coordinates: [a.lon, a.lat] }, properties: { id: a.id, name: a.name, kind: a.kind } })),
+  };
+}
+
+/** Plots as points; `state` folds role and field status into one styling key. */
+export function plotsSource(result: PlotCollection | null): FeatureCollection {
+  if (!result) return EMPTY;
+  return {
+    type: 'FeatureCollection',
+    features: result.features.map((f) => {
+      const p = f.properties;
+      const state = p.status === 'rejected' ? 'rejected' : p.status === 'promoted' ? 'promoted' : p.role;
+      return { type: 'Feature', geometry: f.geometry, properties: { plot_id: p.plot_id, stratum: p.stratum, role: p.role, rank: p.rank, state } };
+    }),
+  };
+}
+
+function footprintRingXY(fp: Footprint, frame: LocalFrame, lon: number, lat: number): [number, number][] | null {
+  const [cx, cy] = frame.toXY(lon, lat);
+  // True north in grid terms differs from grid north by the meridian convergence: measure it here.
+  const [nx, ny] = frame.toXY(lon, lat + 1e-4);
+  const len = Math.hypot(nx - cx, ny - cy);
+  const north = [(nx - cx) / len, (ny - cy) / len];
+  const east = [north[1], -north[0]];
+  const at = (e: number, n: number, angleDeg: number): [number, number] => {
+    const a = (angleDeg * Math.PI) / 180;
+    // Rotate clockwise from true north by the footprint angle.
+    const er = e * Math.cos(a) + n * Math.sin(a);
+    const nr = -e * Math.sin(a) + n * Math.cos(a);
+    return [cx + er * east[0] + nr * north[0], cy + er * east[1] + nr * north[1]];
+  };
+  if (fp.shape === 'square' || fp.shape === 'rect') {
+    const w = (fp.shape === 'square' ? fp.sideM : fp.widthM) / 2;
+    const h = (fp.shape === 'square' ? fp.sideM : fp.heightM) / 2;
+    const ring = [at(-w, -h, fp.angleDeg), at(w, -h, fp.angleDeg), at(w, h, fp.angleDeg), at(-w, h, fp.angleDeg)];
+    return [...ring, ring[0]];
+  }
+  if (fp.shape === 'circle') {
+    const ring: [number, number][] = [];
+    for (let i = 0; i <= 48; i++) {
+      const t = (i / 48) * 2 * Math.PI;
+      ring.push(at(fp.radiusM * Math.cos(t), fp.radiusM * Math.sin(t), 0));
+    }
+    return ring;
+  }
+  return null;
+}
+
+/** Plot footprints (square, rectangle or circle, true-north aligned) as polygons, for high zooms. */
+export function footprintsSource(result: PlotCollection | null): FeatureCollection {
+  if (!result || result.features.length === 0) return EMPTY;
+  const fp = result.design.settings.footprint;
+  if (fp.shape === 'point') return EMPTY;
+  const first = result.features[0].geometry.coordinates;
+  // Any conformal frame near the plots draws the footprints true to shape; the first plot's UTM zone is one.
+  const frame = localFrameAt(first[0], first[1]);
+  const features: Feature<Polygon>[] = [];
+  for (const f of result.features) {
+    const ring = footprintRingXY(fp, frame, f.geometry.coordinates[0], f.geometry.coordinates[1]);
+    if (!ring) continue;
+    features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [ring.map(([x, y]) => frame.toLonLat(x, y))] }, properties: { plot_id: f.properties.plot_id, role: f.properties.role } });
+  }
+  return { type: 'FeatureCollection', features };
+}

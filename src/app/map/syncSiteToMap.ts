@@ -1,0 +1,46 @@
+import type { Feature, FeatureCollection } from 'geojson';
+import type { Map as MapLibreMap } from 'maplibre-gl';
+import type { PlannerState, PlannerStore } from '../../state/plannerStore';
+import { siteLayerSet } from './siteLayers';
+import { accessSource, exclusionsSource, footprintsSource, plotsSource, strataSource } from './siteSources';
+
+function selectionSource(s: PlannerState): FeatureCollection {
+  const sel = s.selection;
+  let feature: Feature | null = null;
+  if (sel?.kind === 'part') {
+    const p = s.site.parts.find((x) => x.id === sel.id);
+    if (p) feature = { type: 'Feature', geometry: p.geometry, properties: { id: p.id } };
+  } else if (sel?.kind === 'exclusion') {
+    const e = s.site.exclusions.find((x) => x.id === sel.id);
+    if (e) feature = { type: 'Feature', geometry: e.geometry, properties: { id: e.id } };
+  }
+  return { type: 'FeatureCollection', features: feature ? [feature] : [] };
+}
+
+/**
+ * Pushes store state into the map's GeoJSON sources whenever the site, the design result or the
+ * selection changes; buffered ground comes from the worker's analysis of the site.
+ * Returns an unsubscribe function.
+ */
+export function syncSiteToMap(map: MapLibreMap, store: PlannerStore): () => void {
+  const pushSite = (s: PlannerState) => {
+    siteLayerSet(map, 'sp-strata', strataSource(s.site));
+    siteLayerSet(map, 'sp-exclusions', exclusionsSource(s.site));
+    siteLayerSet(map, 'sp-access', accessSource(s.site));
+  };
+  const pushResult = (s: PlannerState) => {
+    siteLayerSet(map, 'sp-plots', plotsSource(s.result));
+    siteLayerSet(map, 'sp-footprints', footprintsSource(s.result));
+  };
+  const now = store.getState();
+  pushSite(now);
+  pushResult(now);
+  if (now.analysis) siteLayerSet(map, 'sp-buffers', now.analysis.buffers);
+  siteLayerSet(map, 'sp-selection', selectionSource(now));
+  return store.subscribe((s, prev) => {
+    if (s.site !== prev.site) pushSite(s);
+    if (s.result !== prev.result) pushResult(s);
+    if (s.analysis !== prev.analysis && s.analysis) siteLayerSet(map, 'sp-buffers', s.analysis.buffers);
+    if (s.selection !== prev.selection || s.site !== prev.site) siteLayerSet(map, 'sp-selection', selectionSource(s));
+  });
+}

@@ -1,0 +1,99 @@
+import { parseArgs } from 'node:util';
+import { InputError } from '../../core/InputError';
+import { type StratumAreaTable, stratumAreaTable } from '../../core/stratumAreaTable';
+import type { CliIo, Command } from '../command';
+import { siteFromInputs } from '../siteFromInputs';
+
+const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--json]
+
+Mapped and usable area of every stratum, measured on the WGS84 ellipsoid (geodesic edges,
+Karney 2013). Usable area is the stratum less its exclusions widened by their buffer_m (clipped
+in the site's UTM zone, then measured on the ellipsoid again).
+
+Options:
+  --field NAME     property that names each feature's stratum (default: stratum)
+  --exclude FILE   exclusions (cliff, water, private, hazard, other) with buffer_m; repeatable
+  --json           print {"strata":[{stratum, features, area_m2, area_ha, share, usable_m2}],
+                   "total_m2", "crs":{utm_zone, epsg}}; m² to 0.001, ha to 1e-7, share to 1e-9
+
+Exit status: 0 done; 2 bad input (one line on stderr saying what and where).`;
+
+const round = (v: number, digits: number) => Number(v.toFixed(digits));
+
+/** The --json document; field names and order are the published output format. */
+function areasJson(t: StratumAreaTable): string {
+  const doc = {
+    strata: t.rows.map((r) => ({
+      stratum: r.stratum,
+      features: r.features,
+      area_m2: round(r.area_m2, 3),
+      area_ha: round(r.area_ha, 7),
+      share: round(r.share, 9),
+      usable_m2: round(r.usable_m2, 3),
+    })),
+    total_m2: round(t.total_m2, 3),
+    crs: { utm_zone: t.crs.utm_zone, epsg: t.crs.epsg },
+  };
+  return `${JSON.stringify(doc, null, 2)}\n`;
+}
+
+function areasText(t: StratumAreaTable): string {
+  const head = ['stratum', 'features', 'mapped ha', 'share %', 'usable ha'];
+  const usableTotal = t.rows.reduce((s, r) => s + r.usable_m2, 0);
+  const body = t.rows.map((r) => [r.stratum, String(r.features), (r.area_ha).toFixed(4), (r.share * 100).toFixed(1), (r.usable_m2 / 1e4).toFixed(4)]);
+  const total = ['total', String(t.rows.reduce((s, r) => s + r.features, 0)), (t.total_m2 / 1e4).toFixed(4), t.total_m2 > 0 ? '100.0' : '0.0', (usableTotal / 1e4).toFixed(4)];
+  const rows = [head, ...body, total];
+  const widths = head.map((_, c) => Math.max(...rows.map((r) => r[c].length)));
+  const line = (r: string[]) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  ');
+  const rule = widths.map((w) => '-'.repeat(w)).join('  ');
+  return [
+    line(head),
+    rule,
+    ...body.map(line),
+    rule,
+    line(total),
+    '',
+    `Clipping frame: UTM zone ${t.crs.utm_zone} (EPSG:${t.crs.epsg}); areas on the WGS84 ellipsoid.`,
+    '',
+  ].join('\n');
+}
+
+function argsParse(argv: string[]) {
+  try {
+    return parseArgs({
+      args: argv,
+      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, json: { type: 'boolean' } },
+      allowPositionals: true,
+      strict: true,
+    });
+  } catch (error) {
+    const e = error as Error & { code?: string };
+    const named = /'([^']+)'/.exec(e.message)?.[1] ?? '';
+    const what =
+      e.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION'
+        ? `unknown option ${named}`
+        : e.code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE'
+          ? `option ${named.split(' ')[0]} needs a value`
+          : e.message.split('\n')[0];
+    throw new InputError(`${what} (see stratplot areas --help)`);
+  }
+}
+
+async function run(argv: string[], io: CliIo): Promise<number> {
+  const { values, positionals } = argsParse(argv);
+  if (positionals.length !== 1) {
+    throw new InputError(positionals.length === 0 ? 'give one strata file (see stratplot areas --help)' : `give one strata file, not ${positionals.length}: ${positionals.join(' ')}`);
+  }
+  const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude });
+  for (const w of warnings) io.err(`warning: ${w}\n`);
+  const table = stratumAreaTable(site);
+  io.out(values.json ? areasJson(table) : areasText(table));
+  return 0;
+}
+
+/** `stratplot areas`: the stratum area table of a strata file. */
+export const areasCommand: Command = {
+  summary: 'mapped and usable area of each stratum (WGS84 ellipsoid)',
+  usage: USAGE,
+  run,
+};

@@ -1,0 +1,75 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { samplePlots, sampleExclusions, sampleFeatures } from '../../io/fixtures/ioSamples';
+import { parseFeatureFile } from '../../io/parseFeatureFile';
+import { runCli } from '../main';
+
+function workspace() {
+  const dir = mkdtempSync(join(tmpdir(), 'stratplot-export-'));
+  writeFileSync(join(dir, 'plots.geojson'), JSON.stringify(samplePlots()));
+  writeFileSync(join(dir, 'strata.geojson'), JSON.stringify(sampleFeatures(-122.42, 37.77)));
+  writeFileSync(join(dir, 'excl.geojson'), JSON.stringify(sampleExclusions(-122.42, 37.77)));
+  return dir;
+}
+
+async function run(dir: string, ...argv: string[]) {
+  let out = '';
+  let err = '';
+  const code = await runCli(['export', ...argv], { out: (t) => (out += t), err: (t) => (err += t), cwd: dir });
+  return { code, out, err };
+}
+
+describe('stratplot export', () => {
+  it('writes GPX that validates against the GPX 1.1 schema', async () => {
+    const dir = workspace();
+    const r = await run(dir, 'plots.geojson', '--format', 'gpx', '--out', 'plots.gpx');
+    expect(r).toMatchObject({ code: 0, err: '' });
+    expect(r.out).toBe('wrote plots.gpx (gpx): 4 primary and 2 reserve plots\n');
+    // Topografix GPX 1.1 schema (REFERENCES.md): xmllint exits 0 when the file is valid.
+    execFileSync('xmllint', ['--noout', '--schema', '/work/shared/schemas/gpx-1.1.xsd', join(dir, 'plots.gpx')], { stdio: 'pipe' });
+  });
+
+  it('writes a shapefile zip with strata and exclusions that reads back by layer', async () => {
+    const dir = workspace();
+    const r = await run(dir, 'plots.geojson', '--format', 'shp', '--out', 'site.zip', '--strata', 'strata.geojson', '--exclude', 'excl.geojson');
+    expect(r.code).toBe(0);
+    const bytes = new Uint8Array(readFileSync(join(dir, 'site.zip')));
+    const strata = await parseFeatureFile('site.zip', bytes, { layer: 'strata' });
+    expect(strata.features.map((f) => f.properties?.stratum)).toEqual(['Forêt humide', 'Ngā otaota', '草地']);
+    const plots = await parseFeatureFile('site.zip', bytes, { layer: 'plots' });
+    expect(plots.features.map((f) => f.properties?.plot_id)).toEqual(['P001', 'P002', 'P003', 'P004', 'P005', 'P006']);
+  });
+
+  it('writes CSV with a byte-order mark when asked', async () => {
+    const dir = workspace();
+    expect((await run(dir, 'plots.geojson', '--format', 'csv', '--out', 'p.csv', '--bom')).code).toBe(0);
+    expect([...readFileSync(join(dir, 'p.csv')).subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+  });
+
+  it('writes field sheets as a PDF', async () => {
+    const dir = workspace();
+    const r = await run(dir, 'plots.geojson', '--format', 'sheets', '--out', 'sheets.pdf', '--paper', 'letter', '--survey-date', '2026-03-01');
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    expect(readFileSync(join(dir, 'sheets.pdf')).subarray(0, 5).toString()).toBe('%PDF-');
+  });
+
+  it('refuses an unknown format with one line listing the formats, exit 2', async () => {
+    const r = await run(workspace(), 'plots.geojson', '--format', 'dxf', '--out', 'x.dxf');
+    expect(r).toEqual({ code: 2, out: '', err: 'stratplot export: --format "dxf" is not one of gpx, kml, kmz, csv, geojson, shp, gpkg, sheets, report\n' });
+  });
+
+  it('says that exclusions need the strata file', async () => {
+    const r = await run(workspace(), 'plots.geojson', '--format', 'kml', '--out', 'x.kml', '--exclude', 'excl.geojson');
+    expect(r.err).toBe('stratplot export: --exclude and --access need --strata (the map the design was made on)\n');
+    expect(r.code).toBe(2);
+  });
+
+  it('names a missing plot file', async () => {
+    const r = await run(workspace(), 'nope.geojson', '--format', 'kml', '--out', 'x.kml');
+    expect(r).toEqual({ code: 2, out: '', err: 'stratplot export: file not found: nope.geojson\n' });
+  });
+});

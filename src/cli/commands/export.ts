@@ -1,0 +1,113 @@
+import { writeFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
+import { parseArgs } from 'node:util';
+import { InputError } from '../../core/InputError';
+import type { Site } from '../../core/types';
+import { designOutputBytes } from '../../io/designOutput';
+import { parsePlotFile } from '../../io/parsePlotFile';
+import type { CliIo, Command } from '../command';
+import { readInputFile } from '../readInput';
+import { siteFromInputs } from '../siteFromInputs';
+
+/** --format values and the file extension each is written as. */
+const FORMATS: Record<string, { ext: string; pdf?: 'report' | 'sheets'; what: string }> = {
+  gpx: { ext: 'gpx', what: 'GPX 1.1 waypoints for GPS units (with site: access points, strata and exclusions as tracks)' },
+  kml: { ext: 'kml', what: 'KML 2.2, one folder per layer' },
+  kmz: { ext: 'kmz', what: 'KMZ: KML with our plot icons' },
+  csv: { ext: 'csv', what: 'plot table for spreadsheets and phones (UTF-8)' },
+  geojson: { ext: 'geojson', what: 'GeoJSON plot file with the design summary' },
+  shp: { ext: 'zip', what: 'zipped shapefiles (WGS84 .prj, UTF-8 .cpg), one per layer and shape type' },
+  gpkg: { ext: 'gpkg', what: 'GeoPackage, one table per layer' },
+  sheets: { ext: 'pdf', pdf: 'sheets', what: 'printable field sheets (PDF)' },
+  report: { ext: 'pdf', pdf: 'report', what: 'design report (PDF)' },
+};
+
+const USAGE = `stratplot export <plots.geojson> --format F --out FILE [options]
+
+Writes a design's plots (primaries and ranked reserves) for the field: GPS units, phones,
+desktop GIS, print.
+
+  --format F          ${Object.keys(FORMATS).join(' | ')}
+${Object.entries(FORMATS)
+  .map(([k, f]) => `                        ${k.padEnd(8)} ${f.what}`)
+  .join('\n')}
+  --out FILE          file to write
+  --strata FILE       the strata map the design was made on: adds strata to multi-layer formats and
+                      the map to PDFs
+  --field NAME        property holding each polygon's stratum (default stratum)
+  --exclude FILE      exclusions (repeat for more files); needs --strata
+  --access FILE       access points (repeat for more files); needs --strata
+  --bom               csv: start with a UTF-8 byte-order mark (for some spreadsheet programs)
+  --paper P           sheets/report: a4 | letter (default a4)
+  --survey-date D     sheets: survey day YYYY-MM-DD (sets the magnetic declination; default today)
+
+Plot positions are a plan: on the ground follow local codes, the landholder's permission and your
+employer's safety plan, and do not enter ground that is unsafe on the day.`;
+
+/** `stratplot export`: writes a plot file in a field format, optionally with its site. */
+export const exportCommand: Command = {
+  summary: 'write plots (and the site) as GPX, KML/KMZ, CSV, GeoJSON, shapefile, GeoPackage or PDF',
+  usage: USAGE,
+  async run(argv: string[], io: CliIo): Promise<number> {
+    let parsed: ReturnType<typeof parseArgs>;
+    try {
+      parsed = parseArgs({
+        args: argv,
+        allowPositionals: true,
+        options: {
+          format: { type: 'string' },
+          out: { type: 'string' },
+          strata: { type: 'string' },
+          field: { type: 'string' },
+          exclude: { type: 'string', multiple: true },
+          access: { type: 'string', multiple: true },
+          bom: { type: 'boolean' },
+          paper: { type: 'string' },
+          'survey-date': { type: 'string' },
+        },
+      });
+    } catch (error) {
+      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot export --help)`);
+    }
+    const { values, positionals } = parsed as { values: Record<string, string | string[] | boolean | undefined>; positionals: string[] };
+    if (positionals.length !== 1) throw new InputError('give one plot file, e.g. stratplot export plots.geojson --format gpx --out plots.gpx');
+    const formatName = values.format as string | undefined;
+    if (!formatName) throw new InputError(`--format is required: ${Object.keys(FORMATS).join(', ')}`);
+    const format = FORMATS[formatName.toLowerCase()];
+    if (!format) throw new InputError(`--format "${formatName}" is not one of ${Object.keys(FORMATS).join(', ')}`);
+    const out = values.out as string | undefined;
+    if (!out) throw new InputError('--out FILE is required');
+    const paper = (values.paper as string | undefined)?.toLowerCase() ?? 'a4';
+    if (paper !== 'a4' && paper !== 'letter') throw new InputError(`--paper must be a4 or letter, got "${values.paper}"`);
+    let surveyDate: Date | undefined;
+    if (values['survey-date'] !== undefined) {
+      const text = String(values['survey-date']);
+      surveyDate = /^\d{4}-\d{2}-\d{2}$/.test(text) ? new Date(`${text}T12:00:00Z`) : undefined;
+      if (!surveyDate || Number.isNaN(surveyDate.getTime())) throw new InputError(`--survey-date needs YYYY-MM-DD, got "${text}"`);
+    }
+    const exclude = (values.exclude as string[] | undefined) ?? [];
+    const access = (values.access as string[] | undefined) ?? [];
+    if (!values.strata && (exclude.length > 0 || access.length > 0)) {
+      throw new InputError('--exclude and --access need --strata (the map the design was made on)');
+    }
+
+    const plotsFile = await readInputFile(io, positionals[0]);
+    const collection = parsePlotFile(plotsFile.name, plotsFile.bytes);
+    let site: Site | undefined;
+    if (values.strata) {
+      const loaded = await siteFromInputs(io, { strata: String(values.strata), field: values.field as string | undefined, exclude, access });
+      site = loaded.site;
+      for (const w of loaded.warnings) io.err(`warning: ${w}\n`);
+    }
+    const bytes = await designOutputBytes(`${out}.${format.ext}`, collection, site, {
+      bom: values.bom === true,
+      pdf: format.pdf,
+      paper,
+      surveyDate,
+    });
+    await writeFile(resolve(io.cwd, out), bytes);
+    const primaries = collection.features.filter((f) => f.properties.role === 'primary').length;
+    io.out(`wrote ${out} (${formatName.toLowerCase()}): ${primaries} primary and ${collection.features.length - primaries} reserve plots${site ? `, site "${site.name}"` : ''}\n`);
+    return 0;
+  },
+};

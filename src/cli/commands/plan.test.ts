@@ -1,0 +1,95 @@
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import type { PlotCollection } from '../../core/designTypes';
+import { runCli } from '../main';
+
+const root = join(__dirname, '..', '..', '..');
+
+async function cli(args: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const code = await runCli(args, { out: (t) => (out += t), err: (t) => (err += t), cwd: root });
+  return { code, out, err };
+}
+
+describe('stratplot plan', () => {
+  it('designs 60 plots with 3 reserves per stratum on the invented demo site and writes them as GeoJSON', async () => {
+    const file = join(mkdtempSync(join(tmpdir(), 'plan-')), 'x.geojson');
+    const r = await cli([
+      'plan',
+      'demo-maps/ochre-spit-strata.geojson',
+      '--exclude',
+      'demo-maps/ochre-spit-exclusions.geojson',
+      '--plots',
+      '60',
+      '--spacing',
+      '50',
+      '--footprint',
+      'square:20',
+      '--reserve',
+      '3',
+      '--seed',
+      '1',
+      '--out',
+      file,
+    ]);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    const c = JSON.parse(readFileSync(file, 'utf8')) as PlotCollection;
+    const primaries = c.features.filter((f) => f.properties.role === 'primary');
+    expect(primaries.length).toBe(60);
+    expect(c.design.allocation.reduce((a, row) => a + row.plots, 0)).toBe(60);
+    expect(c.design.allocation.every((row) => row.reserve === 3)).toBe(true);
+    expect(c.design.seed).toBe(1);
+    expect(c.design.crs.epsg).toBe(32750);
+    expect(r.out).toMatch(/CRS: WGS84 \/ UTM zone 50S/);
+    for (const f of c.features) expect(f.properties.plot_id.length).toBeLessThanOrEqual(10);
+  });
+
+  it('prints the design summary as JSON with --json and repeats the design for the same seed', async () => {
+    const args = ['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '20', '--seed', '5', '--method', 'balanced'];
+    const a = await cli([...args, '--json']);
+    expect(a.code).toBe(0);
+    const design = JSON.parse(a.out);
+    expect(design.settings.method).toBe('balanced');
+    expect(design.statements.join(' ')).toMatch(/Inference covers the usable area only/);
+    const g1 = await cli(args);
+    const g2 = await cli(args);
+    expect(g1.out).toBe(g2.out);
+  });
+
+  it('exits 2 with one line naming the bad option', async () => {
+    const r = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '20', '--footprint', 'hexagon:3', '--seed', '1']);
+    expect(r.code).toBe(2);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/--footprint "hexagon:3" is not understood/);
+    const s = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '20', '--allocation', 'neyman', '--seed', '1']);
+    expect(s.code).toBe(2);
+    expect(s.err).toMatch(/standard deviation for stratum/);
+    const m = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '3', '--seed', '1']);
+    expect(m.code).toBe(2);
+    expect(m.err).toMatch(/minimum of 2 plots in each of 6 strata needs 12 plots/);
+  });
+
+  it('refuses strata that cross themselves, naming the feature', async () => {
+    const r = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--plots', '4', '--min-per-stratum', '0', '--seed', '1']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/invalid map: .*feature 0/i);
+  });
+
+  it('sizes the design for a relative target half-width from pilot SDs', async () => {
+    const keys = ['Coastal heath', 'Dune grassland', 'Saltmarsh', 'Banksia scrub', 'Eucalypt woodland', 'Wet meadow'];
+    const sd = keys.map((k) => `${k}=12`).join(',');
+    const r = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--target-halfwidth', '10%', '--pilot-mean', '40', '--sd', sd, '--seed', '2', '--json']);
+    expect(r.code).toBe(0);
+    const design = JSON.parse(r.out);
+    // Proportional, no fpc (point plots): n0 = S² (z/d)² = 144 · (1.96/4)² = 34.57 (Cochran 1977, §5.10);
+    // with the minimum of 2 in each small stratum the smallest whole design meeting d is a little larger.
+    expect(design.statements.join(' ')).toMatch(/continuous formula gave 34\.57/);
+    const n = design.allocation.reduce((a: number, row: { plots: number }) => a + row.plots, 0);
+    expect(n).toBeGreaterThanOrEqual(35);
+    expect(n).toBeLessThanOrEqual(40);
+  });
+});

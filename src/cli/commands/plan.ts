@@ -1,0 +1,233 @@
+import { writeFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
+import { parseArgs } from 'node:util';
+import { designRun } from '../../core/designRun';
+import { designSettingsDefault } from '../../core/designSettingsDefault';
+import type { DesignSettings, PlotCollection } from '../../core/designTypes';
+import { footprintParse } from '../../core/footprintParse';
+import { InputError } from '../../core/InputError';
+import { rngSeedFromClock } from '../../core/rng';
+import { siteValidate } from '../../core/siteValidate';
+import type { Exclusion, Site } from '../../core/types';
+import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
+import { parseFeatureFile } from '../../io/parseFeatureFile';
+import { strataFromFeatures } from '../../io/strataFromFeatures';
+import type { CliIo, Command } from '../command';
+import { readInputFile } from '../readInput';
+
+const USAGE = `stratplot plan <strata-file> --plots N [options]
+
+Makes a stratified survey design: allocates plots to strata and places them wholly inside their
+stratum, clear of every buffered exclusion, at a minimum spacing, with ranked reserves.
+
+Allocation:
+  --plots N                 total primary plots (required unless --target-halfwidth is given)
+  --field NAME              property holding the stratum of each polygon (default stratum)
+  --allocation A            proportional | equal | neyman (default proportional)
+  --share-basis B           usable | mapped: area the shares follow (default usable)
+  --min-per-stratum K       at least K plots in every stratum (default 2)
+  --sd KEY=V,...            pilot standard deviations by stratum (neyman, target)
+  --cost KEY=V,...          relative cost per plot by stratum (neyman; default 1)
+  --target-halfwidth X[%]   size the design for a 95 % CI half-width X of the stratified mean
+                            (X% = relative to --pilot-mean)
+  --pilot-mean M            pilot mean, for a relative target
+  --redistribute            move plots a full stratum cannot hold to strata with room
+Placement:
+  --exclude FILE            exclusions (cliff, water, private, hazard, other); repeat for more files
+  --method M                random | balanced | grid | transect (default random)
+  --spacing M               minimum metres between plot centres (default 0)
+  --footprint F             point | square:10 | rect:20x5@30 | circle:5 (metres; @angle clockwise
+                            from true north; default point)
+  --edge-buffer M           metres each footprint keeps from its stratum boundary (default 0)
+  --reserve R               ranked reserve plots per stratum (default 0)
+  --grid-spacing M          grid method: metres between grid lines (default: from --plots)
+  --grid-angle DEG          grid method: turn the grid clockwise from true north (default 0)
+  --baseline FILE           transect method: a line file; transects run perpendicular to it
+  --transect-interval M     transect method: metres between transects
+  --quadrat-interval M      transect method: metres between quadrats along a transect
+  --seed S                  random seed (default: from the clock, printed to stderr)
+Output:
+  --out FILE                write the plots as GeoJSON (.geojson or .json)
+  --json                    print the design summary as JSON to stdout
+Without --out the plot GeoJSON goes to stdout.
+
+Mapped buffers are a planning aid: on the ground follow local codes, the landholder's permission
+and your employer's safety plan.`;
+
+function numberOption(v: string | undefined, name: string): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError(`${name} needs a number, got "${v}"`);
+  return x;
+}
+
+function wholeOption(v: string | undefined, name: string): number | undefined {
+  const x = numberOption(v, name);
+  if (x !== undefined && !(Number.isInteger(x) && x >= 0)) throw new InputError(`${name} needs a whole number ≥ 0, got "${v}"`);
+  return x;
+}
+
+/** Reads "KEY=V,KEY=V" (a key may hold spaces; the value follows the last "="). */
+function keyValues(v: string | undefined, name: string, keys: readonly string[]): Record<string, number> {
+  const out: Record<string, number> = {};
+  if (v === undefined) return out;
+  for (const item of v.split(',')) {
+    const at = item.lastIndexOf('=');
+    if (at <= 0) throw new InputError(`${name}: "${item}" is not KEY=VALUE`);
+    const key = item.slice(0, at).trim();
+    const value = Number(item.slice(at + 1));
+    if (!keys.includes(key)) throw new InputError(`${name}: no stratum "${key}"; strata are ${keys.map((k) => `"${k}"`).join(', ')}`);
+    if (!Number.isFinite(value)) throw new InputError(`${name}: the value for "${key}" is not a number`);
+    out[key] = value;
+  }
+  return out;
+}
+
+async function readBaseline(io: CliIo, path: string): Promise<number[][]> {
+  const file = await readInputFile(io, path);
+  const fc = await parseFeatureFile(file.name, file.bytes);
+  for (const f of fc.features) {
+    if (f.geometry?.type === 'LineString') return f.geometry.coordinates;
+    if (f.geometry?.type === 'MultiLineString' && f.geometry.coordinates.length) return f.geometry.coordinates[0];
+  }
+  throw new InputError(`${file.name}: no LineString feature to use as the transect baseline`);
+}
+
+function summaryTable(c: PlotCollection): string {
+  const head = ['stratum', 'mapped ha', 'usable ha', 'share', 'plots', 'reserve', 'capacity'];
+  const rows = c.design.allocation.map((r) => [
+    r.stratum,
+    (r.mapped_m2 / 1e4).toFixed(2),
+    (r.usable_m2 / 1e4).toFixed(2),
+    `${(r.share * 100).toFixed(1)} %`,
+    String(r.plots),
+    String(r.reserve),
+    r.capacity === null ? '-' : String(r.capacity),
+  ]);
+  const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
+  const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
+  const lines = [fmt(head), ...rows.map(fmt), '', `CRS: WGS84 / UTM zone ${c.design.crs.utm_zone} (EPSG:${c.design.crs.epsg}); seed ${c.design.seed}`];
+  if (c.design.warnings.length) lines.push('', 'Warnings:', ...c.design.warnings.map((w) => `  - ${w}`));
+  lines.push('', ...c.design.statements.map((s) => `* ${s}`), '');
+  return lines.join('\n');
+}
+
+async function run(argv: string[], io: CliIo): Promise<number> {
+  let parsed: ReturnType<typeof parse>;
+  try {
+    parsed = parse(argv);
+  } catch (error) {
+    throw new InputError((error as Error).message.split('\n')[0]);
+  }
+  const { values: o, positionals } = parsed;
+  if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot plan --help`);
+  const strataFile = await readInputFile(io, positionals[0]);
+  const fc = await parseFeatureFile(strataFile.name, strataFile.bytes);
+  const { strata, parts } = strataFromFeatures(fc, { field: o.field, fileName: strataFile.name });
+  const exclusions: Exclusion[] = [];
+  for (const path of o.exclude ?? []) {
+    const file = await readInputFile(io, path);
+    exclusions.push(...exclusionsFromFeatures(await parseFeatureFile(file.name, file.bytes), { fileName: file.name }));
+  }
+  const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
+  const problems = siteValidate(site);
+  const errors = problems.filter((p) => p.severity === 'error');
+  if (errors.length) {
+    const more = errors.length > 1 ? ` (and ${errors.length - 1} more problem${errors.length > 2 ? 's' : ''}; stratplot areas lists them)` : '';
+    throw new InputError(`invalid map: ${errors[0].message}${more}`);
+  }
+  for (const p of problems) io.err(`warning: ${p.message}\n`);
+  const keys = strata.map((s) => s.key);
+  const target = o['target-halfwidth'];
+  let targetHalfwidth: DesignSettings['targetHalfwidth'] = null;
+  if (target !== undefined) {
+    const relative = target.trim().endsWith('%');
+    const value = numberOption(relative ? target.trim().slice(0, -1) : target, '--target-halfwidth')!;
+    targetHalfwidth = { value: relative ? value / 100 : value, relative };
+  }
+  const plots = wholeOption(o.plots, '--plots');
+  if (plots === undefined && !targetHalfwidth) throw new InputError('give --plots N (or --target-halfwidth X to size the design)');
+  let seed = numberOption(o.seed, '--seed');
+  if (seed === undefined) {
+    seed = rngSeedFromClock(Date.now());
+    io.err(`seed: ${seed} (give --seed ${seed} to repeat this design)\n`);
+  }
+  const settings = designSettingsDefault({
+    plots: plots ?? 0,
+    allocation: (o.allocation ?? 'proportional') as DesignSettings['allocation'],
+    shareBasis: (o['share-basis'] ?? 'usable') as DesignSettings['shareBasis'],
+    minPerStratum: wholeOption(o['min-per-stratum'], '--min-per-stratum') ?? 2,
+    sd: keyValues(o.sd, '--sd', keys),
+    cost: keyValues(o.cost, '--cost', keys),
+    targetHalfwidth,
+    pilotMean: numberOption(o['pilot-mean'], '--pilot-mean') ?? null,
+    spacingM: numberOption(o.spacing, '--spacing') ?? 0,
+    footprint: footprintParse(o.footprint ?? 'point', '--footprint'),
+    edgeBufferM: numberOption(o['edge-buffer'], '--edge-buffer') ?? 0,
+    reservePerStratum: wholeOption(o.reserve, '--reserve') ?? 0,
+    method: (o.method ?? 'random') as DesignSettings['method'],
+    gridSpacingM: numberOption(o['grid-spacing'], '--grid-spacing') ?? null,
+    gridAngleDeg: numberOption(o['grid-angle'], '--grid-angle') ?? 0,
+    baseline: o.baseline ? await readBaseline(io, o.baseline) : null,
+    transectIntervalM: numberOption(o['transect-interval'], '--transect-interval') ?? null,
+    quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval') ?? null,
+    seed,
+    redistributeShortfall: o.redistribute ?? false,
+  });
+  const collection = designRun(site, settings);
+  const geojson = JSON.stringify(collection);
+  if (o.out) {
+    const lower = o.out.toLowerCase();
+    if (!lower.endsWith('.geojson') && !lower.endsWith('.json')) {
+      throw new InputError(`--out ${o.out}: plan writes .geojson or .json plot files; other formats are not yet available from plan`);
+    }
+    await writeFile(resolve(io.cwd, o.out), geojson);
+  }
+  if (o.json) io.out(`${JSON.stringify(collection.design)}\n`);
+  else if (o.out) io.out(summaryTable(collection));
+  else io.out(`${geojson}\n`);
+  if (o.json && !o.out) io.err('note: with --json and no --out, no plot file was written\n');
+  for (const w of collection.design.warnings) if (!o.json && !o.out) io.err(`warning: ${w}\n`);
+  return 0;
+}
+
+function parse(argv: string[]) {
+  return parseArgs({
+    args: argv,
+    allowPositionals: true,
+    strict: true,
+    options: {
+      plots: { type: 'string' },
+      field: { type: 'string' },
+      exclude: { type: 'string', multiple: true },
+      allocation: { type: 'string' },
+      'share-basis': { type: 'string' },
+      'min-per-stratum': { type: 'string' },
+      sd: { type: 'string' },
+      cost: { type: 'string' },
+      'target-halfwidth': { type: 'string' },
+      'pilot-mean': { type: 'string' },
+      spacing: { type: 'string' },
+      footprint: { type: 'string' },
+      'edge-buffer': { type: 'string' },
+      reserve: { type: 'string' },
+      method: { type: 'string' },
+      'grid-spacing': { type: 'string' },
+      'grid-angle': { type: 'string' },
+      baseline: { type: 'string' },
+      'transect-interval': { type: 'string' },
+      'quadrat-interval': { type: 'string' },
+      redistribute: { type: 'boolean' },
+      seed: { type: 'string' },
+      out: { type: 'string' },
+      json: { type: 'boolean' },
+    },
+  });
+}
+
+/** `stratplot plan`: allocation, constrained placement and reserves, written as a plot file. */
+export const planCommand: Command = {
+  summary: 'allocate and place plots (random, balanced, grid or transect) with reserves',
+  usage: USAGE,
+  run,
+};

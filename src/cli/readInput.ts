@@ -1,0 +1,23 @@
+import { readFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
+import { InputError } from '../core/InputError';
+import type { CliIo } from './command';
+
+/**
+ * Reads a file named on the command line, relative to the CLI's working directory.
+ * Returns the path as given (for messages and extension dispatch) and the file's bytes.
+ * Throws InputError `file not found: <path>` when it is missing, or saying why it cannot be read.
+ */
+export async function readInputFile(io: CliIo, path: string): Promise<{ name: string; bytes: Uint8Array }> {
+  const full = resolve(io.cwd, path);
+  try {
+    const buffer = await readFile(full);
+    return { name: path, bytes: new Uint8Array(buffer.buffer, buffer.byteOffset, buffer.byteLength) };
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') throw new InputError(`file not found: ${path}`);
+    if (code === 'EISDIR') throw new InputError(`${path} is a folder, not a file`);
+    if (code === 'EACCES' || code === 'EPERM') throw new InputError(`cannot read ${path}: permission denied`);
+    throw new InputError(`cannot read ${path}: ${(error as Error).message}`);
+  }
+}

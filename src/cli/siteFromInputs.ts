@@ -1,0 +1,81 @@
+import { basename } from 'node:path';
+import { InputError } from '../core/InputError';
+import { siteValidate } from '../core/siteValidate';
+import type { AreaGeometry, Exclusion, Problem, Site, StratumInfo, StratumPart } from '../core/types';
+import { accessFromFeatures } from '../io/accessFromFeatures';
+import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
+import { parseFeatureFile } from '../io/parseFeatureFile';
+import { strataFromFeatures } from '../io/strataFromFeatures';
+import type { CliIo } from './command';
+import { readInputFile } from './readInput';
+
+/** Map files named on a command line. */
+export interface SiteInputs {
+  strata: string;
+  /** Property grouping strata features (default "stratum"). */
+  field?: string;
+  exclude?: string[];
+  access?: string[];
+  boundary?: string;
+}
+
+function failOn(file: string, problems: Problem[]): string[] {
+  const errors = problems.filter((p) => p.severity === 'error');
+  if (errors.length > 0) {
+    const more = errors.length > 1 ? ` (${errors.length - 1} more error${errors.length > 2 ? 's' : ''}; fix this one first)` : '';
+    throw new InputError(`${file}: ${errors[0].message}${more}`);
+  }
+  return problems.map((p) => `${file}: ${p.message}`);
+}
+
+/**
+ * Reads, checks and assembles a site from the files named on a command line: strata (grouped by
+ * `field`), exclusions, access points and a boundary polygon. Validation runs per file so that
+ * messages name the file and the feature index within it.
+ * @returns the site and its warnings, one line each, already prefixed with the file name
+ * Throws InputError (one line) for a missing or unreadable file or the first error-severity
+ * problem found by siteValidate.
+ */
+export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ site: Site; warnings: string[] }> {
+  const load = async (path: string) => {
+    const { name, bytes } = await readInputFile(io, path);
+    return { name, fc: await parseFeatureFile(name, bytes) };
+  };
+  const strataFile = await load(inputs.strata);
+  const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });
+  const empty: Site = { name: basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
+  const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
+
+  const exclusions: Exclusion[] = [];
+  for (const path of inputs.exclude ?? []) {
+    const file = await load(path);
+    const found = exclusionsFromFeatures(file.fc, { fileName: file.name });
+    warnings.push(...failOn(file.name, siteValidate({ ...empty, exclusions: found })));
+    const taken = new Set(exclusions.map((e) => e.id));
+    for (const e of found) exclusions.push(taken.has(e.id) ? { ...e, id: `${file.name}:${e.id}` } : e);
+  }
+  const access = [];
+  for (const path of inputs.access ?? []) {
+    const file = await load(path);
+    const found = accessFromFeatures(file.fc, { fileName: file.name });
+    warnings.push(...failOn(file.name, siteValidate({ ...empty, access: found })));
+    access.push(...found);
+  }
+  let boundary: AreaGeometry | null = null;
+  if (inputs.boundary) {
+    const file = await load(inputs.boundary);
+    const polys = file.fc.features.filter((f) => f.geometry?.type === 'Polygon' || f.geometry?.type === 'MultiPolygon');
+    if (polys.length !== 1 || file.fc.features.length !== 1) {
+      throw new InputError(`${file.name}: a boundary file must hold exactly one Polygon or MultiPolygon feature (it has ${file.fc.features.length} features, ${polys.length} polygonal)`);
+    }
+    boundary = polys[0].geometry as AreaGeometry;
+    warnings.push(...failOn(file.name, siteValidate({ ...empty, boundary })));
+  }
+  const site: Site = { ...empty, strata, parts, exclusions, access, boundary };
+  if (boundary) {
+    // Gaps need strata and boundary together; the strata file's own problems were reported above.
+    const gaps = siteValidate(site).filter((p) => p.code === 'boundary-gap');
+    warnings.push(...gaps.map((p) => `${inputs.boundary}: ${p.message}`));
+  }
+  return { site, warnings };
+}

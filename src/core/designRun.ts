@@ -1,0 +1,170 @@
+import { allocateEqual } from './allocateEqual';
+import { allocateNeyman, neymanWeights } from './allocateNeyman';
+import { allocateProportional } from './allocateProportional';
+import type { AllocationResult } from './allocateWithMinimum';
+import { designPlace } from './designPlace';
+import { designSettingsCheck } from './designSettingsCheck';
+import { designUsableAreas } from './designUsableAreas';
+import { designStatements } from './designStatements';
+import type { AllocationRow, DesignSettings, PlotCollection } from './designTypes';
+import { footprintAreaM2 } from './footprintParse';
+import { InputError } from './InputError';
+import { placementConstraintsBuild } from './placementConstraints';
+import { plotIdsFor } from './plotIds';
+import { plotRecord } from './plotRecord';
+import { rngCreate } from './rng';
+import { sampleSizeForTarget } from './sampleSizeForTarget';
+import { siteLocalFrame } from './siteLocalFrame';
+import type { Site } from './types';
+
+/** Version written into every design summary. */
+export const STRATPLOT_VERSION = '0.1.0';
+
+/** Hooks for a long design run (the web worker passes these). */
+export interface DesignRunOptions {
+  /** Called with a fraction in [0, 1] and a stage name. */
+  onProgress?: (fraction: number, stage: string) => void;
+  /** Polled during placement; when it returns true the run stops with an Error named 'DesignCancelled'. */
+  isCancelled?: () => boolean;
+}
+
+function cancelled(): Error {
+  const e = new Error('the design run was cancelled');
+  e.name = 'DesignCancelled';
+  return e;
+}
+
+function round(v: number, decimals: number): number {
+  const f = 10 ** decimals;
+  return Math.round(v * f) / f;
+}
+
+/**
+ * Makes a whole survey design: stratum areas on the WGS84 ellipsoid (mapped and usable), the
+ * allocation of plots (proportional, equal or Neyman, or the smallest size meeting a target 95 % CI
+ * half-width), placement in the site's UTM frame under every constraint (footprint wholly inside its
+ * stratum, edge buffer, clear of buffered exclusions, minimum spacing), ranked reserves, and the
+ * design summary with warnings and statements. Pure and deterministic: the same site, settings and
+ * seed give byte-identical output in Node and in browsers.
+ * Sources: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (allocation and sample size);
+ * Robertson et al. 2013 (balanced acceptance sampling); see each step's module.
+ * A relative target half-width is a fraction of `pilotMean` (0.1 = 10 %).
+ * Throws InputError for settings or a map that make the design impossible (naming what and where),
+ * and an Error named 'DesignCancelled' when `isCancelled` turns true.
+ */
+export function designRun(site: Site, settings: DesignSettings, options: DesignRunOptions = {}): PlotCollection {
+  designSettingsCheck(settings);
+  const progress = options.onProgress ?? (() => {});
+  const tick = () => {
+    if (options.isCancelled?.()) throw cancelled();
+  };
+  if (site.strata.length === 0) throw new InputError('the site has no strata');
+  progress(0, 'areas');
+  const frame = siteLocalFrame(site.parts);
+  const keys = site.strata.map((s) => s.key);
+  const { mapped, usable } = designUsableAreas(site, frame, tick);
+  const basis = settings.shareBasis === 'usable' ? usable : mapped;
+  const totalBasis = basis.reduce((a, b) => a + b, 0);
+  if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
+  progress(0.2, 'allocation');
+  const strataBasis = keys.map((key, i) => ({ key, basisM2: basis[i] }));
+  const warnings: string[] = [];
+  const extraStatements: string[] = [];
+  let allocation: AllocationResult | null = null;
+  let weights = basis.slice();
+  if (settings.method === 'random' || settings.method === 'balanced') {
+    if (settings.allocation === 'neyman') weights = neymanWeights(strataBasis, settings.sd, settings.cost);
+    if (settings.allocation === 'equal') weights = keys.map(() => 1);
+    if (settings.targetHalfwidth) {
+      const d = settings.targetHalfwidth.relative ? settings.targetHalfwidth.value * settings.pilotMean! : settings.targetHalfwidth.value;
+      const plotArea = footprintAreaM2(settings.footprint);
+      const size = sampleSizeForTarget({
+        strata: strataBasis,
+        sd: settings.sd,
+        cost: settings.cost,
+        allocation: settings.allocation,
+        halfwidth: d,
+        minPerStratum: settings.minPerStratum,
+        plotAreaM2: plotArea > 0 ? plotArea : null,
+      });
+      allocation = { plots: size.plots, quotas: size.plots, raisedToMinimum: [] };
+      extraStatements.push(
+        `Sample size: ${size.n} plots is the smallest design whose ${settings.allocation} allocation gives a 95 % CI half-width of at most ${round(d, 6)} (expected ${round(size.halfwidth, 6)} from the pilot SDs; the continuous formula gave ${round(size.formulaN, 2)}). ` +
+          (size.fpcApplied ? 'The finite-population correction uses N_h = stratum area / plot area.' : 'The footprint is a point, so no finite-population correction is applied.'),
+      );
+    } else if (settings.allocation === 'neyman') {
+      allocation = allocateNeyman(strataBasis, settings.sd, settings.cost, settings.plots, settings.minPerStratum);
+    } else if (settings.allocation === 'equal') {
+      allocation = allocateEqual(keys, settings.plots, settings.minPerStratum);
+    } else {
+      allocation = allocateProportional(strataBasis, settings.plots, settings.minPerStratum);
+    }
+    if (allocation.raisedToMinimum.length) {
+      extraStatements.push(
+        `Raised to the minimum of ${settings.minPerStratum} plots: ${allocation.raisedToMinimum.map((i) => `"${keys[i]}"`).join(', ')}; the other strata share the rest.`,
+      );
+    }
+  }
+  tick();
+  progress(0.3, 'placing');
+  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  const rng = rngCreate(settings.seed);
+  let ticks = 0;
+  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, rng, {
+    tick: () => {
+      tick();
+      if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
+    },
+  });
+  warnings.push(...placement.warnings);
+  progress(0.9, 'writing');
+  const ids = plotIdsFor(site.strata, placement.primaries, placement.reserves);
+  const counters = keys.map(() => ({ primary: 0, reserve: 0 }));
+  const density = keys.map((_, i) => (basis[i] > 0 ? placement.primaries[i] / (basis[i] / 10000) : 0));
+  const drafts = placement.placed.x.map((x, k) => {
+    const s = placement.placed.stratum[k];
+    const isReserve = placement.placed.reserve[k];
+    const rank = isReserve ? ++counters[s].reserve : ++counters[s].primary;
+    return {
+      order: s * 2 + (isReserve ? 1 : 0),
+      draft: {
+        plotId: isReserve ? ids[s].reserve[rank - 1] : ids[s].primary[rank - 1],
+        stratum: keys[s],
+        role: isReserve ? ('reserve' as const) : ('primary' as const),
+        rank,
+        x,
+        y: placement.placed.y[k],
+        densityPerHa: density[s],
+        transect: placement.placed.transect[k],
+        chainageM: placement.placed.chainageM[k],
+      },
+    };
+  });
+  // Stratum by stratum, primaries then reserves, each in rank order (a stable sort keeps the rank order).
+  drafts.sort((a, b) => a.order - b.order);
+  const features = drafts.map((d) => plotRecord(constraints, d.draft));
+  const rows: AllocationRow[] = keys.map((key, i) => ({
+    stratum: key,
+    mapped_m2: round(mapped[i], 2),
+    usable_m2: round(usable[i], 2),
+    share: round(basis[i] / totalBasis, 6),
+    plots: placement.primaries[i],
+    reserve: placement.reserves[i],
+    capacity: placement.capacity[i],
+  }));
+  const statements = [...designStatements(settings, constraints.convergenceDeg), ...placement.statements, ...extraStatements];
+  progress(1, 'done');
+  return {
+    type: 'FeatureCollection',
+    features,
+    design: {
+      settings: { ...settings },
+      seed: settings.seed,
+      crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
+      allocation: rows,
+      warnings,
+      statements,
+      software: { name: 'stratplot', version: STRATPLOT_VERSION },
+    },
+  };
+}

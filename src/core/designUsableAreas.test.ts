@@ -1,0 +1,22 @@
+import { describe, expect, it } from 'vitest';
+import { designUsableAreas } from './designUsableAreas';
+import { siteInventedRandom } from './fixtures/siteInventedRandom';
+import { polygonAreaM2 } from './polygonAreaM2';
+import { siteLocalFrame } from './siteLocalFrame';
+import { stratumUsableRegion } from './stratumUsableRegion';
+
+describe('designUsableAreas', () => {
+  it('agrees with stratumUsableRegion of each whole stratum, and mapped with polygonAreaM2 of its parts', () => {
+    for (const seed of [1, 2, 3]) {
+      const site = siteInventedRandom(seed, 4, 8);
+      const frame = siteLocalFrame(site.parts);
+      const { mapped, usable } = designUsableAreas(site, frame);
+      site.strata.forEach((s, i) => {
+        const parts = site.parts.filter((p) => p.stratum === s.key);
+        expect(mapped[i]).toBeCloseTo(parts.reduce((a, p) => a + polygonAreaM2(p.geometry), 0), 3);
+        expect(usable[i]).toBeCloseTo(stratumUsableRegion(site, s.key, frame).areaM2, 0);
+        expect(usable[i]).toBeLessThanOrEqual(mapped[i] + 1e-6);
+      });
+    }
+  });
+});

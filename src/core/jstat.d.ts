@@ -1,0 +1,10 @@
+declare module 'jstat' {
+  interface StudentT {
+    inv(p: number, dof: number): number;
+    cdf(x: number, dof: number): number;
+  }
+  interface Normal {
+    inv(p: number, mean: number, sd: number): number;
+  }
+  export const jStat: { studentt: StudentT; normal: Normal };
+}

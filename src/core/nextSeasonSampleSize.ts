@@ -1,0 +1,94 @@
+import type { AllocationMethod } from './designTypes';
+import { InputError } from './InputError';
+import { sampleSizeForTarget } from './sampleSizeForTarget';
+
+/** What this season observed in one stratum. */
+export interface ObservedStratum {
+  stratum: string;
+  /** Basis area (usable or mapped, as in the design), m². */
+  basisM2: number;
+  /** Observed SD; null when the stratum had fewer than 2 plots. */
+  sd: number | null;
+}
+
+/** The plots needed under one allocation. */
+export interface NextSeasonOption {
+  allocation: AllocationMethod;
+  n: number;
+  plots: { stratum: string; plots: number }[];
+  /** The 95 % half-width this allocation really reaches, in the variable's units. */
+  halfwidth: number;
+  /** Continuous n from the closed formula, before rounding and the minimum rule. */
+  formulaN: number;
+}
+
+export interface NextSeasonSampleSize {
+  /** The absolute half-width aimed at (a relative target converted with the observed mean). */
+  targetHalfwidth: number;
+  proportional: NextSeasonOption;
+  neyman: NextSeasonOption;
+  fpcApplied: boolean;
+  notes: string[];
+}
+
+export interface NextSeasonOptions {
+  /** Target half-width of the 95 % CI: absolute, or relative to `observedMean` (0.1 = ±10 %). */
+  target: { value: number; relative: boolean };
+  /** This season's stratified mean; needed for a relative target. */
+  observedMean: number | null;
+  /** Plot footprint area, m², for the fpc; null/0 for point plots (no fpc). */
+  plotAreaM2: number | null;
+  minPerStratum?: number;
+  /** SDs to use instead of the observed ones (e.g. for strata with fewer than 2 plots), by stratum. */
+  sdOverride?: Readonly<Record<string, number>>;
+}
+
+/**
+ * Plots needed next season for a target 95 % CI half-width of the stratified mean, from this
+ * season's observed SDs, under proportional and under Neyman allocation. Delegates to the design
+ * engine's {@link sampleSizeForTarget} (Cochran, Sampling Techniques, 3rd ed. 1977, §5.9–5.10 (section numbers from memory):
+ * n0 = Σ W_h S_h²/V and (Σ W_h S_h)²/(V + Σ W_h S_h²/N), V = (d/z)², then the smallest whole
+ * allocation that really meets d), so a plan made from these figures reproduces them. It uses z,
+ * not t: with few plots per stratum the realised t-based CI will be somewhat wider.
+ * @throws InputError for a target that is not > 0, a relative target without a usable mean, or a
+ *   stratum with no observed SD and no override
+ */
+export function nextSeasonSampleSize(strata: readonly ObservedStratum[], options: NextSeasonOptions): NextSeasonSampleSize {
+  const { target } = options;
+  if (!(target.value > 0 && Number.isFinite(target.value))) throw new InputError(`target half-width must be > 0, got ${target.value}`);
+  let d = target.value;
+  if (target.relative) {
+    const m = options.observedMean;
+    if (m === null || !(Math.abs(m) > 0)) throw new InputError('a relative target needs an observed mean other than 0');
+    d = target.value * Math.abs(m);
+  }
+  const sd: Record<string, number> = {};
+  for (const s of strata) {
+    const v = options.sdOverride?.[s.stratum] ?? s.sd;
+    if (v === null || !(v >= 0)) {
+      throw new InputError(`stratum "${s.stratum}" has no observed SD (fewer than 2 plots): give an SD for it to size next season`);
+    }
+    sd[s.stratum] = v;
+  }
+  const alloc = strata.map((s) => ({ key: s.stratum, basisM2: s.basisM2 }));
+  const minPerStratum = options.minPerStratum ?? 2;
+  const one = (allocation: AllocationMethod): NextSeasonOption => {
+    const r = sampleSizeForTarget({ strata: alloc, sd, allocation, halfwidth: d, minPerStratum, plotAreaM2: options.plotAreaM2 });
+    return {
+      allocation,
+      n: r.n,
+      plots: strata.map((s, i) => ({ stratum: s.stratum, plots: r.plots[i] })),
+      halfwidth: r.halfwidth,
+      formulaN: r.formulaN,
+    };
+  };
+  const proportional = one('proportional');
+  const neyman = one('neyman');
+  const fpcApplied = options.plotAreaM2 !== null && options.plotAreaM2 > 0;
+  const notes = [
+    `target 95 % half-width ${Number(d.toPrecision(6))}${target.relative ? ` (${Number((target.value * 100).toPrecision(6))} % of the observed mean ${Number((options.observedMean as number).toPrecision(6))})` : ''}`,
+    'SDs are this season’s sample SDs; a sample SD is itself uncertain, so plan a margin above these figures',
+    fpcApplied ? 'finite-population correction from the plot area applied' : 'point plots: no finite-population correction',
+  ];
+  return { targetHalfwidth: d, proportional, neyman, fpcApplied, notes };
+}

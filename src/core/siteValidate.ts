@@ -1,0 +1,107 @@
+import type { Position } from 'geojson';
+import { coordinateProblems, type PositionedFeature } from './coordinateProblems';
+import { holeProblems } from './holeProblems';
+import { polygonSelfIntersections } from './polygonSelfIntersections';
+import { problemMake } from './problemMake';
+import { ringProblems } from './ringProblems';
+import { strataGaps } from './strataGaps';
+import { strataOverlaps } from './strataOverlaps';
+import type { AreaGeometry, ExclusionGeometry, Problem, ProblemLocation, Site } from './types';
+
+function allPositions(g: AreaGeometry | ExclusionGeometry): Position[] {
+  switch (g.type) {
+    case 'Point':
+      return [g.coordinates];
+    case 'MultiPoint':
+    case 'LineString':
+      return g.coordinates;
+    case 'MultiLineString':
+    case 'Polygon':
+      return g.coordinates.flat();
+    case 'MultiPolygon':
+      return g.coordinates.flat(2);
+  }
+}
+
+/** A ring without duplicate consecutive vertices (a zero-length edge would meet its neighbours' neighbours). */
+function ringWithoutRepeats(ring: readonly Position[]): Position[] {
+  return ring.filter((p, i) => i === 0 || p[0] !== ring[i - 1][0] || p[1] !== ring[i - 1][1]);
+}
+
+/** Ring, hole and self-intersection problems of a polygonal geometry; true in `ok` when it has none that are errors. */
+function polygonProblems(g: AreaGeometry, where: ProblemLocation): { problems: Problem[]; ok: boolean } {
+  const polys = g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
+  const problems: Problem[] = [];
+  if (polys.length === 0 || polys.every((p) => p.length === 0)) {
+    return { problems: [problemMake('error', 'polygon-empty', where, 'polygon has no rings')], ok: false };
+  }
+  for (const rings of polys) {
+    const ringIssues = rings.flatMap((ring, r) => ringProblems(ring, { ...where, ring: r }));
+    problems.push(...ringIssues);
+    if (ringIssues.some((p) => p.severity === 'error')) continue;
+    const deduped = rings.map(ringWithoutRepeats);
+    problems.push(...holeProblems(deduped, where));
+    problems.push(...polygonSelfIntersections(deduped, where));
+  }
+  return { problems, ok: !problems.some((p) => p.severity === 'error') };
+}
+
+/**
+ * Everything wrong with a site's geometry, errors first in input order, then warnings:
+ * coordinates out of range, swapped or in projected metres; rings unclosed, with duplicate
+ * consecutive vertices, spikes or fewer than 3 distinct points; holes outside their shell;
+ * self-intersections; overlapping strata features (with overlap area, m²); and gaps inside the
+ * site boundary that no stratum covers (warnings; only when the site has a boundary).
+ * Each problem names the feature (layer, index in its layer, id) and a [lon, lat] to zoom to.
+ * Geometry checks are skipped for features whose coordinates are unusable, and overlap/gap
+ * checks use only features without errors. Never throws for bad geometry: it reports it.
+ */
+export function siteValidate(site: Site): Problem[] {
+  const problems: Problem[] = [];
+  const layerFeatures = <T>(items: readonly T[], layer: ProblemLocation['layer'], geom: (t: T) => AreaGeometry | ExclusionGeometry, id: (t: T) => string) =>
+    items.map<PositionedFeature>((t, i) => ({ where: { featureIndex: i, featureId: id(t) || undefined, layer }, positions: allPositions(geom(t)) }));
+
+  const strata = layerFeatures(site.parts, 'strata', (p) => p.geometry, (p) => p.id);
+  const coordIssues = coordinateProblems(strata);
+  problems.push(...coordIssues);
+  const badCoords = new Set(coordIssues.map((p) => p.where.featureIndex));
+  const clean: number[] = [];
+  site.parts.forEach((part, i) => {
+    if (badCoords.has(i)) return;
+    const { problems: found, ok } = polygonProblems(part.geometry, strata[i].where);
+    problems.push(...found);
+    if (ok) clean.push(i);
+  });
+
+  const exclusions = layerFeatures(site.exclusions, 'exclusions', (e) => e.geometry, (e) => e.id);
+  const exclusionCoordIssues = coordinateProblems(exclusions);
+  problems.push(...exclusionCoordIssues);
+  const badExclusions = new Set(exclusionCoordIssues.map((p) => p.where.featureIndex));
+  site.exclusions.forEach((e, i) => {
+    if (badExclusions.has(i) || (e.geometry.type !== 'Polygon' && e.geometry.type !== 'MultiPolygon')) return;
+    problems.push(...polygonProblems(e.geometry, exclusions[i].where).problems);
+  });
+
+  problems.push(
+    ...coordinateProblems(site.access.map((a, i) => ({ where: { featureIndex: i, featureId: a.id, layer: 'access' }, positions: [[a.lon, a.lat]] }))),
+  );
+
+  let boundaryOk = false;
+  if (site.boundary) {
+    const where: ProblemLocation = { featureIndex: 0, layer: 'boundary' };
+    const issues = coordinateProblems([{ where, positions: allPositions(site.boundary) }]);
+    problems.push(...issues);
+    if (issues.length === 0) {
+      const { problems: found, ok } = polygonProblems(site.boundary, where);
+      problems.push(...found);
+      boundaryOk = ok;
+    }
+  }
+
+  if (clean.length > 0) {
+    const parts = clean.map((i) => site.parts[i]);
+    problems.push(...strataOverlaps(parts, clean));
+    if (site.boundary && boundaryOk) problems.push(...strataGaps(site.boundary, parts));
+  }
+  return [...problems.filter((p) => p.severity === 'error'), ...problems.filter((p) => p.severity === 'warning')];
+}

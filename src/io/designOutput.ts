@@ -1,0 +1,116 @@
+import type { Feature, FeatureCollection } from 'geojson';
+import { zipSync } from 'fflate';
+import type { SqlJsStatic } from 'sql.js';
+import type { PlotCollection, PlotProperties } from '../core/designTypes';
+import { InputError } from '../core/InputError';
+import type { Site } from '../core/types';
+import { designReportPdf } from './designReportPdf';
+import { featuresToGeoJson } from './featuresToGeoJson';
+import { featuresToGeoPackage } from './featuresToGeoPackage';
+import { featuresToGpx, type GpxLabels } from './featuresToGpx';
+import { featuresToKml, featuresToKmz } from './featuresToKml';
+import { featuresToShapefileFiles } from './featuresToShapefileZip';
+import { fieldSheetsPdf } from './fieldSheetsPdf';
+import { plotsToCsv } from './plotsToCsv';
+import { siteLayers } from './siteLayers';
+
+/** File extensions {@link designOutputBytes} writes, with what each holds. */
+export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
+  geojson: 'GeoJSON plot file (with the design summary)',
+  json: 'GeoJSON plot file (with the design summary)',
+  gpx: 'GPX 1.1: plots and access points as waypoints, strata and exclusions as tracks',
+  kml: 'KML 2.2 with folders for plots, strata, exclusions and access',
+  kmz: 'KMZ (KML plus plot icons)',
+  csv: 'CSV plot table for spreadsheets',
+  zip: 'zipped shapefiles, one per layer and shape type',
+  gpkg: 'GeoPackage with one table per layer',
+  pdf: 'PDF design report (or field sheets)',
+};
+
+export interface DesignOutputOptions {
+  /** CSV: start with a UTF-8 byte-order mark. */
+  bom?: boolean;
+  /** PDF: which document (default the design report) and paper (default A4). */
+  pdf?: 'report' | 'sheets';
+  paper?: 'a4' | 'letter';
+  /** PDF: survey date for the field sheets and their magnetic declination. */
+  surveyDate?: Date;
+  /** GeoPackage: sql.js loader for the browser. */
+  sqlJsInit?: () => Promise<SqlJsStatic>;
+  /** Document name in GPX/KML (default the site name, else "stratplot design"). */
+  name?: string;
+}
+
+function gpxLabels(f: Feature, index: number): GpxLabels {
+  const p = (f.properties ?? {}) as Record<string, unknown>;
+  if (typeof p.plot_id === 'string' && (p.role === 'primary' || p.role === 'reserve')) {
+    const plot = p as unknown as PlotProperties;
+    const role = `${plot.role} ${plot.rank}`;
+    return { name: plot.plot_id, desc: plot.stratum, type: plot.role, cmt: plot.notes ? `${role}: ${plot.notes}` : role };
+  }
+  const text = (v: unknown) => (v === null || v === undefined || v === '' ? undefined : String(v));
+  if (typeof p.access_id === 'string') return { name: String(p.name), desc: `access: ${p.kind}`, type: 'access', cmt: text(p.notes) };
+  if (typeof p.exclusion_id === 'string') {
+    return { name: text(p.name) ?? `${p.kind} ${p.exclusion_id}`, desc: `keep out: ${p.kind}, buffer ${p.buffer_m} m`, type: `exclusion-${p.kind}`, cmt: text(p.notes) };
+  }
+  if (typeof p.part_id === 'string') return { name: String(p.label ?? p.stratum), desc: `stratum ${p.stratum}`, type: 'stratum' };
+  return { name: `feature ${index + 1}` };
+}
+
+function extensionOf(fileName: string): string {
+  const dot = fileName.lastIndexOf('.');
+  return dot >= 0 ? fileName.slice(dot + 1).toLowerCase() : '';
+}
+
+/**
+ * The bytes of a design export, the format chosen by `fileName`'s extension (see
+ * {@link DESIGN_OUTPUT_FORMATS}). Plots always; with a site, also strata, exclusions (with their
+ * buffers and notes) and access points in the formats that hold several layers (GPX, KML, KMZ,
+ * shapefile zip, GeoPackage, PDF). GeoJSON and CSV hold the plot list only.
+ * Throws InputError for an unsupported extension (listing the supported ones) and whatever the
+ * chosen writer throws (e.g. a PDF of an empty plot list).
+ */
+export async function designOutputBytes(
+  fileName: string,
+  collection: PlotCollection,
+  site?: Site,
+  options: DesignOutputOptions = {},
+): Promise<Uint8Array> {
+  const enc = new TextEncoder();
+  const layers = siteLayers(collection, site);
+  const name = options.name ?? site?.name ?? 'stratplot design';
+  const ext = extensionOf(fileName);
+  switch (ext) {
+    case 'geojson':
+    case 'json':
+      return enc.encode(featuresToGeoJson(collection));
+    case 'csv':
+      return enc.encode(plotsToCsv(collection, { bom: options.bom }));
+    case 'gpx': {
+      const all: FeatureCollection = { type: 'FeatureCollection', features: layers.flatMap((l) => l.features.features) };
+      const version = collection.design?.software?.version;
+      return enc.encode(featuresToGpx(all, { name, creator: `stratplot${version ? ` ${version}` : ''}`, labels: gpxLabels }));
+    }
+    case 'kml':
+      return enc.encode(featuresToKml(layers, { name }));
+    case 'kmz':
+      return featuresToKmz(layers, { name });
+    case 'zip': {
+      const files: Record<string, Uint8Array> = {};
+      for (const l of layers) Object.assign(files, featuresToShapefileFiles(l.features, { layerName: l.name }));
+      return zipSync(files, { level: 6, mtime: new Date('2000-01-01T00:00:00Z') });
+    }
+    case 'gpkg':
+      return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit });
+    case 'pdf':
+      return options.pdf === 'sheets'
+        ? fieldSheetsPdf(collection, site ?? null, { paper: options.paper ?? 'a4', surveyDate: options.surveyDate, siteName: site?.name })
+        : designReportPdf(collection, site ?? null, { paper: options.paper ?? 'a4' });
+    default:
+      throw new InputError(
+        `${fileName}: cannot tell the export format from the extension${ext ? ` ".${ext}"` : ''}; use one of ${Object.keys(DESIGN_OUTPUT_FORMATS)
+          .map((e) => `.${e}`)
+          .join(', ')}`,
+      );
+  }
+}

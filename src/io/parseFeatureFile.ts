@@ -1,0 +1,67 @@
+import type { FeatureCollection } from 'geojson';
+import { InputError } from '../core/InputError';
+import type { ImportOptions } from './importOptions';
+import { parseGeoJson } from './parseGeoJson';
+import { parseGeoPackage } from './parseGeoPackage';
+import { parseGpx } from './parseGpx';
+import { parseKml } from './parseKml';
+import { parsePointCsv } from './parsePointCsv';
+import { parseShapefileZip } from './parseShapefileZip';
+
+/** Options a reader may use: a layer of a multi-layer file, a CRS for files without one, a text encoding. */
+export interface FeatureFileOptions {
+  layer?: string;
+  /** EPSG code of the coordinates when the file does not say (default: WGS84 lon/lat). */
+  epsg?: number;
+  /** Text encoding of the file (default utf-8). */
+  encoding?: string;
+  /** Point CSV: the coordinate columns, when not auto-detected. */
+  csvColumns?: ImportOptions['csvColumns'];
+  /** GeoPackage: sql.js loader (the browser passes one that knows where the wasm is served). */
+  sqlJsInit?: ImportOptions['sqlJsInit'];
+}
+
+type Reader = (fileName: string, bytes: Uint8Array, options: FeatureFileOptions) => Promise<FeatureCollection>;
+
+function decodeText(fileName: string, bytes: Uint8Array, encoding: string | undefined): string {
+  try {
+    return new TextDecoder(encoding ?? 'utf-8').decode(bytes);
+  } catch {
+    throw new InputError(`${fileName}: unknown text encoding "${encoding}"`);
+  }
+}
+
+const readGeoJson: Reader = async (fileName, bytes, options) =>
+  parseGeoJson(fileName, decodeText(fileName, bytes, options.encoding), options.epsg);
+
+/** Readers by lower-case file extension (without the dot). */
+const READERS: Record<string, Reader> = {
+  geojson: readGeoJson,
+  json: readGeoJson,
+  zip: parseShapefileZip,
+  kml: parseKml,
+  kmz: parseKml,
+  gpx: (fileName, bytes) => parseGpx(fileName, bytes),
+  gpkg: parseGeoPackage,
+  csv: parsePointCsv,
+};
+
+/**
+ * Reads a map file into a WGS84 GeoJSON FeatureCollection, choosing the reader by the file's
+ * extension. Throws InputError for an unsupported extension (listing the supported ones) and for
+ * anything the chosen reader finds wrong.
+ */
+export async function parseFeatureFile(
+  fileName: string,
+  bytes: Uint8Array,
+  options: FeatureFileOptions = {},
+): Promise<FeatureCollection> {
+  const dot = fileName.lastIndexOf('.');
+  const ext = dot >= 0 ? fileName.slice(dot + 1).toLowerCase() : '';
+  const reader = READERS[ext];
+  if (!reader) {
+    const supported = Object.keys(READERS).map((e) => `.${e}`).join(', ');
+    throw new InputError(`${fileName}: unsupported file type${ext ? ` ".${ext}"` : ''}; supported: ${supported}`);
+  }
+  return reader(fileName, bytes, options);
+}

@@ -1,0 +1,109 @@
+import type { FeatureCollection } from 'geojson';
+import { InputError } from '../core/InputError';
+import type { Site, StratumInfo } from '../core/types';
+import { accessFromFeatures } from '../io/accessFromFeatures';
+import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
+import { parseFeatureFile } from '../io/parseFeatureFile';
+import { strataFromFeatures } from '../io/strataFromFeatures';
+import type { PlannerStore } from './plannerStore';
+import { siteCommit, siteNextId } from './siteCommit';
+
+/** What a file turned out to hold, before it is added to the site. */
+export interface ImportPreview {
+  fileName: string;
+  features: FeatureCollection;
+  /** Attribute names found on polygon features, for choosing the one that defines strata. */
+  polygonFields: string[];
+  polygons: number;
+  lines: number;
+  points: number;
+}
+
+/** Reads a map file (any format parseFeatureFile knows) and counts what it holds. Throws InputError. */
+export async function importRead(fileName: string, bytes: Uint8Array): Promise<ImportPreview> {
+  const features = await parseFeatureFile(fileName, bytes);
+  let polygons = 0;
+  let lines = 0;
+  let points = 0;
+  const fields = new Set<string>();
+  for (const f of features.features) {
+    const t = f.geometry?.type ?? '';
+    if (t.endsWith('Polygon')) {
+      polygons++;
+      for (const k of Object.keys(f.properties ?? {})) fields.add(k);
+    } else if (t.endsWith('LineString')) lines++;
+    else if (t.endsWith('Point')) points++;
+  }
+  return { fileName, features, polygonFields: [...fields], polygons, lines, points };
+}
+
+/** The attribute to offer first: "stratum" if present, else a name that sounds like one, else the first. */
+export function importFieldGuess(fields: readonly string[]): string | null {
+  const lower = fields.map((f) => f.toLowerCase());
+  for (const want of ['stratum', 'strata', 'habitat', 'veg_type', 'vegetation', 'class', 'type', 'name']) {
+    const i = lower.indexOf(want);
+    if (i >= 0) return fields[i];
+  }
+  return fields[0] ?? null;
+}
+
+function strataMergeInto(site: Site, incoming: { strata: StratumInfo[]; parts: Site['parts'] }): Site {
+  const known = new Set(site.strata.map((s) => s.key));
+  const codes = new Set(site.strata.map((s) => s.code));
+  const strata = [...site.strata];
+  for (const s of incoming.strata) {
+    if (known.has(s.key)) continue;
+    if (codes.has(s.code)) throw new InputError(`stratum "${s.key}" has the code ${s.code}, already used by another stratum: change one code first`);
+    strata.push(s);
+    codes.add(s.code);
+  }
+  const ids = site.parts.map((p) => p.id);
+  const parts = [...site.parts];
+  for (const p of incoming.parts) {
+    const id = p.id && !ids.includes(p.id) ? p.id : siteNextId(ids, 'part-');
+    ids.push(id);
+    parts.push({ ...p, id });
+  }
+  return { ...site, strata, parts };
+}
+
+/**
+ * Adds a file's polygons to the site as strata grouped by `field` (existing strata of the same
+ * name gain the new features). One undo step. Throws InputError (from strataFromFeatures) for
+ * a missing field, non-polygon features and the like, naming the file and feature.
+ */
+export function importStrata(store: PlannerStore, preview: ImportPreview, field: string): number {
+  const incoming = strataFromFeatures(preview.features, { field, fileName: preview.fileName });
+  siteCommit(store, (site) => strataMergeInto(site, incoming), { strataField: field, notice: { tone: 'info', text: `${preview.fileName}: ${incoming.parts.length} features in ${incoming.strata.length} strata added` } });
+  return incoming.parts.length;
+}
+
+/** Adds a file's features to the site as exclusions (kind, buffer_m, name, notes properties). */
+export function importExclusions(store: PlannerStore, preview: ImportPreview): number {
+  const incoming = exclusionsFromFeatures(preview.features, { fileName: preview.fileName });
+  siteCommit(store, (site) => {
+    const ids = site.exclusions.map((e) => e.id);
+    const added = incoming.map((e) => {
+      const id = e.id && !ids.includes(e.id) ? e.id : siteNextId(ids, 'excl-');
+      ids.push(id);
+      return { ...e, id };
+    });
+    return { ...site, exclusions: [...site.exclusions, ...added] };
+  }, { notice: { tone: 'info', text: `${preview.fileName}: ${incoming.length} exclusions added` } });
+  return incoming.length;
+}
+
+/** Adds a file's points to the site as access points. */
+export function importAccess(store: PlannerStore, preview: ImportPreview): number {
+  const incoming = accessFromFeatures(preview.features, { fileName: preview.fileName });
+  siteCommit(store, (site) => {
+    const ids = site.access.map((a) => a.id);
+    const added = incoming.map((a) => {
+      const id = a.id && !ids.includes(a.id) ? a.id : siteNextId(ids, 'access-');
+      ids.push(id);
+      return { ...a, id };
+    });
+    return { ...site, access: [...site.access, ...added] };
+  }, { notice: { tone: 'info', text: `${preview.fileName}: ${incoming.length} access points added` } });
+  return incoming.length;
+}

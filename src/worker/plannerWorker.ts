@@ -1,0 +1,61 @@
+import * as Comlink from 'comlink';
+import type { DesignSettings, PlotCollection } from '../core/designTypes';
+import { designRun } from '../core/designRun';
+import { isInputError } from '../core/InputError';
+import { siteValidate } from '../core/siteValidate';
+import type { Site } from '../core/types';
+import { type GeotiffImageOptions, geotiffImageWarp } from '../io/geotiffImage';
+import type { RgbaRaster } from '../io/rasterWarpToMercator';
+import { type WorldFileCrs, worldFileImageWarp } from '../io/worldFileImage';
+import { siteAnalyse } from './siteAnalyse';
+
+/** A design's outcome as it crosses to the page: the plots, or a message for the user. */
+export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: false; message: string };
+
+/** Calls the page makes into the worker; results are structured-cloned back. */
+const api = {
+  analyse(site: Site) {
+    return siteAnalyse(site, siteValidate);
+  },
+  /**
+   * Runs designRun here, off the page's thread, reporting progress through `onProgress`. The page
+   * cancels by terminating this worker, so the run needs no polling of its own.
+   */
+  design(site: Site, settings: DesignSettings, onProgress: (fraction: number, stage: string) => void): DesignOutcome {
+    let last = 0;
+    try {
+      const collection = designRun(site, settings, {
+        onProgress: (fraction, stage) => {
+          const now = Date.now();
+          // Progress messages are throttled: a burst of them would slow the page more than the run.
+          if (now - last > 80 || fraction >= 1) {
+            last = now;
+            onProgress(fraction, stage);
+          }
+        },
+      });
+      return { ok: true, collection };
+    } catch (e) {
+      if (isInputError(e)) return { ok: false, message: (e as Error).message };
+      throw e;
+    }
+  },
+  /** Reads a GeoTIFF and warps it onto Web Mercator for the map (geotiffImageWarp). */
+  async imageryFromGeotiff(bytes: Uint8Array, options: GeotiffImageOptions) {
+    return transferred(await geotiffImageWarp(bytes, options));
+  },
+  /** Warps decoded PNG/JPEG pixels placed by a world file and a CRS (worldFileImageWarp). */
+  imageryFromWorldFile(pixels: RgbaRaster, worldFileText: string, crs: WorldFileCrs, fileName: string) {
+    return transferred(worldFileImageWarp(pixels, worldFileText, crs, { worldFileName: fileName }));
+  },
+};
+
+/** Moves the warped pixels to the page instead of copying them. */
+function transferred<T extends { rgba: Uint8ClampedArray }>(image: T): T {
+  return Comlink.transfer(image, [image.rgba.buffer as ArrayBuffer]);
+}
+
+/** The worker's interface as the page sees it through comlink. */
+export type PlannerWorkerApi = typeof api;
+
+Comlink.expose(api);

@@ -1,0 +1,200 @@
+import { booleanPointInPolygon } from '@turf/turf';
+import { check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
+
+const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
+
+/** A small GeoJSON file of two invented strata keyed by "habitat", next to the demo site. */
+function importFile(nameA = 'Imported heath (invented)', nameB = 'Imported scrub (invented)') {
+  const ringA = [[119.1235, -34.4400], [119.1255, -34.4400], [119.1255, -34.4385], [119.1235, -34.4385], [119.1235, -34.4400]];
+  const ringB = [[119.1255, -34.4400], [119.1275, -34.4400], [119.1275, -34.4385], [119.1255, -34.4385], [119.1255, -34.4400]];
+  return {
+    rings: [ringA, ringB],
+    file: {
+      name: 'invented-extra-strata.geojson',
+      mimeType: 'application/geo+json',
+      buffer: Buffer.from(
+        JSON.stringify({
+          type: 'FeatureCollection',
+          features: [
+            { type: 'Feature', properties: { habitat: nameA, surveyor: 'invented' }, geometry: { type: 'Polygon', coordinates: [ringA] } },
+            { type: 'Feature', properties: { habitat: nameB, surveyor: 'invented' }, geometry: { type: 'Polygon', coordinates: [ringB] } },
+          ],
+        }),
+      ),
+    },
+  };
+}
+
+async function drawSquare(page) {
+  const b = await page.evaluate(() => window.__stratplotMap.getBounds().toArray());
+  const [w, s] = b[0];
+  const [e, n] = b[1];
+  const x0 = w + (e - w) * 0.08;
+  const x1 = w + (e - w) * 0.16;
+  const y0 = s + (n - s) * 0.82;
+  const y1 = s + (n - s) * 0.9;
+  await page.getByRole('button', { name: /^Draw stratum/ }).click();
+  for (const [x, y] of [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]) {
+    await clickLngLat(page, x, y);
+    await sleep(160);
+  }
+}
+
+export const SCENARIOS = [
+  {
+    no: 1,
+    name: 'the demo site opens offline with strata, exclusions, buffers, access points and the areas table',
+    async run({ page, origin, shot }) {
+      await openPlanner(page, origin);
+      const rows = await page.locator('table.ledger tbody tr[data-stratum]').count();
+      check(rows === 6, `expected 6 demo strata in the table, saw ${rows}`);
+      const heath = await mappedHaOf(page, 'Coastal heath');
+      check(heath && Number(heath.replace(/,/g, '')) > 1, `Coastal heath area missing (${heath})`);
+      const strata = await sourceData(page, 'sp-strata');
+      const buffers = await sourceData(page, 'sp-buffers');
+      const excl = await sourceData(page, 'sp-exclusions');
+      const access = await sourceData(page, 'sp-access');
+      check(strata.features.length >= 6, 'strata not on the map');
+      check(excl.features.length >= 5 && buffers.features.length >= 4, `exclusions/buffers not on the map (${excl.features.length}/${buffers.features.length})`);
+      check(access.features.length === 2, 'access points not on the map');
+      const drawn = await page.evaluate(() => window.__stratplotMap.queryRenderedFeatures({ layers: ['sp-strata-fill'] }).length);
+      check(drawn > 0, 'no stratum rendered');
+      check(await page.getByText('Map strata').first().isVisible(), 'step path missing');
+      check(await page.locator('.maplibregl-ctrl-scale').isVisible(), 'scale bar missing');
+      await shot('1-demo-site');
+      await page.getByRole('button', { name: /Mark exclusions/ }).click();
+      await page.waitForSelector('text=Buffers here are planning distances');
+      await shot('1-exclusions-sheet');
+    },
+  },
+  {
+    no: 2,
+    name: 'a stratum drawn by clicks appears in the table with its ellipsoidal area',
+    async run({ page, origin, shot }) {
+      await openPlanner(page, origin);
+      await drawSquare(page);
+      await strataRows(page, 7);
+      const data = await sourceData(page, 'sp-strata');
+      const drawn = data.features.find((f) => f.properties.stratum === 'Stratum 7');
+      check(drawn, 'the drawn stratum is not on the map');
+      const expected = (geodesicAreaM2(drawn.geometry.coordinates[0]) / 10_000).toFixed(2);
+      const shown = (await mappedHaOf(page, 'Stratum 7'))?.replace(/,/g, '');
+      // Reference: GeographicLib (geographiclib-geodesic 2.2) geodesic polygon area on WGS84.
+      check(shown === expected, `panel shows ${shown} ha, GeographicLib gives ${expected} ha`);
+      await mapIdle(page);
+      await shot('2-drawn-stratum');
+      await page.keyboard.press('Control+z');
+      await strataRows(page, 6);
+    },
+  },
+  {
+    no: 3,
+    name: 'a GeoJSON file imported through the file input adds strata by the chosen attribute',
+    async run({ page, origin, shot }) {
+      await openPlanner(page, origin);
+      const { rings, file } = importFile();
+      await page.setInputFiles('input[data-import="strata"]', file);
+      await page.waitForSelector('form.field-pick');
+      const chosen = await page.locator('form.field-pick select').inputValue();
+      check(chosen === 'habitat', `expected the attribute "habitat" to be offered first, saw "${chosen}"`);
+      await page.getByRole('button', { name: 'Add strata', exact: true }).click();
+      await strataRows(page, 8);
+      // Reference: GeographicLib (geographiclib-geodesic 2.2) geodesic polygon area on WGS84.
+      const expected = (geodesicAreaM2(rings[0]) / 10_000).toFixed(2);
+      const shown = (await mappedHaOf(page, 'Imported heath (invented)'))?.replace(/,/g, '');
+      check(shown === expected, `imported stratum shows ${shown} ha, GeographicLib gives ${expected} ha`);
+      await page.setInputFiles('input[data-import="strata"]', { name: 'broken.geojson', mimeType: 'application/json', buffer: Buffer.from('{"type": "FeatureCollection", "features": [') });
+      await page.waitForSelector('.notice-error');
+      const msg = await page.locator('.notice-error').textContent();
+      check(/broken\.geojson/.test(msg ?? ''), `a broken file should be named in the message, saw "${msg}"`);
+      await shot('3-imported');
+    },
+  },
+  {
+    no: 4,
+    name: 'a design runs in the worker, its plots are read back from the map, and a rejected plot promotes the next reserve',
+    async run({ page, origin, shot }) {
+      await openPlanner(page, origin);
+      await page.getByRole('button', { name: /3\s*Design/ }).click();
+      await page.getByRole('button', { name: 'Make the design' }).click();
+      await page.waitForSelector('table[aria-label="Allocation of plots to strata"]', { timeout: 60_000 });
+      await mapIdle(page);
+      const total = await page.evaluate(() => {
+        const cells = [...document.querySelectorAll('table[aria-label="Allocation of plots to strata"] tfoot td.num')].map((c) => Number(c.textContent));
+        return cells[3] + cells[4];
+      });
+      const rendered = await page.evaluate(() => {
+        const seen = new Map();
+        // A feature comes back once per tile it crosses: keep one per plot id.
+        for (const f of window.__stratplotMap.queryRenderedFeatures({ layers: ['sp-plots'] })) seen.set(f.properties.plot_id, f.properties);
+        return [...seen.values()];
+      });
+      check(rendered.length === total && total > 0, `map shows ${rendered.length} plots, allocation lists ${total}`);
+      // Every plot lies in a feature of its own stratum (checked with turf's point-in-polygon, not the app's code).
+      const strata = await sourceData(page, 'sp-strata');
+      const plots = await sourceData(page, 'sp-plots');
+      for (const f of plots.features) {
+        const inside = strata.features.some((s) => s.properties.stratum === f.properties.stratum && booleanPointInPolygon(f.geometry.coordinates, s.geometry));
+        check(inside, `plot ${f.properties.plot_id} is not inside stratum ${f.properties.stratum}`);
+      }
+      await shot('4-design');
+      await page.getByRole('button', { name: /4\s*Plots/ }).click();
+      const first = plots.features.find((f) => f.properties.role === 'primary');
+      const stratum = first.properties.stratum;
+      const reserve = plots.features.filter((f) => f.properties.stratum === stratum && f.properties.role === 'reserve').sort((a, b) => a.properties.rank - b.properties.rank)[0];
+      check(reserve, `stratum ${stratum} has no reserve to promote`);
+      await page.getByRole('button', { name: `Reject plot ${first.properties.plot_id}`, exact: true }).click();
+      await page.getByRole('button', { name: 'Reject and promote reserve' }).click();
+      await page.waitForSelector(`tr[data-plot="${reserve.properties.plot_id}"][data-status="promoted"]`, { timeout: 5000 });
+      check((await page.locator(`tr[data-plot="${first.properties.plot_id}"]`).getAttribute('data-status')) === 'rejected', 'the plot is not marked rejected');
+      await mapIdle(page);
+      const promoted = await page.evaluate((id) => window.__stratplotMap.queryRenderedFeatures({ layers: ['sp-plots'] }).find((f) => f.properties.plot_id === id)?.properties.state, reserve.properties.plot_id);
+      check(promoted === 'promoted', `the map shows reserve ${reserve.properties.plot_id} as ${promoted}`);
+      await page.getByRole('button', { name: `Zoom to plot ${reserve.properties.plot_id}` }).click();
+      await sleep(700);
+      await mapIdle(page);
+      await shot('4-plots-rejected');
+    },
+  },
+  {
+    no: 5,
+    name: 'after a reload the drawn and imported work is restored from the browser copy',
+    async run({ page, origin, shot }) {
+      await openPlanner(page, origin);
+      await drawSquare(page);
+      await strataRows(page, 7);
+      await page.locator('input[aria-label="Name of stratum Stratum 7"]').fill('Restored stratum');
+      await page.keyboard.press('Tab');
+      await page.waitForFunction(() => [...document.querySelectorAll('input.name-input')].some((i) => i.value === 'Restored stratum' && i.getAttribute('aria-label') === 'Name of stratum Stratum 7'));
+      await sleep(800);
+      await page.reload();
+      await openPlanner(page, origin);
+      const rows = await page.locator('table.ledger tbody tr[data-stratum]').count();
+      check(rows === 7, `expected 7 strata after reload, saw ${rows}`);
+      check((await mappedHaOf(page, 'Restored stratum')) !== null, 'the renamed stratum was not restored');
+      await shot('5-restored');
+    },
+  },
+  {
+    no: 6,
+    name: 'a name carrying markup is shown as text, never run',
+    async run({ page, origin, shot, watch }) {
+      await openPlanner(page, origin);
+      const payload = '<img src=x onerror=alert(1)>';
+      const { file } = importFile(payload, 'Plain <b>bold</b> scrub');
+      await page.setInputFiles('input[data-import="strata"]', file);
+      await page.getByRole('button', { name: 'Add strata', exact: true }).click();
+      await strataRows(page, 8);
+      check((await mappedHaOf(page, payload)) !== null, 'the stratum with markup in its name is not listed by that name');
+      const injected = await page.evaluate(() => document.querySelectorAll('img[src="x"], b').length);
+      check(injected === 0, 'markup from a file became page elements');
+      await page.getByRole('button', { name: 'New outlines go into' }).count();
+      const options = await page.locator('option', { hasText: payload }).count();
+      check(options > 0, 'the name is not offered as text in the stratum picker');
+      await mapIdle(page);
+      await sleep(300);
+      check(watch.dialogs.length === 0, 'a script from the file ran');
+      await shot('6-markup-as-text');
+    },
+  },
+];
