@@ -7,8 +7,9 @@ const CSP = [
   "script-src 'self' 'wasm-unsafe-eval'",
   "worker-src 'self' blob:",
   "style-src 'self'",
-  "img-src 'self' data: blob:",
-  "connect-src 'self' data: blob:",
+  // The one online tile host the planner offers (off until the user turns it on).
+  "img-src 'self' data: blob: https://tile.openstreetmap.org",
+  "connect-src 'self' data: blob: https://tile.openstreetmap.org",
   "object-src 'none'",
   "base-uri 'self'",
   "form-action 'none'",

@@ -7,13 +7,13 @@ export function HistoryButtons() {
   const past = useStore(plannerStore.temporal, (t) => t.pastStates.length);
   const future = useStore(plannerStore.temporal, (t) => t.futureStates.length);
   return (
-    <div className="history" role="group" aria-label="Edit history">
+    <fieldset className="history tools" aria-label="Edit history">
       <button type="button" disabled={past === 0} onClick={() => historyUndo(plannerStore)} title="Ctrl+Z">
         Undo{past ? ` (${past})` : ''}
       </button>
       <button type="button" disabled={future === 0} onClick={() => historyRedo(plannerStore)} title="Ctrl+Y or Ctrl+Shift+Z">
         Redo{future ? ` (${future})` : ''}
       </button>
-    </div>
+    </fieldset>
   );
 }

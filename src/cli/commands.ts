@@ -4,6 +4,7 @@ import { estimateCommand } from './commands/estimate';
 import { exportCommand } from './commands/export';
 import { planCommand } from './commands/plan';
 import { recaptureCommand } from './commands/recapture';
+import { trapsCommand } from './commands/traps';
 
 /** Every `stratplot` command by name; each lives in its own file under ./commands/. */
 export const COMMANDS: Record<string, Command> = {
@@ -12,4 +13,5 @@ export const COMMANDS: Record<string, Command> = {
   export: exportCommand,
   plan: planCommand,
   recapture: recaptureCommand,
+  traps: trapsCommand,
 };

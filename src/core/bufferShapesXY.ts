@@ -31,33 +31,3 @@ export function bufferCircleRing(cx: number, cy: number, radiusM: number): [numb
   ring.push([ring[0][0], ring[0][1]]);
   return ring;
 }
-
-/** Pushes a half-circle of tangent edges about (cx, cy) from angle a0 through a0 + π. */
-function halfArc(out: [number, number][], cx: number, cy: number, radiusM: number, a0: number, m: number): void {
-  const step = Math.PI / m;
-  const rv = radiusM / Math.cos(step / 2);
-  out.push([cx + radiusM * Math.cos(a0), cy + radiusM * Math.sin(a0)]);
-  for (let k = 0; k < m; k++) {
-    const a = a0 + (k + 0.5) * step;
-    out.push([cx + rv * Math.cos(a), cy + rv * Math.sin(a)]);
-  }
-  out.push([cx + radiusM * Math.cos(a0 + Math.PI), cy + radiusM * Math.sin(a0 + Math.PI)]);
-}
-
-/**
- * A closed counter-clockwise ring covering every point within `radiusM` of the segment
- * (x0, y0)–(x1, y1) (a capsule): two straight sides and two circumscribed half-circles.
- * A zero-length segment gives {@link bufferCircleRing}.
- */
-export function bufferCapsuleRing(x0: number, y0: number, x1: number, y1: number, radiusM: number): [number, number][] {
-  const dx = x1 - x0;
-  const dy = y1 - y0;
-  if (dx === 0 && dy === 0) return bufferCircleRing(x0, y0, radiusM);
-  const theta = Math.atan2(dy, dx);
-  const m = Math.max(6, Math.ceil(Math.PI / bufferArcStepRad(radiusM)));
-  const ring: [number, number][] = [];
-  halfArc(ring, x1, y1, radiusM, theta - Math.PI / 2, m);
-  halfArc(ring, x0, y0, radiusM, theta + Math.PI / 2, m);
-  ring.push([ring[0][0], ring[0][1]]);
-  return ring;
-}

@@ -62,13 +62,14 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
-  const { mapped, usable } = designUsableAreas(site, frame, tick);
+  const areas = designUsableAreas(site, frame, tick);
+  const { mapped, usable } = areas;
   const basis = settings.shareBasis === 'usable' ? usable : mapped;
   const totalBasis = basis.reduce((a, b) => a + b, 0);
   if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
   progress(0.2, 'allocation');
   const strataBasis = keys.map((key, i) => ({ key, basisM2: basis[i] }));
-  const warnings: string[] = [];
+  const warnings: string[] = [...areas.warnings];
   const extraStatements: string[] = [];
   let allocation: AllocationResult | null = null;
   let weights = basis.slice();

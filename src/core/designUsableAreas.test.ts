@@ -20,3 +20,15 @@ describe('designUsableAreas', () => {
     }
   });
 });
+
+describe('usableAreaByGrid', () => {
+  it('counts the same usable area as exact clipping, within its stated error', async () => {
+    const { usableAreaByGrid } = await import('./usableAreaByGrid');
+    const site = siteInventedRandom(4, 2, 6);
+    const frame = siteLocalFrame(site.parts);
+    const one = { ...site, parts: [site.parts[2]], strata: [site.strata[1]] };
+    const exact = stratumUsableRegion(one, 'S1', frame).areaM2;
+    const est = usableAreaByGrid(one, frame, polygonAreaM2(site.parts[2].geometry));
+    expect(Math.abs(est.areaM2 - exact)).toBeLessThanOrEqual(est.errorM2 + 1);
+  });
+});

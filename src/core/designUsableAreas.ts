@@ -2,6 +2,7 @@ import Flatbush from 'flatbush';
 import type { LocalFrame } from './localFrame';
 import { polygonAreaM2 } from './polygonAreaM2';
 import { stratumUsableRegion } from './stratumUsableRegion';
+import { usableAreaByGrid } from './usableAreaByGrid';
 import type { ExclusionGeometry, LonLat, Site } from './types';
 
 type Box = [number, number, number, number];
@@ -30,10 +31,16 @@ function* exclusionPositions(g: ExclusionGeometry): Iterable<LonLat> {
  * exactly, and only the parts an exclusion's buffered box reaches go through
  * {@link stratumUsableRegion} (with just those exclusions), which keeps large maps with few
  * exclusions fast. Summing parts equals the stratum's usable area because parts of a valid site do
- * not overlap (overlaps are errors in siteValidate).
+ * not overlap (overlaps are errors in siteValidate). When exact clipping of a part fails, its usable
+ * area is counted on a fine grid instead ({@link usableAreaByGrid}) and a warning says so.
  * Source of the areas: Karney (2013) via polygonAreaM2; clipping as in stratumUsableRegion.
  */
-export function designUsableAreas(site: Site, frame: LocalFrame, tick: () => void = () => {}): { mapped: number[]; usable: number[] } {
+export function designUsableAreas(
+  site: Site,
+  frame: LocalFrame,
+  tick: () => void = () => {},
+): { mapped: number[]; usable: number[]; warnings: string[] } {
+  const warnings: string[] = [];
   const index = new Map(site.strata.map((s, i) => [s.key, i]));
   const mapped = site.strata.map(() => 0);
   const usable = site.strata.map(() => 0);
@@ -65,7 +72,17 @@ export function designUsableAreas(site: Site, frame: LocalFrame, tick: () => voi
       continue;
     }
     const sub: Site = { ...site, parts: [part], exclusions: near.sort((x, y) => x - y).map((i) => site.exclusions[i]) };
-    usable[s] += stratumUsableRegion(sub, part.stratum, frame).areaM2;
+    try {
+      usable[s] += stratumUsableRegion(sub, part.stratum, frame).areaM2;
+    } catch (error) {
+      if (error instanceof Error && error.name === 'InputError') throw error;
+      // Exact clipping can fail on awkward geometry; count instead, and say so with the error bound.
+      const est = usableAreaByGrid({ ...sub, strata: site.strata.filter((x) => x.key === part.stratum) }, frame, area);
+      usable[s] += est.areaM2;
+      warnings.push(
+        `usable area of part "${part.id}" (stratum "${part.stratum}") was counted on a fine grid because exact clipping failed (${(error as Error).message.slice(0, 80)}); it is ${est.areaM2.toFixed(0)} m² ± ${est.errorM2.toFixed(0)} m².`,
+      );
+    }
   }
-  return { mapped, usable };
+  return { mapped, usable, warnings };
 }

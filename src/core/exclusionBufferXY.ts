@@ -1,7 +1,8 @@
 import type { Position } from 'geojson';
 import * as polyclip from 'polyclip-ts';
-import { bufferCapsuleRing, bufferCircleRing } from './bufferShapesXY';
+import { bufferCircleRing } from './bufferShapesXY';
 import type { LocalFrame } from './localFrame';
+import { planarBuffer } from './planarBuffer';
 import type { Exclusion } from './types';
 
 type Ring = [number, number][];
@@ -13,21 +14,13 @@ function projected(frame: LocalFrame, origin: readonly [number, number], p: Posi
   return [x - origin[0], y - origin[1]];
 }
 
-function linePieces(out: Ring[][], line: readonly Position[], bufferM: number, frame: LocalFrame, origin: readonly [number, number]): void {
-  const pts = line.map((p) => projected(frame, origin, p));
-  if (pts.length === 1) out.push([bufferCircleRing(pts[0][0], pts[0][1], bufferM)]);
-  for (let i = 1; i < pts.length; i++) {
-    out.push([bufferCapsuleRing(pts[i - 1][0], pts[i - 1][1], pts[i][0], pts[i][1], bufferM)]);
-  }
-}
-
 /**
  * The pieces whose union is an exclusion's buffered footprint, in frame metres less `origin`
  * (callers working far from the frame's origin pass a nearby point to keep precision):
- * points give circles, lines the capsules of their segments, polygons themselves plus the
- * capsules of every ring edge (holes included). Arcs are circumscribed polygons whose vertices
- * stand at most 0.02 m outside the true circle, so the pieces always cover the true buffer.
- * A zero buffer on a point or line gives no pieces (the geometry itself has no area).
+ * points give one circle each; lines and polygons one planarBuffer (JTS buffer) per geometry,
+ * with rings, holes and joins merged. Every arc is drawn with tangent edges, so the pieces always
+ * cover the true buffer and no vertex stands more than 0.02 m outside it. A polygon with a zero
+ * buffer is itself; a zero buffer on a point or line gives no pieces (no area).
  */
 export function exclusionBufferPiecesXY(
   exclusion: Exclusion,
@@ -36,27 +29,29 @@ export function exclusionBufferPiecesXY(
 ): MultiPolygonXY {
   const r = exclusion.bufferM;
   const g = exclusion.geometry;
-  const out: Ring[][] = [];
-  const points = g.type === 'Point' ? [g.coordinates] : g.type === 'MultiPoint' ? g.coordinates : [];
-  const lines = g.type === 'LineString' ? [g.coordinates] : g.type === 'MultiLineString' ? g.coordinates : [];
-  const polygons = g.type === 'Polygon' ? [g.coordinates] : g.type === 'MultiPolygon' ? g.coordinates : [];
-  if (r > 0) {
-    for (const p of points) {
-      const [x, y] = projected(frame, origin, p);
-      out.push([bufferCircleRing(x, y, r)]);
-    }
-    for (const line of lines) linePieces(out, line, r, frame, origin);
+  const at = (p: Position) => projected(frame, origin, p);
+  if (g.type === 'Point' || g.type === 'MultiPoint') {
+    if (!(r > 0)) return [];
+    const points = g.type === 'Point' ? [g.coordinates] : g.coordinates;
+    return points.map((p) => {
+      const [x, y] = at(p);
+      return [bufferCircleRing(x, y, r)];
+    });
   }
-  for (const poly of polygons) {
-    out.push(poly.map((ring) => ring.map((p) => projected(frame, origin, p))));
-    if (r > 0) for (const ring of poly) linePieces(out, ring, r, frame, origin);
+  if (g.type === 'LineString' || g.type === 'MultiLineString') {
+    if (!(r > 0)) return [];
+    const lines = g.type === 'LineString' ? [g.coordinates] : g.coordinates;
+    return planarBuffer({ type: 'MultiLineString', coordinates: lines.map((line) => line.map(at)) }, r);
   }
-  return out;
+  const polygons = g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
+  const xy = polygons.map((poly) => poly.map((ring) => ring.map(at)));
+  return r > 0 ? planarBuffer({ type: 'MultiPolygon', coordinates: xy }, r) : xy;
 }
 
 /**
  * An exclusion's buffered footprint as one multipolygon in frame metres: the union (by
- * polyclip-ts, a Martinez–Rueda–Feito sweep-line clipper) of {@link exclusionBufferPiecesXY}.
+ * polyclip-ts, a Martinez–Rueda–Feito sweep-line clipper) of {@link exclusionBufferPiecesXY}
+ * (only multipoints have more than one piece to merge).
  * Empty for a zero buffer on a point or line.
  */
 export function exclusionBufferXY(exclusion: Exclusion, frame: LocalFrame): MultiPolygonXY {
@@ -66,7 +61,7 @@ export function exclusionBufferXY(exclusion: Exclusion, frame: LocalFrame): Mult
   const origin: [number, number] = [Math.round(ox), Math.round(oy)];
   const pieces = exclusionBufferPiecesXY(exclusion, frame, origin);
   if (pieces.length === 0) return [];
-  const merged = polyclip.union(pieces[0], ...pieces.slice(1)) as MultiPolygonXY;
+  const merged = pieces.length === 1 ? pieces : (polyclip.union(pieces[0], ...pieces.slice(1)) as MultiPolygonXY);
   return merged.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x + origin[0], y + origin[1]] as [number, number])));
 }
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { localFrameAt } from './localFrame';
 import { polygonAreaM2 } from './polygonAreaM2';
 
 describe('polygonAreaM2', () => {
@@ -140,5 +141,14 @@ describe('polygonAreaM2 against published and independent values', () => {
     const whole = polygonAreaM2({ type: 'Polygon', coordinates: [a] });
     const sum = polygonAreaM2({ type: 'Polygon', coordinates: [left] }) + polygonAreaM2({ type: 'Polygon', coordinates: [right] });
     expect(Math.abs(sum - whole)).toBeLessThan(1e-6);
+  });
+
+  it('gives the ground area of a 100 km UTM grid square from the Planimeter manual', () => {
+    // GeographicLib Planimeter manual example via REFERENCES.md §1: zone 18N, E 500–600 km,
+    // N 4400–4500 km as a geodesic polygon is 10 007 388 597.2 m² (grid area 1e10 m²).
+    const frame = localFrameAt(-75, 40);
+    const corners = [[500000, 4400000], [600000, 4400000], [600000, 4500000], [500000, 4500000]].map(([x, y]) => frame.toLonLat(x, y));
+    expect(frame.utmZone).toBe('18N');
+    expect(polygonAreaM2({ type: 'Polygon', coordinates: [[...corners, corners[0]]] })).toBeCloseTo(10007388597.2, 0);
   });
 });

@@ -1,6 +1,7 @@
 import type { Geometry, Polygon } from 'geojson';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { ringContainsPoint } from './holeProblems';
 import { localFrameAt } from './localFrame';
 import { polygonAreaM2 } from './polygonAreaM2';
 import { stratumUsableRegion } from './stratumUsableRegion';
@@ -86,6 +87,33 @@ describe('stratumUsableRegion', () => {
         expect(mapped - usable).toBeLessThanOrEqual(discs * 1.002 + 1e-6);
       }),
       { numRuns: 30, seed: 20261201 },
+    );
+  });
+
+  it('keeps exactly the ground farther than the buffer from every exclusion', () => {
+    // Seeded property test against the definition itself: a point more than r + 2 cm from a
+    // cliff line and a hazard point is usable; one closer than r is not.
+    const cliff: Geometry = { type: 'LineString', coordinates: [at(-20, 40), at(90, 120), at(160, 60), at(230, 150)] };
+    const cliffXY = [[-20, 40], [90, 120], [160, 60], [230, 150]];
+    const hazardXY = [60, 170];
+    const s = site([square(0, 0, 200)], [excl(cliff, 15, 'cliff'), excl({ type: 'Point', coordinates: at(hazardXY[0], hazardXY[1]) }, 25)]);
+    const region = stratumUsableRegion(s, 'heath', frame);
+    const inUsable = (x: number, y: number) =>
+      region.xy.some((poly) => poly.filter((ring) => ringContainsPoint(ring, X0 + x, Y0 + y)).length % 2 === 1);
+    const segDist = (x: number, y: number, a: number[], b: number[]) => {
+      const [dx, dy] = [b[0] - a[0], b[1] - a[1]];
+      const t = Math.max(0, Math.min(1, ((x - a[0]) * dx + (y - a[1]) * dy) / (dx * dx + dy * dy)));
+      return Math.hypot(x - a[0] - t * dx, y - a[1] - t * dy);
+    };
+    fc.assert(
+      fc.property(fc.double({ min: 0.5, max: 199.5, noNaN: true }), fc.double({ min: 0.5, max: 199.5, noNaN: true }), (x, y) => {
+        let dCliff = Infinity;
+        for (let i = 1; i < cliffXY.length; i++) dCliff = Math.min(dCliff, segDist(x, y, cliffXY[i - 1], cliffXY[i]));
+        const dHazard = Math.hypot(x - hazardXY[0], y - hazardXY[1]);
+        if (dCliff < 15 || dHazard < 25) expect(inUsable(x, y)).toBe(false);
+        if (dCliff > 15.02 && dHazard > 25.02) expect(inUsable(x, y)).toBe(true);
+      }),
+      { numRuns: 100, seed: 4326 },
     );
   });
 });

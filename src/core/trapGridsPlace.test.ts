@@ -72,7 +72,8 @@ describe('trapGridsPlace', () => {
   it('places G grids of r × c stations per stratum with ids like G1-A03', () => {
     expect(layout.grids.length).toBe(6);
     expect(layout.features.length).toBe(6 * 20);
-    expect(layout.warnings).toEqual([]);
+    expect(layout.design.warnings).toEqual([]);
+    expect(layout.design.allocation.map((r) => r.plots)).toEqual([60, 60]);
     expect(stations.every((p) => /^G\d-[A-D]0[1-5]$/.test(p.plot_id) && p.role === 'primary')).toBe(true);
     expect(stations.filter((p) => p.plot_id.startsWith('G1-')).map((p) => p.plot_id).slice(0, 6)).toEqual([
       'G1-A01',
@@ -83,7 +84,7 @@ describe('trapGridsPlace', () => {
       'G1-B01',
     ]);
     expect(new Set(stations.map((p) => p.plot_id)).size).toBe(stations.length);
-    expect(layout.statements.join(' ')).toContain('landholder');
+    expect(layout.design.statements.join(' ')).toContain('landholder');
   });
 
   it('keeps every station inside its stratum and clear of the buffered exclusions (geodesic check)', () => {
@@ -135,7 +136,7 @@ describe('trapGridsPlace', () => {
   it('says how many grids fit when the stratum is too small for all of them', () => {
     const crowded = trapGridsPlace(site, { ...options, gridsPerStratum: { 'Coastal heath': 40 }, minSeparationM: 200, maxTriesPerGrid: 500 });
     expect(crowded.grids.length).toBeLessThan(40);
-    expect(crowded.warnings[0]).toMatch(/^stratum "Coastal heath": only \d+ of 40 trap grids fit/);
+    expect(crowded.design.warnings[0]).toMatch(/^stratum "Coastal heath": only \d+ of 40 trap grids fit/);
   });
 
   it('refuses sizes it cannot name or place', () => {

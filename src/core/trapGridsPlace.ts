@@ -1,10 +1,13 @@
 import type { Feature, Point } from 'geojson';
-import type { PlotProperties } from './designTypes';
+import { STRATPLOT_VERSION } from './designRun';
+import { designSettingsDefault } from './designSettingsDefault';
+import type { AllocationRow, PlotCollection, PlotProperties } from './designTypes';
 import { InputError } from './InputError';
 import { FIT_OK, placementConstraintsBuild } from './placementConstraints';
 import { footprintShapeXY } from './placementFootprint';
 import { plotRecord } from './plotRecord';
 import { plotsPlaceRandom } from './plotsPlaceRandom';
+import { polygonAreaM2 } from './polygonAreaM2';
 import { rngCreate } from './rng';
 import { convexSegmentDistance } from './segmentDistance';
 import { siteLocalFrame } from './siteLocalFrame';
@@ -39,17 +42,12 @@ export interface TrapGrid {
   stations: number;
 }
 
-/** Stations as plot features (role primary), the grids and what could not be placed. */
-export interface TrapGridLayout {
-  type: 'FeatureCollection';
-  features: Feature<Point, PlotProperties>[];
-  grids: TrapGrid[];
-  seed: number;
-  crs: { utm_zone: string; epsg: number };
-  warnings: string[];
-  /** How the grids were placed and the field cautions, in words, for sheets and reports. */
-  statements: string[];
-}
+/**
+ * Stations as a plot file (role primary, so every plot exporter and `stratplot estimate` read it),
+ * with the grids listed; `design.warnings` says what could not be placed and `design.statements`
+ * how the grids were placed and the field cautions.
+ */
+export type TrapGridLayout = PlotCollection & { grids: TrapGrid[] };
 
 /** Field cautions printed with every trapping layout. */
 export const TRAP_GRID_CAUTIONS = [
@@ -142,6 +140,9 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   const grids: TrapGrid[] = [];
   const warnings: string[] = [];
   const candidate = new Float64Array(2);
+  const mappedM2 = keys.map((key) => site.parts.filter((p) => p.stratum === key).reduce((a, p) => a + polygonAreaM2(p.geometry), 0));
+  const usableM2 = keys.map((key, i) => (mappedM2[i] > 0 ? stratumUsableRegion(site, key, frame).areaM2 : 0));
+  const stationsIn = keys.map(() => 0);
   for (let s = 0; s < keys.length; s++) {
     const key = keys[s];
     const wanted = typeof perStratum === 'number' ? perStratum : (perStratum[key] ?? 0);
@@ -166,8 +167,9 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
         break;
       }
     }
-    const areaHa = stratumUsableRegion(site, key, frame).areaM2 / 10_000;
-    const density = areaHa > 0 ? (centres.length * rows * cols) / areaHa : 0;
+    const areaHa = usableM2[s] / 10_000;
+    stationsIn[s] = centres.length * rows * cols;
+    const density = areaHa > 0 ? stationsIn[s] / areaHa : 0;
     let rank = 0;
     for (const [x0, y0] of centres) {
       const grid = `G${grids.length + 1}`;
@@ -196,15 +198,32 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   const statements = [
     `Each grid is ${rows} × ${cols} stations ${spacingM} m apart, rows running ${angleDeg === 0 ? 'true east–west' : `${angleDeg}° clockwise from true east`}; the whole grid outline lies inside its stratum${edgeBufferM > 0 ? ` at least ${edgeBufferM} m from its edge` : ''}, clear of every buffered exclusion, and at least ${minSeparationM} m from every other grid.`,
     `Grid centres drawn at random over each stratum, seed ${options.seed}.`,
+    'Station densities and stratum shares use the usable area: the mapped area less every exclusion widened by its buffer.',
     ...TRAP_GRID_CAUTIONS,
   ];
+  const totalUsable = usableM2.reduce((a, b) => a + b, 0);
+  const allocation: AllocationRow[] = keys.map((key, i) => ({
+    stratum: key,
+    mapped_m2: Math.round(mappedM2[i] * 100) / 100,
+    usable_m2: Math.round(usableM2[i] * 100) / 100,
+    share: totalUsable > 0 ? Math.round((usableM2[i] / totalUsable) * 1e6) / 1e6 : 0,
+    plots: stationsIn[i],
+    reserve: 0,
+    capacity: null,
+  }));
+  const settings = designSettingsDefault({ plots: features.length, seed: options.seed, edgeBufferM, spacingM, reservePerStratum: 0 });
   return {
     type: 'FeatureCollection',
     features,
     grids,
-    seed: options.seed,
-    crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
-    warnings,
-    statements,
+    design: {
+      settings,
+      seed: options.seed,
+      crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
+      allocation,
+      warnings,
+      statements,
+      software: { name: 'stratplot', version: STRATPLOT_VERSION },
+    },
   };
 }

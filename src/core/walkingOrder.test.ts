@@ -16,8 +16,10 @@ const at = (id: string, eastM: number, northM: number): NavTarget => ({
 
 describe('walkingOrder', () => {
   it('visits points on a circle in order around the circle (known optimum: the convex polygon)', () => {
-    // For points in convex position the shortest closed tour is their order around the hull
-    // (classical TSP fact, e.g. Lawler et al., The Traveling Salesman Problem, 1985, ch. 4; from memory).
+    // For points in convex position the shortest closed tour is their order around the hull: an
+    // optimal planar tour never crosses itself (Flood, "The traveling-salesman problem",
+    // Operations Research 4 (1956) 61–75; cited from memory). 1.6 km across, the geodesic and
+    // planar orders agree.
     const angles = [0, 200, 40, 320, 80, 160, 280, 120, 240];
     const pts = angles.map((a) => at(`P${a}`, 1000 + 800 * Math.cos((a * Math.PI) / 180), 800 * Math.sin((a * Math.PI) / 180)));
     const circleStart = at('A1', 1000 - 800, 0); // the start sits on the circle at 180°

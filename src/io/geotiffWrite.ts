@@ -58,7 +58,8 @@ interface Entry {
  * GeoKeyDirectory naming a projected CRS by EPSG code (ProjectedCSTypeGeoKey), pixels as areas.
  * @param width pixels per row; @param height rows; @param rgb width × height × 3 bytes, row-major.
  * @returns the file's bytes.
- * Throws InputError when the sizes disagree or the placement is not finite and positive.
+ * Throws InputError when the sizes disagree, the placement is not finite and positive, or the EPSG
+ * code is not a projected CRS's.
  * Sources: TIFF Revision 6.0 (Adobe, 1992); OGC GeoTIFF Standard 1.1 (OGC 19-008r4, 2019).
  */
 export function geotiffWrite(
@@ -77,7 +78,8 @@ export function geotiffWrite(
   if (!(place.pixelSizeM > 0) || !Number.isFinite(place.originX) || !Number.isFinite(place.originY)) {
     throw new InputError('GeoTIFF: origin must be finite and pixel size positive');
   }
-  if (!Number.isInteger(place.epsg) || place.epsg < 1024 || place.epsg > 32766) {
+  // EPSG codes 4000–4999 are geographic (lon/lat) CRSs, which belong in GeographicTypeGeoKey instead.
+  if (!Number.isInteger(place.epsg) || place.epsg < 1024 || place.epsg > 32766 || (place.epsg >= 4000 && place.epsg < 5000)) {
     throw new InputError(`GeoTIFF: EPSG code ${place.epsg} is not a projected CRS code`);
   }
   const compression = options.compression ?? 'deflate';

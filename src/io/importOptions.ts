@@ -9,7 +9,7 @@ export interface ImportOptions {
   /** Text encoding of a shapefile's .dbf when it has no .cpg, e.g. "windows-1252". */
   encoding?: string;
   /** Column mapping for point CSV files; columns are auto-detected when absent. */
-  csvColumns?: { x: string; y: string };
+  csvColumns?: { x: string; y: string; epsg?: number };
   /** Loads sql.js for GeoPackage files (the browser passes one with its wasm location). */
   sqlJsInit?: () => Promise<SqlJsStatic>;
 }

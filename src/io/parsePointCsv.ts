@@ -34,7 +34,7 @@ function utmZoneEpsg(zone: string): number | null {
 /**
  * Reads a CSV of points (papaparse; header row required; UTF-8 unless `options.encoding`) as
  * WGS84 GeoJSON points. Coordinates
- * come from `options.csvColumns` ({x, y}) or auto-detected columns: lon/lng/longitude/x with
+ * come from `options.csvColumns` ({x, y, epsg?}) or auto-detected columns: lon/lng/longitude/x with
  * lat/latitude/y (WGS84 unless `options.epsg` says otherwise), else easting/northing with
  * `options.epsg` or a per-row `utm_zone` column ("55S"). Other columns become properties:
  * plain numbers as numbers, empty cells as null, apostrophe-neutralised text restored.
@@ -59,7 +59,8 @@ export async function parsePointCsv(fileName: string, bytes: Uint8Array, options
   for (const c of [x, y]) {
     if (c !== undefined && !columns.includes(c)) throw new InputError(`${fileName}: no column "${c}"; columns are: ${columns.join(', ')}`);
   }
-  let crs: CrsTransform | null = options.epsg !== undefined ? crsResolveEpsg(options.epsg, fileName) : null;
+  const epsg = options.csvColumns?.epsg ?? options.epsg;
+  let crs: CrsTransform | null = epsg !== undefined ? crsResolveEpsg(epsg, fileName) : null;
   let zoneColumn: string | undefined;
   if (x === undefined || y === undefined) {
     const lon = find(columns, LON_NAMES);

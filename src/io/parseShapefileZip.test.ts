@@ -108,10 +108,11 @@ function positions(fc: FeatureCollection): Position[] {
   return out;
 }
 
+/** Shoelace formula: positive for a counter-clockwise ring (x east, y north). */
 function ringSignedArea(ring: Position[]): number {
   let s = 0;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) s += (ring[j][0] - ring[i][0]) * (ring[j][1] + ring[i][1]);
-  return -s / 2;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) s += ring[j][0] * ring[i][1] - ring[i][0] * ring[j][1];
+  return s / 2;
 }
 
 describe('parseShapefileZip and featuresToShapefileZip', () => {
@@ -148,6 +149,9 @@ describe('parseShapefileZip and featuresToShapefileZip', () => {
     expect(numParts).toBe(2);
     expect(ringSignedArea(ring(0))).toBeLessThan(0);
     expect(ringSignedArea(ring(1))).toBeGreaterThan(0);
+    // The sample shell runs SW → SE → NE (counter-clockwise); written clockwise it goes SW → NW first.
+    expect(ring(0)[0]).toEqual([10, 50]);
+    expect(ring(0)[1]).toEqual([10, 50.0015]);
   });
 
   it('splits a mixed collection into one layer per shape type and reads each by name', async () => {

@@ -61,7 +61,7 @@ describe('parsePointCsv', () => {
 
   it('uses an explicit column mapping and EPSG code', async () => {
     // Same published point as above, columns named freely, EPSG:32638 (WGS 84 / UTM zone 38N).
-    const back = await parsePointCsv('p.csv', enc('name;E_m;N_m\nA;444140.54;3684706.36\n'), { csvColumns: { x: 'E_m', y: 'N_m' }, epsg: 32638 });
+    const back = await parsePointCsv('p.csv', enc('name;E_m;N_m\nA;444140.54;3684706.36\n'), { csvColumns: { x: 'E_m', y: 'N_m', epsg: 32638 } });
     expect((back.features[0].geometry as { coordinates: number[] }).coordinates[1]).toBeCloseTo(33.3, 6);
   });
 

@@ -6,13 +6,13 @@ export const SHP_POLYLINE = 3;
 export const SHP_POLYGON = 5;
 export const SHP_MULTIPOINT = 8;
 
-/** Twice the signed area of a ring in the plane (positive when counter-clockwise, y up). */
+/** Twice the signed area of a ring in the plane by the shoelace formula: positive when counter-clockwise (y up). */
 function ringSignedArea2(ring: Position[]): number {
   let s = 0;
   for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    s += (ring[j][0] - ring[i][0]) * (ring[j][1] + ring[i][1]);
+    s += ring[j][0] * ring[i][1] - ring[i][0] * ring[j][1];
   }
-  return -s;
+  return s;
 }
 
 function closed(ring: Position[]): Position[] {

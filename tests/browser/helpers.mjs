@@ -5,7 +5,7 @@ export async function openPlanner(page, origin) {
   await page.goto(`${origin}/`);
   await page.waitForFunction(() => {
     const m = window.__stratplotMap;
-    return m && m.isStyleLoaded() && m.getLayer('sp-strata-fill') && document.querySelector('table.ledger[data-measured="yes"]');
+    return m?.isStyleLoaded() && m.getLayer('sp-strata-fill') && document.querySelector('table.ledger[data-measured="yes"]');
   }, null, { timeout: 30_000 });
   await mapIdle(page);
 }

@@ -83,7 +83,7 @@ export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (
   const editBegin = () => {
     const sel = store.getState().selection;
     const part = sel?.kind === 'part' ? store.getState().site.parts.find((p) => p.id === sel.id) : undefined;
-    if (!part || part.geometry.type !== 'Polygon' || part.geometry.coordinates.length !== 1) {
+    if (part?.geometry.type !== 'Polygon' || part.geometry.coordinates.length !== 1) {
       say('error', part ? 'Vertices can be moved on single polygons without holes; redraw or cut this feature instead.' : 'Select a stratum feature on the map first, then reshape it.');
       store.setState({ tool: 'none' });
       return;

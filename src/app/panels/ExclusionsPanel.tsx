@@ -20,15 +20,15 @@ export function ExclusionsPanel() {
       <aside className="caution" aria-label="Safety caution">
         Buffers here are planning distances, not safe working distances. Cliff edges, water, tides and remote ground need the precautions of local codes and your employer’s safety plan; private land needs the landholder’s permission before entry.
       </aside>
-      <div className="tools" role="group" aria-label="Exclusion drawing tools">
+      <fieldset className="tools" aria-label="Exclusion drawing tools">
         <ToolButton tool="cliff" label="Cliff edge" shortcut="C" hint="Draw a line along the edge" />
         <ToolButton tool="creek" label="Creek" shortcut="K" hint="Draw a line along the watercourse" />
         <ToolButton tool="water" label="Water body" shortcut="W" hint="Outline a pond, lake or wetland" />
         <ToolButton tool="private" label="Private land" shortcut="P" hint="Outline the parcel" />
         <ToolButton tool="hazard" label="Hazard point" shortcut="Z" hint="Click the hazard" />
         <ToolButton tool="access" label="Access point" shortcut="A" hint="Click where crews start walking" />
-      </div>
-      <ImportBox role="exclusions" />
+      </fieldset>
+      <ImportBox kind="exclusions" />
       <table className="ledger" aria-label="Exclusions">
         <thead>
           <tr>
@@ -99,7 +99,7 @@ export function ExclusionsPanel() {
       </table>
       <p className="fine">Default buffers by kind: {EXCLUSION_KINDS.map((k) => `${k} ${DEFAULT_BUFFER_M[k]} m`).join(', ')} (common practice, adjust to your site).</p>
       <h3>Access points</h3>
-      <ImportBox role="access" />
+      <ImportBox kind="access" />
       <ul className="plain-list">
         {site.access.map((a) => (
           <li key={a.id}>

@@ -10,7 +10,7 @@ const ACCEPT = '.geojson,.json,.zip,.kml,.kmz,.gpx,.gpkg,.csv';
  * it as strata, exclusions or access points. For strata, the user picks the attribute that
  * defines them before anything is added.
  */
-export function ImportBox({ role }: { role: 'strata' | 'exclusions' | 'access' }) {
+export function ImportBox({ kind: role }: { kind: 'strata' | 'exclusions' | 'access' }) {
   const inputId = useId();
   const [preview, setPreview] = useState<ImportPreview | null>(null);
   const [field, setField] = useState<string>('');

@@ -3,7 +3,9 @@ import { fmtHa, fmtPct } from '../format';
 import { plannerStore } from '../plannerStoreInstance';
 import { useAreaTable } from '../useAreaTable';
 import { attempt, usePlanner } from '../usePlanner';
+import { BackdropBox } from './BackdropBox';
 import { ImportBox } from './ImportBox';
+import { ProblemList } from './ProblemList';
 import { ToolButton } from './ToolButton';
 
 /** Step 1: the strata ledger — draw or import strata, name, code and colour them, see their areas. */
@@ -17,12 +19,12 @@ export function StrataPanel() {
         <span className="step-no">1</span> Map strata
       </h2>
       <p className="lead">Outline each habitat stratum over the imagery, or bring in a mapped layer. Areas are measured on the WGS84 ellipsoid.</p>
-      <div className="tools" role="group" aria-label="Stratum drawing tools">
+      <fieldset className="tools" aria-label="Stratum drawing tools">
         <ToolButton tool="stratum" label="Draw stratum" shortcut="S" hint="Click the outline, click the first point to close" />
         <ToolButton tool="stratum-beside" label="Draw beside neighbours" shortcut="B" hint="Overlaps with mapped strata are clipped away, so edges are shared" />
         <ToolButton tool="hole" label="Cut a hole" shortcut="H" hint="Draw a polygon to subtract it from the strata it overlaps" />
         <ToolButton tool="edit" label="Move vertices" shortcut="E" hint="Reshape the selected stratum feature" />
-      </div>
+      </fieldset>
       <label className="inline">
         New outlines go into{' '}
         <select value={target ?? ''} onChange={(e) => plannerStore.setState({ drawStratumKey: e.currentTarget.value || null })}>
@@ -34,11 +36,12 @@ export function StrataPanel() {
           ))}
         </select>
       </label>
-      <ImportBox role="strata" />
+      <ImportBox kind="strata" />
       {error ? <p className="problem">{error}</p> : null}
       <p className="fine measuring" aria-live="polite">
         {current ? '' : 'Measuring areas on the ellipsoid…'}
       </p>
+      <div className="table-wrap">
       <table className="ledger" aria-label="Strata and their areas" data-measured={current && table ? 'yes' : 'no'}>
         <thead>
           <tr>
@@ -122,11 +125,14 @@ export function StrataPanel() {
           </tfoot>
         ) : null}
       </table>
+      </div>
+      <ProblemList />
       {table ? (
         <p className="fine">
           Usable = mapped less buffered exclusions. Frame for buffers and plots: UTM {table.crs.utm_zone} (EPSG:{table.crs.epsg}).
         </p>
       ) : null}
+      <BackdropBox />
     </section>
   );
 }

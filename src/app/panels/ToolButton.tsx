@@ -14,7 +14,7 @@ export function ToolButton({ tool, label, hint, shortcut }: { tool: DrawTool; la
       onClick={() => plannerStore.setState({ tool: active ? 'none' : tool })}
     >
       <span>{label}</span>
-      {shortcut ? <kbd aria-hidden="true">{shortcut}</kbd> : null}
+      {shortcut ? <kbd title={`key ${shortcut}`}>{shortcut}</kbd> : null}
     </button>
   );
 }

@@ -11,7 +11,7 @@ import { siteFromInputs } from '../siteFromInputs';
 
 /** --format values and the file extension each is written as. */
 const FORMATS: Record<string, { ext: string; pdf?: 'report' | 'sheets'; what: string }> = {
-  gpx: { ext: 'gpx', what: 'GPX 1.1 waypoints for GPS units (with site: access points, strata and exclusions as tracks)' },
+  gpx: { ext: 'gpx', what: 'GPX 1.1 for GPS units: plot and access waypoints, strata and exclusion tracks' },
   kml: { ext: 'kml', what: 'KML 2.2, one folder per layer' },
   kmz: { ext: 'kmz', what: 'KMZ: KML with our plot icons' },
   csv: { ext: 'csv', what: 'plot table for spreadsheets and phones (UTF-8)' },
