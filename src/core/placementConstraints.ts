@@ -2,7 +2,7 @@ import Flatbush from 'flatbush';
 import type { Footprint } from './designTypes';
 import type { LocalFrame } from './localFrame';
 import { footprintShapeXY, type FootprintXY } from './placementFootprint';
-import { type StratumShapeXY, stratumShapesXY } from './placementStrata';
+import { EDGE_CHUNK, type StratumShapeXY, stratumShapesXY } from './placementStrata';
 import { convexSegmentDistance, isInRingFlat, pointSegmentDistance } from './segmentDistance';
 import type { ExclusionGeometry, ExclusionKind, LonLat, Site } from './types';
 
@@ -205,9 +205,14 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
     if (!knownInside && !st.contains(x, y)) return FIT_OUTSIDE_STRATUM;
     if (needsEdgeTest && st.edgeIndex) {
       const r = h + edgeGrid;
-      const near = st.edgeIndex.collides(x - r, y - r, x + r, y + r, (i) => {
-        const d = footprintDistance(x, y, i * 4, st.edges);
-        return edgeGrid > 0 ? d < edgeGrid : d <= 0;
+      const edges = st.edges;
+      const near = st.edgeIndex.collides(x - r, y - r, x + r, y + r, (k) => {
+        const end = Math.min(edges.length, (k + 1) * EDGE_CHUNK * 4);
+        for (let o = k * EDGE_CHUNK * 4; o < end; o += 4) {
+          const d = footprintDistance(x, y, o, edges);
+          if (edgeGrid > 0 ? d < edgeGrid : d <= 0) return true;
+        }
+        return false;
       });
       if (near) return FIT_NEAR_EDGE;
     }

@@ -14,10 +14,14 @@ export interface StratumShapeXY {
   cumulativeArea: Float64Array;
   /** Outer boundary segments x1, y1, x2, y2 (edges shared by two parts of the stratum left out). */
   edges: Float64Array;
+  /** Index of runs of {@link EDGE_CHUNK} consecutive segments of `edges` (item k: segments k·EDGE_CHUNK …). */
   edgeIndex: Flatbush | null;
   /** Whether a point lies in the stratum (not in a hole), by a triangle index built on first use. */
   contains(x: number, y: number): boolean;
 }
+
+/** Segments per box of a stratum's edge index. */
+export const EDGE_CHUNK = 8;
 
 const words = new Float64Array(1);
 const wordsU = new Uint32Array(words.buffer);
@@ -70,37 +74,65 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
   return site.strata.map((info) => {
     const parts = site.parts.filter((p) => p.stratum === info.key);
     const polygons = parts.flatMap((p) => (p.geometry.type === 'Polygon' ? [p.geometry.coordinates] : p.geometry.coordinates));
-    const tri: number[] = [];
-    const seg: number[] = [];
     const bbox: [number, number, number, number] = [Infinity, Infinity, -Infinity, -Infinity];
+    let vertexCount = 0;
+    for (const poly of polygons) for (const ring of poly) vertexCount += ring.length;
+    // Sized once: every ring edge is at most one segment; triangles are collected per polygon.
+    let seg = new Float64Array(vertexCount * 4);
+    let segCount = 0;
+    const triParts: Float64Array[] = [];
+    let triValues = 0;
     for (const poly of polygons) {
-      const flat: number[] = [];
+      let polyCount = 0;
+      for (const ring of poly) polyCount += ring.length;
+      const flat = new Float64Array(polyCount * 2);
       const holes: number[] = [];
+      let used = 0;
       for (let r = 0; r < poly.length; r++) {
         const ring = poly[r];
         let len = ring.length;
         if (len > 1 && ring[0][0] === ring[len - 1][0] && ring[0][1] === ring[len - 1][1]) len--;
         if (len < 3) continue;
-        if (r > 0) holes.push(flat.length / 2);
-        const start = flat.length;
+        if (r > 0) holes.push(used / 2);
+        const start = used;
         for (let i = 0; i < len; i++) {
-          const [x, y] = frame.toXY(ring[i][0], ring[i][1]);
-          flat.push(x, y);
+          const xy = frame.toXY(ring[i][0], ring[i][1]);
+          const x = xy[0];
+          const y = xy[1];
+          flat[used++] = x;
+          flat[used++] = y;
           if (x < bbox[0]) bbox[0] = x;
           if (y < bbox[1]) bbox[1] = y;
           if (x > bbox[2]) bbox[2] = x;
           if (y > bbox[3]) bbox[3] = y;
         }
-        for (let i = start; i < flat.length; i += 2) {
-          const j = i + 2 < flat.length ? i + 2 : start;
-          seg.push(flat[i], flat[i + 1], flat[j], flat[j + 1]);
+        for (let i = start; i < used; i += 2) {
+          const j = i + 2 < used ? i + 2 : start;
+          const o = segCount * 4;
+          seg[o] = flat[i];
+          seg[o + 1] = flat[i + 1];
+          seg[o + 2] = flat[j];
+          seg[o + 3] = flat[j + 1];
+          segCount++;
         }
       }
-      if (flat.length < 6) continue;
-      const idx = earcut(flat, holes.length ? holes : null, 2);
-      for (const k of idx) tri.push(flat[k * 2], flat[k * 2 + 1]);
+      if (used < 6) continue;
+      const coords = used === flat.length ? flat : flat.subarray(0, used);
+      const idx = earcut(coords, holes.length ? holes : null, 2);
+      const t = new Float64Array(idx.length * 2);
+      for (let k = 0; k < idx.length; k++) {
+        t[k * 2] = coords[idx[k] * 2];
+        t[k * 2 + 1] = coords[idx[k] * 2 + 1];
+      }
+      triParts.push(t);
+      triValues += t.length;
     }
-    const triangles = Float64Array.from(tri);
+    const triangles = new Float64Array(triValues);
+    let off = 0;
+    for (const t of triParts) {
+      triangles.set(t, off);
+      off += t.length;
+    }
     const nt = triangles.length / 6;
     const cumulativeArea = new Float64Array(nt);
     let total = 0;
@@ -109,20 +141,36 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
       total += Math.abs((triangles[o + 2] - triangles[o]) * (triangles[o + 5] - triangles[o + 1]) - (triangles[o + 4] - triangles[o]) * (triangles[o + 3] - triangles[o + 1])) / 2;
       cumulativeArea[t] = total;
     }
-    let segArr = Float64Array.from(seg);
+    seg = seg.subarray(0, segCount * 4);
     if (polygons.length > 1) {
-      const shared = sharedSegments(segArr);
-      const kept: number[] = [];
-      for (let i = 0; i < shared.length; i++) if (!shared[i]) kept.push(segArr[i * 4], segArr[i * 4 + 1], segArr[i * 4 + 2], segArr[i * 4 + 3]);
-      segArr = Float64Array.from(kept);
+      const shared = sharedSegments(seg);
+      let kept = 0;
+      for (let i = 0; i < segCount; i++) {
+        if (shared[i]) continue;
+        if (kept !== i) seg.copyWithin(kept * 4, i * 4, i * 4 + 4);
+        kept++;
+      }
+      seg = seg.slice(0, kept * 4);
     }
-    const ns = segArr.length / 4;
+    const ns = seg.length / 4;
+    // Runs of EDGE_CHUNK consecutive segments share one index box: far fewer boxes to sort and search.
+    const chunks = Math.ceil(ns / EDGE_CHUNK);
     let edgeIndex: Flatbush | null = null;
-    if (ns > 0) {
-      edgeIndex = new Flatbush(ns);
-      for (let i = 0; i < ns; i++) {
-        const o = i * 4;
-        edgeIndex.add(Math.min(segArr[o], segArr[o + 2]), Math.min(segArr[o + 1], segArr[o + 3]), Math.max(segArr[o], segArr[o + 2]), Math.max(segArr[o + 1], segArr[o + 3]));
+    if (chunks > 0) {
+      edgeIndex = new Flatbush(chunks);
+      for (let k = 0; k < chunks; k++) {
+        let x0 = Infinity;
+        let y0 = Infinity;
+        let x1 = -Infinity;
+        let y1 = -Infinity;
+        const end = Math.min(ns, (k + 1) * EDGE_CHUNK) * 4;
+        for (let o = k * EDGE_CHUNK * 4; o < end; o += 2) {
+          if (seg[o] < x0) x0 = seg[o];
+          if (seg[o] > x1) x1 = seg[o];
+          if (seg[o + 1] < y0) y0 = seg[o + 1];
+          if (seg[o + 1] > y1) y1 = seg[o + 1];
+        }
+        edgeIndex.add(x0, y0, x1, y1);
       }
       edgeIndex.finish();
     }
@@ -144,7 +192,7 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
       }
       return triIndex.collides(x, y, x, y, (t) => isInTriangle(triangles, t * 6, x, y));
     };
-    return { key: info.key, bbox, triangles, cumulativeArea, edges: segArr, edgeIndex, contains };
+    return { key: info.key, bbox, triangles, cumulativeArea, edges: seg, edgeIndex, contains };
   });
 }
 

@@ -1,5 +1,5 @@
 import type { Feature, Point } from 'geojson';
-import * as mgrs from 'mgrs';
+import * as mgrsModule from 'mgrs';
 import type { PlotProperties, PlotRole } from './designTypes';
 import type { PlacementConstraints } from './placementConstraints';
 
@@ -16,6 +16,10 @@ export interface PlotDraft {
   transect?: number;
   chainageM?: number;
 }
+
+// The package ships ESM (named exports) and a UMD build (default export) and bundlers pick either.
+const mgrsForward: (ll: [number, number], accuracy?: number) => string =
+  mgrsModule.forward ?? (mgrsModule as unknown as { default: typeof mgrsModule }).default.forward;
 
 function round(v: number, decimals: number): number {
   const f = 10 ** decimals;
@@ -43,7 +47,7 @@ export function plotRecord(c: PlacementConstraints, d: PlotDraft): Feature<Point
     utm_zone: c.frame.utmZone,
     easting: round(d.x, 1),
     northing: round(d.y, 1),
-    mgrs: mgrs.forward([lonRaw, latRaw], 5),
+    mgrs: mgrsForward([lonRaw, latRaw], 5),
     nearest_exclusion_m: near ? round(near.distanceM, 1) : null,
     nearest_exclusion_kind: near ? near.kind : null,
     design_density_per_ha: round(d.densityPerHa, 6),

@@ -58,7 +58,9 @@ interface PlanPlot {
  * Warnings: primaries with no result and no replacement, reserves used out of rank order (a reserve
  * of rank k used while a lower-ranked one of the same stratum is unused), reserves measured without
  * replacing anything, values given for rejected plots (ignored), fractional counts.
- * Every message names the file, row, column and value.
+ * Every message names the file, row, column and value; each Problem's `where` holds the spreadsheet
+ * `row`, the `column` and the plot id, with `featureIndex` the 0-based data row (−1 when the problem
+ * concerns a plot that has no row).
  */
 export function resultsReview(plots: PlotCollection, table: ResultsTable, variable: ResultsVariable): ResultsReview {
   const problems: Problem[] = [];

@@ -18,6 +18,18 @@ export interface UsableRegion {
   areaM2: number;
 }
 
+/** True when the bbox of a piece's shell overlaps `b`. */
+function pieceMeetsBox(piece: MultiPolygonXY[number], b: Box): boolean {
+  let [x0, y0, x1, y1] = [Infinity, Infinity, -Infinity, -Infinity];
+  for (const [x, y] of piece[0]) {
+    if (x < x0) x0 = x;
+    if (y < y0) y0 = y;
+    if (x > x1) x1 = x;
+    if (y > y1) y1 = y;
+  }
+  return x0 <= b[2] && x1 >= b[0] && y0 <= b[3] && y1 >= b[1];
+}
+
 const bboxCache = new WeakMap<Exclusion, { epsg: number; box: Box }>();
 
 function positionsOf(e: Exclusion): Position[] {
@@ -79,7 +91,9 @@ export function stratumUsableRegion(site: Site, stratumKey: string, frame: Local
     return b[0] <= box[2] && b[2] >= box[0] && b[1] <= box[3] && b[3] >= box[1];
   });
   const origin: [number, number] = [Math.round(box[0]), Math.round(box[1])];
-  const pieces = cutters.flatMap((e) => exclusionBufferPiecesXY(e, frame, origin));
+  const localBox: Box = [box[0] - origin[0], box[1] - origin[1], box[2] - origin[0], box[3] - origin[1]];
+  // Many-point exclusions spread over a site: only the discs that reach this stratum go to the clipper.
+  const pieces = cutters.flatMap((e) => exclusionBufferPiecesXY(e, frame, origin)).filter((piece) => pieceMeetsBox(piece, localBox));
   if (pieces.length === 0 && polygons.length === 1) {
     const geometry: MultiPolygon = { type: 'MultiPolygon', coordinates: polygons };
     return { xy: partsXY, geometry, areaM2: polygonAreaM2(geometry) };

@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import type { Feature, FeatureCollection } from 'geojson';
 import { describe, expect, it } from 'vitest';
 import type { Site } from '../core/types';
@@ -24,6 +28,18 @@ function sampleSite(): Site {
     access: [{ id: 'a1', name: 'Barrière est (invented)', kind: 'gate', lon: -122.418, lat: 37.771 }],
     boundary: null,
   };
+}
+
+// The GPX 1.1 schema as published by Topografix (copy in /work/shared/schemas, see REFERENCES.md).
+function xmllint(text: string): string {
+  const file = join(mkdtempSync(join(tmpdir(), 'stratplot-out-')), 'out.gpx');
+  writeFileSync(file, text);
+  try {
+    execFileSync('xmllint', ['--noout', '--schema', '/work/shared/schemas/gpx-1.1.xsd', file], { stdio: 'pipe' });
+    return 'valid';
+  } catch (error) {
+    return String((error as { stderr?: Buffer }).stderr ?? error);
+  }
 }
 
 const PLOT_LAYER: Record<string, string | undefined> = { zip: 'plots', kml: 'plots', kmz: 'plots', gpkg: 'plots' };
@@ -62,6 +78,14 @@ describe('designOutputBytes', () => {
       const strata: FeatureCollection = await parseFeatureFile(`out.${ext}`, bytes, { layer: 'strata' });
       expect(strata.features.map((f) => f.properties?.stratum)).toEqual([...NON_ASCII_NAMES]);
     }
+  });
+
+  it('carries the safety note in the GPX metadata and the KML document', async () => {
+    const gpx = new TextDecoder().decode(await designOutputBytes('out.gpx', samplePlots(), sampleSite()));
+    expect(gpx).toContain('<desc>Plot positions are a plan, not a guarantee of safe ground.');
+    expect(xmllint(gpx)).toBe('valid');
+    const kml = new TextDecoder().decode(await designOutputBytes('out.kml', samplePlots(), sampleSite()));
+    expect(kml).toContain('<description>Plot positions are a plan, not a guarantee of safe ground.');
   });
 
   it('labels GPX waypoints of access points and tracks of exclusions for the crew', async () => {

@@ -14,6 +14,12 @@ import { fieldSheetsPdf } from './fieldSheetsPdf';
 import { plotsToCsv } from './plotsToCsv';
 import { siteLayers } from './siteLayers';
 
+/** Caution carried in the GPX and KML files crews load on their devices (our wording). */
+export const FIELD_SAFETY_NOTE =
+  'Plot positions are a plan, not a guarantee of safe ground. Mapped buffers around cliffs, water and ' +
+  'hazards are a planning aid: follow local codes, the landholder\'s permission and your employer\'s ' +
+  'safety plan, and skip any plot that is unsafe on the day (use the next reserve in rank order).';
+
 /** File extensions {@link designOutputBytes} writes, with what each holds. */
 export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
   geojson: 'GeoJSON plot file (with the design summary)',
@@ -89,12 +95,13 @@ export async function designOutputBytes(
     case 'gpx': {
       const all: FeatureCollection = { type: 'FeatureCollection', features: layers.flatMap((l) => l.features.features) };
       const version = collection.design?.software?.version;
-      return enc.encode(featuresToGpx(all, { name, creator: `stratplot${version ? ` ${version}` : ''}`, labels: gpxLabels }));
+      const creator = `stratplot${version ? ` ${version}` : ''}`;
+      return enc.encode(featuresToGpx(all, { name, description: FIELD_SAFETY_NOTE, creator, labels: gpxLabels }));
     }
     case 'kml':
-      return enc.encode(featuresToKml(layers, { name }));
+      return enc.encode(featuresToKml(layers, { name, description: FIELD_SAFETY_NOTE }));
     case 'kmz':
-      return featuresToKmz(layers, { name });
+      return featuresToKmz(layers, { name, description: FIELD_SAFETY_NOTE });
     case 'zip': {
       const files: Record<string, Uint8Array> = {};
       for (const l of layers) Object.assign(files, featuresToShapefileFiles(l.features, { layerName: l.name }));

@@ -16,6 +16,8 @@ export interface GpxLabels {
 export interface GpxWriteOptions {
   /** Name of the file's metadata (e.g. the site). */
   name?: string;
+  /** Description in the file's metadata (e.g. the safety note). */
+  description?: string;
   creator?: string;
   /** Labels per feature; default: name/plot_id/id, desc/stratum/kind, notes, role. */
   labels?: (f: Feature, index: number) => GpxLabels;
@@ -108,7 +110,9 @@ export function featuresToGpx(fc: FeatureCollection, options: GpxWriteOptions = 
         throw new InputError(`feature ${i}: a GeometryCollection cannot be written to GPX; split it first`);
     }
   });
-  const meta = options.name ? `  <metadata><name>${xmlText(options.name)}</name></metadata>\n` : '';
+  const metaName = options.name ? `<name>${xmlText(options.name)}</name>` : '';
+  const metaDesc = options.description ? `<desc>${xmlText(options.description)}</desc>` : '';
+  const meta = metaName || metaDesc ? `  <metadata>${metaName}${metaDesc}</metadata>\n` : '';
   return (
     '<?xml version="1.0" encoding="UTF-8"?>\n' +
     `<gpx version="1.1" creator="${xmlText(options.creator ?? 'stratplot')}" xmlns="http://www.topografix.com/GPX/1/1" ` +

@@ -13,6 +13,8 @@ export interface KmlLayer {
 export interface KmlWriteOptions {
   /** Document name (e.g. the site). */
   name?: string;
+  /** Document description (e.g. the safety note). */
+  description?: string;
   /** Icon hrefs for primary and reserve plots (set by the KMZ writer to its embedded icons). */
   iconHref?: { primary: string; reserve: string };
 }
@@ -158,6 +160,7 @@ export function featuresToKml(layers: KmlLayer[] | FeatureCollection, options: K
   return (
     '<?xml version="1.0" encoding="UTF-8"?>\n<kml xmlns="http://www.opengis.net/kml/2.2">\n<Document>\n' +
     `<name>${xmlText(options.name ?? 'stratplot')}</name>\n` +
+    (options.description ? `<description>${xmlText(options.description)}</description>\n` : '') +
     `${plotStyles(options.iconHref)}\n${[...styles.values()].join('\n')}\n${schema}\n` +
     `${folders.join('\n')}\n</Document>\n</kml>\n`
   );

@@ -13,10 +13,13 @@ export function sqlJsLoad(init?: () => Promise<SqlJsStatic>): Promise<SqlJsStati
   const isNode = typeof process !== 'undefined' && Boolean(process.versions?.node);
   if (!isNode) return Promise.reject(new InputError('GeoPackage support needs sql.js; this build did not provide it'));
   nodeDefault ??= (async () => {
-    const { createRequire } = await import(/* @vite-ignore */ 'node:module');
+    // Specifiers held in variables so browser bundlers leave these Node-only imports alone.
+    const moduleId = 'node:module';
+    const sqlJsId = 'sql.js';
+    const { createRequire } = (await import(/* @vite-ignore */ moduleId)) as typeof import('node:module');
     const require = createRequire(import.meta.url);
     const wasm = require.resolve('sql.js/dist/sql-wasm.wasm');
-    const mod = (await import(/* @vite-ignore */ 'sql.js')) as unknown as { default?: (c: object) => Promise<SqlJsStatic> };
+    const mod = (await import(/* @vite-ignore */ sqlJsId)) as unknown as { default?: (c: object) => Promise<SqlJsStatic> };
     const initSqlJs = (mod.default ?? mod) as unknown as (c: object) => Promise<SqlJsStatic>;
     return initSqlJs({ locateFile: () => wasm });
   })();

@@ -38,7 +38,7 @@ describe('importing files and finishing drawings', () => {
     const poly = geodesic.Geodesic.WGS84.Polygon(false);
     for (const [lon, lat] of ring.slice(0, -1)) poly.AddPoint(lat, lon);
     // (ring positions are [lon, lat] pairs)
-    expect(polygonAreaM2(part.geometry)).toBeCloseTo(Math.abs(poly.Compute(false, true).area), 2);
+    expect(polygonAreaM2(part.geometry)).toBeCloseTo(Math.abs(poly.Compute(false, true).area ?? Number.NaN), 2);
     drawFinish(store, 'cliff', { type: 'LineString', coordinates: [[150, -35], [150.002, -35]] });
     expect(store.getState().site.exclusions[0]).toMatchObject({ kind: 'cliff', bufferM: 15 });
     expect(() => drawFinish(store, 'hazard', { type: 'LineString', coordinates: [[150, -35], [150.002, -35]] })).toThrow('the hazard tool draws a Point, not a LineString');

@@ -65,6 +65,18 @@ export const SCENARIOS = [
       await page.getByRole('button', { name: /Mark exclusions/ }).click();
       await page.waitForSelector('text=Buffers here are planning distances');
       await shot('1-exclusions-sheet');
+      // Tablet, portrait: the map on top, the sheet below it.
+      await page.setViewportSize({ width: 820, height: 1180 });
+      await page.getByRole('button', { name: /Map strata/ }).click();
+      await mapIdle(page);
+      await shot('1-tablet');
+      const unnamed = await page.evaluate(() =>
+        [...document.querySelectorAll('button, input, select')].filter((el) => {
+          const named = el.getAttribute('aria-label') || el.textContent?.trim() || el.getAttribute('title') || (el.id && document.querySelector(`label[for="${el.id}"]`));
+          return !named && el.getAttribute('type') !== 'file';
+        }).length,
+      );
+      check(unnamed === 0, `${unnamed} controls have no accessible name`);
     },
   },
   {

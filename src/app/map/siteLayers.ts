@@ -16,10 +16,11 @@ export function siteLayersAdd(map: MapLibreMap): void {
     map.addSource(id, { type: 'geojson', data: EMPTY, promoteId: id === 'sp-plots' || id === 'sp-footprints' ? 'plot_id' : 'id' });
   }
   const c = kindColour as never;
-  map.addLayer({ id: 'sp-strata-fill', type: 'fill', source: 'sp-strata', paint: { 'fill-color': ['get', 'colour'], 'fill-opacity': 0.32 } });
+  map.addLayer({ id: 'sp-strata-fill', type: 'fill', source: 'sp-strata', paint: { 'fill-color': ['get', 'colour'], 'fill-opacity': 0.28 } });
+  map.addLayer({ id: 'sp-buffers-tint', type: 'fill', source: 'sp-buffers', paint: { 'fill-color': '#fbf7ea', 'fill-opacity': 0.45 } });
   map.addLayer({ id: 'sp-buffers-hatch', type: 'fill', source: 'sp-buffers', paint: { 'fill-pattern': ['concat', 'hatch-', ['get', 'kind']] } });
-  map.addLayer({ id: 'sp-buffers-edge', type: 'line', source: 'sp-buffers', paint: { 'line-color': c, 'line-width': 1, 'line-dasharray': [3, 2] } });
-  map.addLayer({ id: 'sp-strata-line', type: 'line', source: 'sp-strata', paint: { 'line-color': ['get', 'colour'], 'line-width': 1.6 } });
+  map.addLayer({ id: 'sp-buffers-edge', type: 'line', source: 'sp-buffers', paint: { 'line-color': c, 'line-width': 1.6, 'line-dasharray': [3, 2] } });
+  map.addLayer({ id: 'sp-strata-line', type: 'line', source: 'sp-strata', paint: { 'line-color': ['get', 'colour'], 'line-width': 2 } });
   map.addLayer({
     id: 'sp-exclusions-fill',
     type: 'fill',

@@ -12,11 +12,11 @@ const COLUMNS: [SortKey, string][] = [
   ['role', 'Role'],
   ['rank', 'Rank'],
   ['status', 'Status'],
-  ['nearest_exclusion_m', 'Nearest excl. m'],
+  ['nearest_exclusion_m', 'To excl. m'],
 ];
 
 function statusOf(p: PlotProperties): string {
-  return p.status === 'rejected' ? 'rejected' : p.status === 'promoted' ? `promoted (for ${p.replaces ?? '?'})` : 'planned';
+  return p.status === 'rejected' ? 'rejected' : p.status === 'promoted' ? `promoted ← ${p.replaces ?? '?'}` : 'planned';
 }
 
 function zoomTo(p: PlotProperties): void {
@@ -28,6 +28,8 @@ function zoomTo(p: PlotProperties): void {
 export function PlotsPanel() {
   const result = usePlanner((s) => s.result);
   const rejections = usePlanner((s) => s.rejections);
+  const strata = usePlanner((s) => s.site.strata);
+  const code = useMemo(() => new Map(strata.map((s) => [s.key, s.code])), [strata]);
   const selected = usePlanner((s) => (s.selection?.kind === 'plot' ? s.selection.id : null));
   const [sort, setSort] = useState<{ key: SortKey; up: boolean }>({ key: 'plot_id', up: true });
   const [filter, setFilter] = useState('');
@@ -79,6 +81,7 @@ export function PlotsPanel() {
           <option value="reserve">reserves</option>
         </select>
       </div>
+      <div className="table-wrap">
       <table className="ledger plots" aria-label="Plots">
         <thead>
           <tr>
@@ -100,7 +103,7 @@ export function PlotsPanel() {
             <Fragment key={p.plot_id}>
               <tr data-plot={p.plot_id} data-status={p.status ?? 'planned'} className={selected === p.plot_id ? 'row-on' : undefined}>
                 <td className="mono">{p.plot_id}</td>
-                <td>{p.stratum}</td>
+                <td title={p.stratum}>{code.get(p.stratum) ?? p.stratum}</td>
                 <td>{p.role}</td>
                 <td className="num">{p.rank}</td>
                 <td className="plot-status">{statusOf(p)}</td>
@@ -127,6 +130,7 @@ export function PlotsPanel() {
           ))}
         </tbody>
       </table>
+      </div>
       {rejections.length ? (
         <>
           <h3>Field decisions</h3>

@@ -27,6 +27,7 @@ write('broken.json', '{"type": "FeatureCollection",\n "features": [,]}');
 write('points.geojson', collection(feature({ stratum: 'Heath' }, { type: 'Point', coordinates: [X, Y] })));
 write('bowtie.geojson', collection(feature({ stratum: 'Heath' }, { type: 'Polygon', coordinates: [[[X, Y], [X + 0.002, Y + 0.002], [X + 0.002, Y], [X, Y + 0.002], [X, Y]]] })));
 write('empty.geojson', collection());
+write('boundary.geojson', collection(feature({ name: 'Invented reserve' }, box(X, Y, 0.009, 0.004))));
 
 async function cli(...argv: string[]) {
   let out = '';
@@ -82,5 +83,15 @@ describe('stratplot areas', () => {
     expect(code).toBe(2);
     expect(out).toBe('');
     expect(err).toBe(`${line}\n`);
+  });
+
+  it('warns on stderr of ground inside the boundary that no stratum covers, and still exits 0', async () => {
+    // The boundary reaches 0.001° east of the dune and 0.001°/0.002° north of the strata.
+    const { code, out, err } = await cli('strata.geojson', '--boundary', 'boundary.geojson', '--json');
+    expect(code).toBe(0);
+    expect(JSON.parse(out).strata).toHaveLength(2);
+    const lines = err.trim().split('\n');
+    expect(lines.length).toBeGreaterThan(0);
+    for (const line of lines) expect(line).toMatch(/^warning: boundary\.geojson: boundary 0: gap of [\d.]+ m² inside the site boundary that no stratum covers at 150\.5\d{4}, -35\.0\d{4}$/);
   });
 });

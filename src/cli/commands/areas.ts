@@ -4,7 +4,7 @@ import { type StratumAreaTable, stratumAreaTable } from '../../core/stratumAreaT
 import type { CliIo, Command } from '../command';
 import { siteFromInputs } from '../siteFromInputs';
 
-const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--json]
+const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--boundary FILE] [--json]
 
 Mapped and usable area of every stratum, measured on the WGS84 ellipsoid (geodesic edges,
 Karney 2013). Usable area is the stratum less its exclusions widened by their buffer_m (clipped
@@ -13,6 +13,7 @@ in the site's UTM zone, then measured on the ellipsoid again).
 Options:
   --field NAME     property that names each feature's stratum (default: stratum)
   --exclude FILE   exclusions (cliff, water, private, hazard, other) with buffer_m; repeatable
+  --boundary FILE  site boundary (one polygon): warns of ground inside it that no stratum covers
   --json           print {"strata":[{stratum, features, area_m2, area_ha, share, usable_m2}],
                    "total_m2", "crs":{utm_zone, epsg}}; m² to 0.001, ha to 1e-7, share to 1e-9
 
@@ -62,7 +63,7 @@ function argsParse(argv: string[]) {
   try {
     return parseArgs({
       args: argv,
-      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, json: { type: 'boolean' } },
+      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' } },
       allowPositionals: true,
       strict: true,
     });
@@ -84,7 +85,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 1) {
     throw new InputError(positionals.length === 0 ? 'give one strata file (see stratplot areas --help)' : `give one strata file, not ${positionals.length}: ${positionals.join(' ')}`);
   }
-  const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude });
+  const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude, boundary: values.boundary });
   for (const w of warnings) io.err(`warning: ${w}\n`);
   const table = stratumAreaTable(site);
   io.out(values.json ? areasJson(table) : areasText(table));

@@ -62,6 +62,11 @@ describe('stratplot export', () => {
     expect(r).toEqual({ code: 2, out: '', err: 'stratplot export: --format "dxf" is not one of gpx, kml, kmz, csv, geojson, shp, gpkg, sheets, report\n' });
   });
 
+  it('refuses an output name whose extension does not match the format', async () => {
+    const r = await run(workspace(), 'plots.geojson', '--format', 'shp', '--out', 'site.shp');
+    expect(r).toEqual({ code: 2, out: '', err: 'stratplot export: --out site.shp: a shp export is written as .zip; name the file *.zip\n' });
+  });
+
   it('says that exclusions need the strata file', async () => {
     const r = await run(workspace(), 'plots.geojson', '--format', 'kml', '--out', 'x.kml', '--exclude', 'excl.geojson');
     expect(r.err).toBe('stratplot export: --exclude and --access need --strata (the map the design was made on)\n');

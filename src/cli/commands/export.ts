@@ -77,6 +77,11 @@ export const exportCommand: Command = {
     if (!format) throw new InputError(`--format "${formatName}" is not one of ${Object.keys(FORMATS).join(', ')}`);
     const out = values.out as string | undefined;
     if (!out) throw new InputError('--out FILE is required');
+    const outExt = out.includes('.') ? out.slice(out.lastIndexOf('.') + 1).toLowerCase() : '';
+    const allowed = format.ext === 'geojson' ? ['geojson', 'json'] : [format.ext];
+    if (!allowed.includes(outExt)) {
+      throw new InputError(`--out ${out}: a ${formatName.toLowerCase()} export is written as .${format.ext}; name the file *.${format.ext}`);
+    }
     const paper = (values.paper as string | undefined)?.toLowerCase() ?? 'a4';
     if (paper !== 'a4' && paper !== 'letter') throw new InputError(`--paper must be a4 or letter, got "${values.paper}"`);
     let surveyDate: Date | undefined;

@@ -92,7 +92,6 @@ export const trapsCommand: Command = {
     const errors = siteValidate(site).filter((p) => p.severity === 'error');
     if (errors.length) throw new InputError(`invalid map: ${errors[0].message}`);
     const seed = o.seed === undefined ? rngSeedFromClock(Date.now()) : num(o.seed, '--seed');
-    if (o.seed === undefined) io.err(`seed ${seed} (give --seed ${seed} to repeat this layout)\n`);
     const layout = trapGridsPlace(site, {
       gridsPerStratum: gridsOption(o.grids, strata.map((s) => s.key)),
       rows: num(o.rows, '--rows'),
@@ -103,6 +102,7 @@ export const trapsCommand: Command = {
       angleDeg: num(o.angle, '--angle', 0),
       seed,
     });
+    if (o.seed === undefined) io.err(`seed ${seed} (give --seed ${seed} to repeat this layout)\n`);
     if (o.out) {
       const bytes = await designOutputBytes(o.out, layout, site);
       try {

@@ -1,0 +1,96 @@
+import { useId } from 'react';
+import type { DesignSettings, PlotCollection } from '../../core/designTypes';
+import { resultsDesignPatch, resultsOptionsSet } from '../../state/resultsStore';
+import { fmtValue } from './resultsFormat';
+import { resultsStore, useResults } from './resultsStoreInstance';
+
+/** Plots needed next season for a target 95 % CI half-width, proportional and Neyman, with "Use in design". */
+export function NextSeasonBox({ collection, onUseInDesign }: { collection: PlotCollection | null; onUseInDesign: (patch: Partial<DesignSettings>) => void }) {
+  const id = useId();
+  const target = useResults((s) => s.target);
+  const next = useResults((s) => s.next);
+  const nextSd = useResults((s) => s.nextSd);
+  const nextError = useResults((s) => s.nextError);
+  const shown = target.relative ? Number((target.value * 100).toPrecision(6)) : target.value;
+  const setTarget = (value: number, relative: boolean) => {
+    if (value > 0 && Number.isFinite(value)) resultsOptionsSet(resultsStore, { target: { value, relative } }, collection);
+  };
+  return (
+    <div className="results-next">
+      <div className="field">
+        <label htmlFor={`${id}-t`}>Target 95 % CI half-width</label>
+        <span className="field-input">
+          ±
+          <input
+            id={`${id}-t`}
+            className="num-input"
+            type="number"
+            min={0}
+            step="any"
+            defaultValue={shown}
+            key={`${target.relative}-${shown}`}
+            onBlur={(e) => setTarget(Number(e.currentTarget.value) / (target.relative ? 100 : 1), target.relative)}
+          />
+          <select aria-label="Target given as" value={target.relative ? 'relative' : 'absolute'} onChange={(e) => setTarget(e.currentTarget.value === 'relative' ? target.value / 100 : target.value * 100, e.currentTarget.value === 'relative')}>
+            <option value="relative">% of this season’s mean</option>
+            <option value="absolute">in the variable’s units</option>
+          </select>
+        </span>
+      </div>
+      {nextError ? <p className="problem">Next season cannot be sized: {nextError}</p> : null}
+      {next ? (
+        <>
+          <table className="ledger compact" aria-label="Plots needed next season">
+            <thead>
+              <tr>
+                <th scope="col">Allocation</th>
+                <th scope="col" className="num">Plots</th>
+                {next.proportional.plots.map((p) => (
+                  <th key={p.stratum} scope="col" className="num">
+                    {p.stratum}
+                  </th>
+                ))}
+                <th scope="col">
+                  <span className="sr-only">Action</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {[next.proportional, next.neyman].map((o) => (
+                <tr key={o.allocation} data-allocation={o.allocation}>
+                  <th scope="row">{o.allocation === 'neyman' ? 'Neyman' : 'proportional'}</th>
+                  <td className="num">{o.n}</td>
+                  {o.plots.map((p) => (
+                    <td key={p.stratum} className="num">
+                      {p.plots}
+                    </td>
+                  ))}
+                  <td className="actions">
+                    <button
+                      type="button"
+                      aria-label={`Use ${o.n} plots, ${o.allocation} allocation, in the design`}
+                      onClick={() => {
+                        const patch = resultsDesignPatch({ next, nextSd }, o.allocation as 'proportional' | 'neyman');
+                        if (patch) onUseInDesign(patch);
+                      }}
+                    >
+                      Use in design
+                    </button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="fine">
+            Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes use z = 1.96 (Cochran 1977 §5.9–5.10, section numbers from memory).
+          </p>
+          <ul className="fine">
+            {next.notes.map((n) => (
+              <li key={n}>{n}</li>
+            ))}
+          </ul>
+        </>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,310 @@
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import type { DesignSettings, PlotCollection } from '../core/designTypes';
+import { type EstimateReport, estimateFromResults } from '../core/estimateFromResults';
+import { isInputError } from '../core/InputError';
+import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/nextSeasonSampleSize';
+import { type ResultKind, resultsKindGuess } from '../core/resultsCellParse';
+import { RESULTS_REPLACED_BY_COLUMN, RESULTS_STATUS_COLUMN, type ResultsTable, resultsReview } from '../core/resultsCheck';
+import type { Problem } from '../core/types';
+import { parseResultsCsv } from '../io/parseResultsCsv';
+
+/** Which results columns mean what; every other column is a variable of the given kind. */
+export interface ResultsMapping {
+  idColumn: string;
+  statusColumn: string | null;
+  replacedByColumn: string | null;
+  kinds: Record<string, ResultKind>;
+}
+
+/** A recapture grid as typed in the form (text, so half-typed numbers stay as they are). */
+export interface RecaptureGridForm {
+  id: string;
+  name: string;
+  marked: string;
+  caught: string;
+  recaptured: string;
+  stripM: string;
+  /** How the grid's extent is given: its area, or stations in rows and columns. */
+  by: 'stations' | 'area';
+  areaHa: string;
+  spacingM: string;
+  rows: string;
+  cols: string;
+}
+
+/** Plot colours for the map: one colour per measured plot and the value range of the ramp. */
+export interface ResultsColouring {
+  variable: string;
+  colours: Record<string, string>;
+  min: number;
+  max: number;
+}
+
+export interface ResultsState {
+  fileName: string | null;
+  table: ResultsTable | null;
+  /** Why the last file could not be read (the file is then not loaded). */
+  loadError: string | null;
+  mapping: ResultsMapping | null;
+  variable: string | null;
+  collapse: boolean;
+  perHa: boolean;
+  problems: Problem[];
+  report: EstimateReport | null;
+  /** Why no estimate is shown (errors in the results, a stratum without plots...). */
+  estimateError: string | null;
+  /** Valid values of the chosen variable by plot id: { plot_id: { variable: value } }. */
+  plotValues: Record<string, Record<string, number>>;
+  target: { value: number; relative: boolean };
+  next: NextSeasonSampleSize | null;
+  /** The SDs next season's figures use, by stratum (observed, or of the collapsed group). */
+  nextSd: Record<string, number>;
+  nextError: string | null;
+  colourOn: boolean;
+  colouring: ResultsColouring | null;
+  grids: RecaptureGridForm[];
+}
+
+export type ResultsStore = StoreApi<ResultsState>;
+
+/** A new, empty results store (zustand vanilla): no file, ±10 % target, one empty recapture grid. */
+export function resultsStoreCreate(): ResultsStore {
+  return createStore<ResultsState>()(() => ({
+    fileName: null,
+    table: null,
+    loadError: null,
+    mapping: null,
+    variable: null,
+    collapse: false,
+    perHa: false,
+    problems: [],
+    report: null,
+    estimateError: null,
+    plotValues: {},
+    target: { value: 0.1, relative: true },
+    next: null,
+    nextSd: {},
+    nextError: null,
+    colourOn: false,
+    colouring: null,
+    grids: [recaptureGridBlank(1)],
+  }));
+}
+
+/** An empty recapture form named "Grid k", for a grid of stations. */
+export function recaptureGridBlank(k: number): RecaptureGridForm {
+  return { id: `grid-${k}`, name: `Grid ${k}`, marked: '', caught: '', recaptured: '', stripM: '', by: 'stations', areaHa: '', spacingM: '', rows: '', cols: '' };
+}
+
+function errorText(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}
+
+/** The column holding the most ids of the plot file (ties: plot_id, then the leftmost). */
+function idColumnGuess(table: ResultsTable, collection: PlotCollection): string {
+  const ids = new Set(collection.features.map((f) => f.properties.plot_id));
+  let best = table.columns.includes('plot_id') ? 'plot_id' : table.columns[0];
+  let bestHits = -1;
+  for (const c of table.columns) {
+    const hits = table.rows.reduce((a, r) => a + (ids.has((r.cells[c] ?? '').trim()) ? 1 : 0), 0);
+    if (hits > bestHits || (hits === bestHits && c === 'plot_id')) {
+      best = c;
+      bestHits = hits;
+    }
+  }
+  return best;
+}
+
+/** The first line's names, split on its most used delimiter: only to find some column to parse with. */
+function headerNames(bytes: Uint8Array | string): string[] {
+  const text = (typeof bytes === 'string' ? bytes : new TextDecoder().decode(bytes)).replace(/^\uFEFF/, '');
+  const line = text.split(/\r?\n/, 1)[0] ?? '';
+  const d = [';', ',', '\t'].reduce((a, b) => (line.split(b).length > line.split(a).length ? b : a), ',');
+  return line.split(d).map((c) => c.trim().replace(/^"|"$/g, ''));
+}
+
+/**
+ * Reads a results CSV (comma, semicolon or tab; BOM; decimal comma — see parseResultsCsv), guesses
+ * the id, status and replacement columns and the kind of every other column, picks the first
+ * variable and estimates it. A file that cannot be read leaves the previous one loaded and sets
+ * `loadError` to a message naming the file and row.
+ */
+export function resultsLoad(store: ResultsStore, fileName: string, bytes: Uint8Array | string, collection: PlotCollection | null): void {
+  let table: ResultsTable;
+  try {
+    try {
+      table = parseResultsCsv(fileName, bytes);
+    } catch (e) {
+      if (!isInputError(e) || !e.message.includes('no column "plot_id"')) throw e;
+      table = parseResultsCsv(fileName, bytes, { idColumn: headerNames(bytes)[0] });
+    }
+  } catch (e) {
+    store.setState({ loadError: errorText(e) });
+    return;
+  }
+  const idColumn = collection ? idColumnGuess(table, collection) : table.idColumn;
+  const find = (re: RegExp) => table.columns.find((c) => c !== idColumn && re.test(c)) ?? null;
+  const statusColumn = find(/^status$/i) ?? find(/status|visit/i);
+  const replacedByColumn = find(/^replaced_by$/i) ?? find(/replac/i);
+  const kinds: Record<string, ResultKind> = {};
+  for (const c of table.columns) {
+    if (c === idColumn || c === statusColumn || c === replacedByColumn) continue;
+    kinds[c] = resultsKindGuess(c, table.rows.map((r) => r.cells[c] ?? ''));
+  }
+  const variable = Object.keys(kinds)[0] ?? null;
+  store.setState({ fileName, table, loadError: null, mapping: { idColumn, statusColumn, replacedByColumn, kinds }, variable });
+  resultsRecompute(store, collection);
+}
+
+/** Changes which column is the id, status or replacement column, or a variable's kind; re-estimates. */
+export function resultsMappingSet(store: ResultsStore, patch: Partial<Omit<ResultsMapping, 'kinds'>> & { kinds?: Record<string, ResultKind> }, collection: PlotCollection | null): void {
+  const s = store.getState();
+  if (!s.mapping || !s.table) return;
+  const m = { ...s.mapping, ...patch, kinds: { ...s.mapping.kinds, ...patch.kinds } };
+  const roles = new Set([m.idColumn, m.statusColumn, m.replacedByColumn]);
+  for (const c of s.table.columns) {
+    if (roles.has(c)) delete m.kinds[c];
+    else if (m.kinds[c] === undefined) m.kinds[c] = resultsKindGuess(c, s.table.rows.map((r) => r.cells[c] ?? ''));
+  }
+  const variable = s.variable !== null && m.kinds[s.variable] !== undefined ? s.variable : (Object.keys(m.kinds)[0] ?? null);
+  store.setState({ mapping: m, variable });
+  resultsRecompute(store, collection);
+}
+
+/** Chooses the variable to estimate, the collapse and per-ha options, the next-season target, or the map colouring. */
+export function resultsOptionsSet(
+  store: ResultsStore,
+  patch: Partial<Pick<ResultsState, 'variable' | 'collapse' | 'perHa' | 'target' | 'colourOn'>>,
+  collection: PlotCollection | null,
+): void {
+  store.setState(patch);
+  resultsRecompute(store, collection);
+}
+
+/** Sets the plot colouring the map shows (worked out by the app's colour ramp). */
+export function resultsColouringSet(store: ResultsStore, colouring: ResultsColouring | null): void {
+  store.setState({ colouring });
+}
+
+/**
+ * The table as the core reads it: the chosen status and replacement columns under the names the
+ * checks know, and any other column carrying one of those names moved aside so it is not read.
+ */
+function tableForCore(t: ResultsTable, m: ResultsMapping): { table: ResultsTable; coreName: (c: string) => string } {
+  const rename = new Map<string, string>();
+  if (m.statusColumn) rename.set(m.statusColumn, RESULTS_STATUS_COLUMN);
+  if (m.replacedByColumn) rename.set(m.replacedByColumn, RESULTS_REPLACED_BY_COLUMN);
+  const reserved = new Set([RESULTS_STATUS_COLUMN, RESULTS_REPLACED_BY_COLUMN]);
+  const coreName = (c: string) => rename.get(c) ?? (reserved.has(c) ? `${c} (not used)` : c);
+  const rows = t.rows.map((r) => ({ row: r.row, cells: Object.fromEntries(Object.entries(r.cells).map(([c, v]) => [coreName(c), v])) }));
+  return { table: { ...t, columns: t.columns.map(coreName), idColumn: coreName(m.idColumn), rows }, coreName };
+}
+
+/** Puts the user's column names back into problems the core worded with its own names. */
+function problemsInUserNames(problems: Problem[], m: ResultsMapping): Problem[] {
+  const back: [string, string | null][] = [
+    [RESULTS_STATUS_COLUMN, m.statusColumn],
+    [RESULTS_REPLACED_BY_COLUMN, m.replacedByColumn],
+  ];
+  return problems.map((p) => {
+    let message = p.message;
+    let column = p.where.column;
+    for (const [core, user] of back) {
+      if (!user || user === core) continue;
+      message = message.split(`column ${core}:`).join(`column ${user}:`).split(`rejected plot's ${core}`).join(`rejected plot's ${user}`);
+      if (column === core) column = user;
+    }
+    return { ...p, message, where: { ...p.where, column } };
+  });
+}
+
+/** Re-runs the checks, the estimate and next season's sizes for the current file, mapping and options. */
+export function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
+  const s = store.getState();
+  const cleared = { problems: [], report: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null };
+  if (!s.table || !s.mapping) return store.setState({ ...cleared, estimateError: null });
+  if (!collection) return store.setState({ ...cleared, estimateError: 'Make a design (or open a plan with plots) first: results are matched to its plots by id.' });
+  if (s.variable === null || s.mapping.kinds[s.variable] === undefined) {
+    return store.setState({ ...cleared, estimateError: 'Choose a column to estimate: this file has no measurement columns besides the id, status and replacement columns.' });
+  }
+  const kind = s.mapping.kinds[s.variable];
+  const { table, coreName } = tableForCore(s.table, s.mapping);
+  const value = coreName(s.variable);
+  const review = resultsReview(collection, table, { column: value, kind });
+  const problems = problemsInUserNames(review.problems, s.mapping);
+  const plotValues: Record<string, Record<string, number>> = {};
+  for (const o of review.observations) plotValues[o.plotId] = { [s.variable]: o.value };
+  let report: EstimateReport | null = null;
+  let estimateError: string | null = null;
+  try {
+    report = estimateFromResults(collection, table, { value, kind, collapse: s.collapse, perHa: s.perHa });
+    report = { ...report, variable: s.variable };
+  } catch (e) {
+    const errors = problems.filter((p) => p.severity === 'error').length;
+    estimateError = errors > 0 ? `No estimate until the ${errors} error${errors > 1 ? 's' : ''} listed under Problems ${errors > 1 ? 'are' : 'is'} fixed in the file.` : errorText(e);
+  }
+  const nextPart = report ? nextSeasonFor(collection, table, value, kind, s, report) : { next: null, nextSd: {}, nextError: null };
+  store.setState({ problems, report, estimateError, plotValues, ...nextPart, colouring: s.colourOn ? s.colouring : null });
+}
+
+/**
+ * Next season's sizes from this season's per-stratum SDs. Strata too small for an SD of their own
+ * borrow the SD of the collapsed group they were merged into when collapsing is on.
+ */
+function nextSeasonFor(
+  collection: PlotCollection,
+  table: ResultsTable,
+  value: string,
+  kind: ResultKind,
+  s: ResultsState,
+  report: EstimateReport,
+): Pick<ResultsState, 'next' | 'nextSd' | 'nextError'> {
+  try {
+    const own = s.collapse ? estimateFromResults(collection, table, { value, kind, collapse: false, perHa: s.perHa }) : report;
+    const sdOverride: Record<string, number> = {};
+    for (const g of report.strata) {
+      if (g.members.length < 2 || g.sd === null) continue;
+      for (const k of g.members) if ((own.strata.find((x) => x.stratum === k)?.sd ?? null) === null) sdOverride[k] = g.sd;
+    }
+    const next = nextSeasonSampleSize(
+      own.strata.map((x) => ({ stratum: x.stratum, basisM2: x.basis_m2, sd: x.sd })),
+      { target: s.target, observedMean: report.mean, plotAreaM2: report.plot_area_m2, minPerStratum: Math.max(2, collection.design.settings.minPerStratum), sdOverride },
+    );
+    const nextSd = Object.fromEntries(own.strata.map((x) => [x.stratum, sdOverride[x.stratum] ?? (x.sd as number)]));
+    return { next, nextSd, nextError: null };
+  } catch (e) {
+    return { next: null, nextSd: {}, nextError: errorText(e) };
+  }
+}
+
+/**
+ * The design settings change that plans next season with one of the computed sizes: total plots,
+ * the allocation and the observed SDs (the target is cleared so the total is used as it stands).
+ */
+export function resultsDesignPatch(state: Pick<ResultsState, 'next' | 'nextSd'>, allocation: 'proportional' | 'neyman'): Partial<DesignSettings> | null {
+  if (!state.next) return null;
+  const option = allocation === 'neyman' ? state.next.neyman : state.next.proportional;
+  return { plots: option.n, allocation, sd: { ...state.nextSd }, targetHalfwidth: null };
+}
+
+/** Adds an empty recapture grid form. */
+export function recaptureGridAdd(store: ResultsStore): void {
+  const grids = store.getState().grids;
+  const k = grids.reduce((a, g) => Math.max(a, Number(g.id.replace('grid-', '')) || 0), 0) + 1;
+  store.setState({ grids: [...grids, recaptureGridBlank(k)] });
+}
+
+/** Changes fields of one recapture grid form. */
+export function recaptureGridSet(store: ResultsStore, id: string, patch: Partial<Omit<RecaptureGridForm, 'id'>>): void {
+  store.setState({ grids: store.getState().grids.map((g) => (g.id === id ? { ...g, ...patch } : g)) });
+}
+
+/** Removes one recapture grid form. */
+export function recaptureGridRemove(store: ResultsStore, id: string): void {
+  store.setState({ grids: store.getState().grids.filter((g) => g.id !== id) });
+}
+
+/** Forgets the loaded file and everything worked out from it (the recapture forms stay). */
+export function resultsClear(store: ResultsStore): void {
+  store.setState({ fileName: null, table: null, loadError: null, mapping: null, variable: null, problems: [], report: null, estimateError: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null });
+}
