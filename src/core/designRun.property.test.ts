@@ -13,7 +13,7 @@ const G = geodesic.Geodesic.WGS84;
 const dist = (lon1: number, lat1: number, lon2: number, lat2: number) => G.Inverse(lat1, lon1, lat2, lon2).s12 as number;
 const move = (lon: number, lat: number, azi: number, s: number): [number, number] => {
   const r = G.Direct(lat, lon, azi, s);
-  return [r.lon2, r.lat2];
+  return [r.lon2 as number, r.lat2 as number];
 };
 // 7-decimal coordinates move a plot by up to ~0.6 cm; densifying at 0.25 m adds under 1 cm.
 const TOL_M = 0.03;

@@ -101,6 +101,12 @@ describe('designOutputBytes', () => {
     expect(new TextDecoder().decode(sheets.subarray(0, 5))).toBe('%PDF-');
   });
 
+  it('names the output file and the feature when a writer refuses the input', async () => {
+    const plots = samplePlots();
+    plots.features[1].geometry.coordinates = [200, 37.7];
+    await expect(designOutputBytes('out.gpx', plots)).rejects.toThrow('out.gpx: feature 1: position 200, 37.7 is not a WGS84 longitude/latitude');
+  });
+
   it('lists the formats it writes when the extension is unknown', async () => {
     await expect(designOutputBytes('plots.txt', samplePlots())).rejects.toThrow(
       'plots.txt: cannot tell the export format from the extension ".txt"; use one of .geojson, .json, .gpx, .kml, .kmz, .csv, .zip, .gpkg, .pdf',

@@ -2,7 +2,7 @@ import type { Feature, FeatureCollection } from 'geojson';
 import { zipSync } from 'fflate';
 import type { SqlJsStatic } from 'sql.js';
 import type { PlotCollection, PlotProperties } from '../core/designTypes';
-import { InputError } from '../core/InputError';
+import { InputError, isInputError } from '../core/InputError';
 import type { Site } from '../core/types';
 import { designReportPdf } from './designReportPdf';
 import { featuresToGeoJson } from './featuresToGeoJson';
@@ -33,6 +33,7 @@ export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
   pdf: 'PDF design report (or field sheets)',
 };
 
+/** Options of {@link designOutputBytes}; each format uses those that apply to it. */
 export interface DesignOutputOptions {
   /** CSV: start with a UTF-8 byte-order mark. */
   bom?: boolean;
@@ -82,6 +83,15 @@ export async function designOutputBytes(
   site?: Site,
   options: DesignOutputOptions = {},
 ): Promise<Uint8Array> {
+  try {
+    return await designOutputUnchecked(fileName, collection, site, options);
+  } catch (error) {
+    if (isInputError(error) && !error.message.startsWith(`${fileName}:`)) throw new InputError(`${fileName}: ${error.message}`);
+    throw error;
+  }
+}
+
+async function designOutputUnchecked(fileName: string, collection: PlotCollection, site: Site | undefined, options: DesignOutputOptions): Promise<Uint8Array> {
   const enc = new TextEncoder();
   const layers = siteLayers(collection, site);
   const name = options.name ?? site?.name ?? 'stratplot design';

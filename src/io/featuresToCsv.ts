@@ -2,6 +2,7 @@ import type { FeatureCollection, Geometry, Position } from 'geojson';
 import Papa from 'papaparse';
 import { csvCell } from './csvCell';
 
+/** Options of {@link featuresToCsv}. */
 export interface CsvWriteOptions {
   /** Start the text with a UTF-8 byte-order mark (helps some spreadsheets detect UTF-8). */
   bom?: boolean;

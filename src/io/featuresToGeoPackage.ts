@@ -12,6 +12,7 @@ export interface GpkgLayer {
   features: FeatureCollection;
 }
 
+/** Options of {@link featuresToGeoPackage}. */
 export interface GpkgWriteOptions {
   sqlJsInit?: () => Promise<SqlJsStatic>;
   /** Target CRS (default WGS84, srs_id 4326); needs its EPSG code and WKT definition. */

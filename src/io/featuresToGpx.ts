@@ -13,6 +13,7 @@ export interface GpxLabels {
   type?: string;
 }
 
+/** Options of {@link featuresToGpx}. */
 export interface GpxWriteOptions {
   /** Name of the file's metadata (e.g. the site). */
   name?: string;

@@ -10,6 +10,7 @@ export interface KmlLayer {
   features: FeatureCollection;
 }
 
+/** Options of {@link featuresToKml} and {@link featuresToKmz}. */
 export interface KmlWriteOptions {
   /** Document name (e.g. the site). */
   name?: string;

@@ -10,6 +10,7 @@ export const PRJ_WGS84 =
   'GEOGCS["GCS_WGS_1984",DATUM["D_WGS_1984",SPHEROID["WGS_1984",6378137.0,298.257223563]],' +
   'PRIMEM["Greenwich",0.0],UNIT["Degree",0.0174532925199433]]';
 
+/** Options of {@link featuresToShapefileZip}. */
 export interface ShapefileWriteOptions {
   /** Base name of the files inside the zip (default "features"). */
   layerName?: string;

@@ -1,9 +1,12 @@
 import type { Geometry, Position } from 'geojson';
 
-/** Shape types of the ESRI Shapefile Technical Description (July 1998), Table 1. */
+/** Shape type Point (ESRI Shapefile Technical Description, July 1998, Table 1). */
 export const SHP_POINT = 1;
+/** Shape type PolyLine (same table). */
 export const SHP_POLYLINE = 3;
+/** Shape type Polygon (same table). */
 export const SHP_POLYGON = 5;
+/** Shape type MultiPoint (same table). */
 export const SHP_MULTIPOINT = 8;
 
 /** Twice the signed area of a ring in the plane by the shoelace formula: positive when counter-clockwise (y up). */

@@ -222,10 +222,15 @@ function problemsInUserNames(problems: Problem[], m: ResultsMapping): Problem[] 
 export function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
   const s = store.getState();
   const cleared = { problems: [], report: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null };
-  if (!s.table || !s.mapping) return store.setState({ ...cleared, estimateError: null });
-  if (!collection) return store.setState({ ...cleared, estimateError: 'Make a design (or open a plan with plots) first: results are matched to its plots by id.' });
-  if (s.variable === null || s.mapping.kinds[s.variable] === undefined) {
-    return store.setState({ ...cleared, estimateError: 'Choose a column to estimate: this file has no measurement columns besides the id, status and replacement columns.' });
+  let blocked: string | null | undefined;
+  if (!s.table || !s.mapping) blocked = null;
+  else if (!collection) blocked = 'Make a design (or open a plan with plots) first: results are matched to its plots by id.';
+  else if (s.variable === null || s.mapping.kinds[s.variable] === undefined) {
+    blocked = 'Choose a column to estimate: this file has no measurement columns besides the id, status and replacement columns.';
+  }
+  if (blocked !== undefined || !s.table || !s.mapping || !collection || s.variable === null) {
+    store.setState({ ...cleared, estimateError: blocked ?? null });
+    return;
   }
   const kind = s.mapping.kinds[s.variable];
   const { table, coreName } = tableForCore(s.table, s.mapping);

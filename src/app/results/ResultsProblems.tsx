@@ -22,8 +22,8 @@ export function ResultsProblems({ problems }: { problems: readonly Problem[] }) 
           </tr>
         </thead>
         <tbody>
-          {sorted.slice(0, SHOWN).map((p, i) => (
-            <tr key={`${p.code}-${p.where.row ?? 'x'}-${i}`} data-severity={p.severity}>
+          {sorted.slice(0, SHOWN).map((p) => (
+            <tr key={`${p.code}|${p.where.row ?? ""}|${p.message}`} data-severity={p.severity}>
               <td className={p.severity === 'error' ? 'problem' : undefined}>{p.severity === 'error' ? '✕ error' : '! warning'}</td>
               <td className="num">{p.where.row ?? '–'}</td>
               <td>{p.where.column ?? '–'}</td>

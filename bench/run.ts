@@ -1,0 +1,133 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as turf from '@turf/turf';
+import type { Feature, LineString, Point, Polygon } from 'geojson';
+import { designPlace } from '../src/core/designPlace';
+import { designSettingsDefault } from '../src/core/designSettingsDefault';
+import { placementConstraintsBuild } from '../src/core/placementConstraints';
+import { rngCreate } from '../src/core/rng';
+import { siteLocalFrame } from '../src/core/siteLocalFrame';
+import type { Site } from '../src/core/types';
+import { exclusionsFromFeatures } from '../src/io/exclusionsFromFeatures';
+import { strataFromFeatures } from '../src/io/strataFromFeatures';
+import { type BenchSite, benchSiteGenerate } from './benchSiteGenerate';
+
+// Seeded benchmarks of the design engine (invented sites, see benchSiteGenerate). Prints times and
+// ratios; nothing here asserts an absolute time.
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const dir = mkdtempSync(join(tmpdir(), 'stratplot-bench-'));
+let sink = 0;
+
+function writeSite(name: string, s: BenchSite): string[] {
+  const files = (['strata', 'lines', 'polygons', 'points'] as const).map((k) => {
+    const path = join(dir, `${name}-${k}.geojson`);
+    writeFileSync(path, JSON.stringify(s[k]));
+    return path;
+  });
+  return files;
+}
+
+function siteOf(s: BenchSite): Site {
+  const { strata, parts } = strataFromFeatures(s.strata, { fileName: 'strata' });
+  const exclusions = [s.lines, s.polygons, s.points].flatMap((fc, i) => exclusionsFromFeatures(fc, { fileName: `layer${i}` }));
+  return { name: 'bench (invented)', strata, parts, exclusions, access: [], boundary: null };
+}
+
+function peakRssMb(): number {
+  return process.resourceUsage().maxRSS / 1024;
+}
+
+/** The engine's placement: constraint indexes, then sequential inhibition with a grid hash. */
+function enginePlace(site: Site, plots: number, spacingM: number, sideM: number, seed: number): number {
+  const frame = siteLocalFrame(site.parts);
+  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'square', sideM, angleDeg: 0 }, edgeBufferM: 0 });
+  const h = site.strata.length;
+  const wanted = site.strata.map((_, i) => Math.floor(plots / h) + (i < plots % h ? 1 : 0));
+  const settings = designSettingsDefault({ plots, spacingM, footprint: { shape: 'square', sideM, angleDeg: 0 }, seed });
+  const p = designPlace(c, settings, wanted, wanted, wanted, rngCreate(seed), {});
+  for (let i = 0; i < p.placed.x.length; i++) sink += p.placed.x[i] * 1e-9;
+  return p.placed.x.length;
+}
+
+/**
+ * The straightforward approach: random points in the site's box; keep one when turf says it is in a
+ * stratum polygon, outside every exclusion polygon, farther than each exclusion's buffer from every
+ * exclusion (turf distances), and farther than the spacing from every earlier plot. Points only (no
+ * footprint test), which flatters it.
+ */
+function naivePlace(s: BenchSite, plots: number, spacingM: number, seed: number): number {
+  const rng = rngCreate(seed);
+  const bbox = turf.bbox(s.strata);
+  const strata = s.strata.features as Feature<Polygon>[];
+  const lines = s.lines.features as Feature<LineString>[];
+  const ponds = s.polygons.features as Feature<Polygon>[];
+  const pondEdges = ponds.map((f) => turf.polygonToLine(f) as Feature<LineString>);
+  const hazards = s.points.features as Feature<Point>[];
+  const kept: Feature<Point>[] = [];
+  let tries = 0;
+  while (kept.length < plots && tries < plots * 1000) {
+    tries++;
+    const pt = turf.point([bbox[0] + rng.float() * (bbox[2] - bbox[0]), bbox[1] + rng.float() * (bbox[3] - bbox[1])]);
+    if (!strata.some((f) => turf.booleanPointInPolygon(pt, f))) continue;
+    if (lines.some((f) => turf.pointToLineDistance(pt, f, { units: 'meters' }) < (f.properties?.buffer_m ?? 0))) continue;
+    if (ponds.some((f, i) => turf.booleanPointInPolygon(pt, f) || turf.pointToLineDistance(pt, pondEdges[i], { units: 'meters' }) < (f.properties?.buffer_m ?? 0))) continue;
+    if (hazards.some((f) => turf.distance(pt, f, { units: 'meters' }) < (f.properties?.buffer_m ?? 0))) continue;
+    if (kept.some((q) => turf.distance(pt, q, { units: 'meters' }) < spacingM)) continue;
+    kept.push(pt);
+    sink += pt.geometry.coordinates[0] * 1e-9;
+  }
+  return kept.length;
+}
+
+function time<T>(fn: () => T): { ms: number; value: T } {
+  (globalThis as { gc?: () => void }).gc?.();
+  const t = performance.now();
+  const value = fn();
+  return { ms: performance.now() - t, value };
+}
+
+function cliRun(files: string[], plots: number): { ms: number; peakMb: number | null; code: number; err: string } {
+  const args = [join(root, 'bin/stratplot.mjs'), 'plan', files[0], '--exclude', files[1], '--exclude', files[2], '--exclude', files[3]];
+  args.push('--plots', String(plots), '--spacing', '20', '--footprint', 'square:10', '--seed', '1', '--out', join(dir, 'plots.geojson'));
+  const useTime = existsSync('/usr/bin/time');
+  const t = performance.now();
+  const r = useTime ? spawnSync('/usr/bin/time', ['-f', 'PEAK_KB %M', process.execPath, ...args], { encoding: 'utf8' }) : spawnSync(process.execPath, args, { encoding: 'utf8' });
+  const ms = performance.now() - t;
+  const m = /PEAK_KB (\d+)/.exec(r.stderr ?? '');
+  return { ms, peakMb: m ? Number(m[1]) / 1024 : null, code: r.status ?? -1, err: (r.stderr ?? '').replace(/PEAK_KB \d+\s*/, '').trim() };
+}
+
+console.log(`stratplot bench — node ${process.version}, ${process.platform}/${process.arch}`);
+try {
+  console.log(`cpu: ${execFileSync('sh', ['-c', "grep -m1 'model name' /proc/cpuinfo | cut -d: -f2"], { encoding: 'utf8' }).trim()}, ${execFileSync('nproc', { encoding: 'utf8' }).trim()} cores`);
+} catch {
+  // Not Linux: the node line above still identifies the run.
+}
+
+// 1. Placement engine against the straightforward approach: 100 000 vertices, 2 000 plots.
+const small = benchSiteGenerate(7, 100_000, 10, 100);
+const smallSite = siteOf(small);
+enginePlace(smallSite, 200, 20, 10, 99); // warm-up
+naivePlace(small, 50, 20, 99); // warm-up
+const ours = time(() => enginePlace(smallSite, 2000, 20, 10, 1));
+const naive = time(() => naivePlace(small, 2000, 20, 1));
+console.log(`\n100k vertices, ${small.strata.features.length} polygons, 300 exclusions, 2 000 plots at 20 m spacing:`);
+console.log(`  engine (flatbush + earcut + grid hash, 10 m square footprint): ${ours.ms.toFixed(0)} ms, ${ours.value} plots`);
+console.log(`  straightforward (bbox points, turf tests against everything, points only): ${naive.ms.toFixed(0)} ms, ${naive.value} plots`);
+console.log(`  ratio: ${(naive.ms / ours.ms).toFixed(1)}x (target ≥ 50x)`);
+console.log(`  peak RSS of this process so far: ${peakRssMb().toFixed(0)} MB`);
+
+// 2. The whole CLI process on 1 000 000 vertices, 10 000 plots.
+const big = benchSiteGenerate(1, 1_000_000, 20, 300);
+const files = writeSite('big', big);
+const bigSite = siteOf(big);
+const engineBig = time(() => enginePlace(bigSite, 10000, 20, 10, 1));
+console.log(`\n1M vertices (${big.vertices}), 400 polygons, 900 exclusions (lines, polygons, points), 10 000 plots at 20 m, 10 m square:`);
+console.log(`  engine in process (indexes + placement): ${engineBig.ms.toFixed(0)} ms, ${engineBig.value} plots`);
+const cli = cliRun(files, 10000);
+console.log(`  whole CLI process (bin/stratplot.mjs plan … --out): ${cli.ms.toFixed(0)} ms (target ≤ 1 500 ms), exit ${cli.code}` + (cli.peakMb ? `, peak RSS ${cli.peakMb.toFixed(0)} MB` : ''));
+if (cli.code !== 0) console.log(`  CLI said: ${cli.err.split('\n')[0]}`);
+console.log(`\n(result sink ${sink.toFixed(3)})`);
