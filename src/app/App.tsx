@@ -1,11 +1,13 @@
 import { useState } from 'react';
 import { FileBar } from './FileBar';
 import { HistoryButtons } from './HistoryButtons';
+import { MapLegend } from './map/MapLegend';
 import { MapView } from './map/MapView';
 import { DesignPanel } from './panels/DesignPanel';
 import { ExclusionsPanel } from './panels/ExclusionsPanel';
 import { PlotsPanel } from './panels/PlotsPanel';
 import { StrataPanel } from './panels/StrataPanel';
+import { ResultsStep } from './results/ResultsStep';
 import { StatusLine } from './StatusLine';
 import { type StepId, StepPath } from './StepPath';
 import { usePlanner } from './usePlanner';
@@ -36,6 +38,7 @@ export function App() {
       <main className="workspace">
         <div className="map-pane">
           <MapView />
+          <MapLegend />
           <StatusLine />
         </div>
         <div className="sheet-pane">
@@ -43,8 +46,9 @@ export function App() {
           {step === 'exclusions' ? <ExclusionsPanel /> : null}
           {step === 'design' ? <DesignPanel /> : null}
           {step === 'plots' ? <PlotsPanel /> : null}
+          {step === 'results' ? <ResultsStep /> : null}
           <div className="sheet-next">
-            {step !== 'plots' ? (
+            {step !== 'plots' && step !== 'results' ? (
               <button type="button" className="next" onClick={() => setStep(step === 'strata' ? 'exclusions' : step === 'exclusions' ? 'design' : 'plots')}>
                 Next step →
               </button>

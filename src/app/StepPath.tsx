@@ -3,11 +3,12 @@ export const STEPS = [
   { id: 'exclusions', label: 'Mark exclusions' },
   { id: 'design', label: 'Design' },
   { id: 'plots', label: 'Plots' },
+  { id: 'results', label: 'Results' },
 ] as const;
 export type StepId = (typeof STEPS)[number]['id'];
 
 /** The numbered path along the sheets, 1 → 4; each step says whether it is done yet in words. */
-export function StepPath({ step, onStep, done }: { step: StepId; onStep: (s: StepId) => void; done: Record<StepId, boolean> }) {
+export function StepPath({ step, onStep, done }: { step: StepId; onStep: (s: StepId) => void; done: Partial<Record<StepId, boolean>> }) {
   return (
     <nav className="step-path" aria-label="Planning steps">
       <ol>

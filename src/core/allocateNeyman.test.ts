@@ -13,7 +13,9 @@ describe('allocateNeyman', () => {
   it('gives the real quotas of Valliant, Dever & Kreuter (2018, ch. 3) for n = 100', () => {
     const expected = [34.641683, 4.161947, 10.473487, 3.333804, 8.79897, 38.590108];
     const r = allocateNeyman(strata, sd, {}, 100, 0);
-    r.quotas.forEach((q, i) => expect(q).toBeCloseTo(expected[i], 5));
+    r.quotas.forEach((q, i) => {
+      expect(q).toBeCloseTo(expected[i], 5);
+    });
     expect(r.plots).toEqual([35, 4, 10, 3, 9, 39]);
     expect(r.plots.reduce((a, b) => a + b, 0)).toBe(100);
   });
@@ -25,7 +27,9 @@ describe('allocateNeyman', () => {
     const cost = Object.fromEntries(KEYS.map((k, i) => [k, [1400, 200, 300, 600, 450, 1000][i]]));
     const total = expected.reduce((a, b) => a + b, 0);
     const r = allocateNeyman(strata, sd, cost, 119, 0);
-    r.quotas.forEach((q, i) => expect(q / 119).toBeCloseTo(expected[i] / total, 6));
+    r.quotas.forEach((q, i) => {
+      expect(q / 119).toBeCloseTo(expected[i] / total, 6);
+    });
   });
 
   it('raises small strata to the minimum and shares the rest by the Neyman weights', () => {

@@ -58,7 +58,9 @@ describe('allocateProportional', () => {
           );
           expect(r.plots.reduce((a, b) => a + b, 0)).toBe(n);
           expect(r.plots.every((p) => p >= k)).toBe(true);
-          r.plots.forEach((p, i) => expect(Math.abs(p - r.quotas[i])).toBeLessThan(1 + 1e-9));
+          r.plots.forEach((p, i) => {
+            expect(Math.abs(p - r.quotas[i])).toBeLessThan(1 + 1e-9);
+          });
         },
       ),
       { numRuns: 100, seed: 20261201 },

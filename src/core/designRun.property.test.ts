@@ -150,6 +150,28 @@ describe('designRun on invented random sites (seeded property test, fast-check s
     );
   });
 
+  it('keeps transect quadrats inside their strata, clear of buffered exclusions and at the spacing (seed 7002)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1e6 }), fc.integer({ min: 0, max: 3 }), (siteSeed, fpIndex) => {
+        const site = siteInventedRandom(siteSeed, 3, 5);
+        const ring = (site.parts[0].geometry.coordinates as number[][][])[0];
+        const [lon0, lat0] = ring[0];
+        // A baseline along the south edge of the site, running east (quadrats on its left, to the north).
+        const baseline = [
+          [lon0 - 0.001, lat0 - 0.0001],
+          [lon0 + 0.03, lat0 - 0.0001],
+        ];
+        const footprint = footprints[fpIndex];
+        const settings = designSettingsDefault({ method: 'transect', baseline, transectIntervalM: 90, quadratIntervalM: 40, spacingM: 15, footprint, reservePerStratum: 1, seed: siteSeed, minPerStratum: 0 });
+        const r = designRun(site, settings);
+        expect(r.features.length).toBeGreaterThan(0);
+        for (const f of r.features) expect(f.properties.transect).toBeGreaterThanOrEqual(1);
+        checkDesign(site, r, footprint, 15);
+      }),
+      { numRuns: 8, seed: 7002 },
+    );
+  });
+
   it('gives byte-identical output for the same seed and different plots for another seed', () => {
     const site = siteInventedRandom(42, 3, 4);
     const s = designSettingsDefault({ plots: 20, spacingM: 20, footprint: { shape: 'square', sideM: 10, angleDeg: 0 }, reservePerStratum: 2, seed: 9 });

@@ -195,7 +195,7 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
       footprint.vx.length > 0
         ? convexSegmentDistance(x, y, footprint.vx, footprint.vy, arr[o], arr[o + 1], arr[o + 2], arr[o + 3])
         : pointSegmentDistance(x, y, arr[o], arr[o + 1], arr[o + 2], arr[o + 3]) - footprint.radius;
-    return d < 0 ? 0 : d;
+    return Math.max(d, 0);
   };
 
   const h = footprint.halfExtent;

@@ -42,21 +42,17 @@ function cutUtf8(bytes: Uint8Array, max: number): Uint8Array {
   return bytes.subarray(0, end);
 }
 
-function numberText(v: number, decimals: number): string {
-  return decimals > 0 ? v.toFixed(decimals) : String(Math.round(v));
-}
-
+/** Digits after the point in JavaScript's shortest text of `v` (0 for exponent notation), at most 15. */
 function fractionDigits(v: number): number {
   const s = String(v);
-  if (s.includes('e')) return 15;
   const dot = s.indexOf('.');
-  return dot < 0 ? 0 : Math.min(15, s.length - dot - 1);
+  return dot < 0 || s.includes('e') ? 0 : Math.min(15, s.length - dot - 1);
 }
 
 /**
  * Writes rows as a dBASE III table with UTF-8 text (pair it with a .cpg saying UTF-8). Column
- * types follow the values: all numbers → N (decimals enough to keep every value exactly as
- * JavaScript prints it, up to 15), all booleans → L, otherwise C (objects as JSON). Text longer
+ * types follow the values: all numbers → N (each value as its shortest exact text, so it reads
+ * back as the same double), all booleans → L, otherwise C (objects as JSON). Text longer
  * than 254 bytes, the C-field limit, is cut at a character boundary. Keys map to names through
  * {@link dbfFieldNames}. Format: dBASE III PLUS file structure (Ashton-Tate 1985).
  * @param date Last-update date stored in the header.
@@ -72,8 +68,10 @@ export function dbfWrite(rows: Record<string, unknown>[], keys: string[], date: 
     let field: DbfField;
     let texts: (string | Uint8Array)[];
     if (present.length > 0 && present.every((v) => typeof v === 'number' && Number.isFinite(v))) {
+      // Each value is written as its shortest exact text (exponent form for tiny or huge values,
+      // which readers parse with atof); the header's decimal count is for display only.
       const decimals = Math.max(...(present as number[]).map(fractionDigits));
-      texts = values.map((v) => (typeof v === 'number' ? numberText(v, decimals) : ''));
+      texts = values.map((v) => (typeof v === 'number' ? String(v) : ''));
       const length = Math.min(254, Math.max(1, ...texts.map((t) => (t as string).length)));
       field = { name: names.get(key)!, type: 'N', length, decimals };
       texts = texts.map((t) => (t as string).padStart(length, ' '));

@@ -145,7 +145,7 @@ export function resultsLoad(store: ResultsStore, fileName: string, bytes: Uint8A
   const idColumn = collection ? idColumnGuess(table, collection) : table.idColumn;
   const find = (re: RegExp) => table.columns.find((c) => c !== idColumn && re.test(c)) ?? null;
   const statusColumn = find(/^status$/i) ?? find(/status|visit/i);
-  const replacedByColumn = find(/^replaced_by$/i) ?? find(/replac/i);
+  const replacedByColumn = find(/^replaced_by$/i) ?? find(/replac|reserve.?used|substitut/i);
   const kinds: Record<string, ResultKind> = {};
   for (const c of table.columns) {
     if (c === idColumn || c === statusColumn || c === replacedByColumn) continue;

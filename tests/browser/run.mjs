@@ -26,7 +26,7 @@ try {
   for (const scenario of SCENARIOS) {
     if (only && !only.has(String(scenario.no))) continue;
     const started = Date.now();
-    const context = await browser.newContext({ viewport: { width: 1400, height: 900 }, serviceWorkers: 'block', acceptDownloads: true });
+    const context = await browser.newContext({ viewport: { width: 1400, height: 900 }, serviceWorkers: scenario.serviceWorkers ? 'allow' : 'block', acceptDownloads: true });
     const watch = { consoleErrors: [], offsite: [], dialogs: [] };
     await context.route('**/*', (route) => {
       const url = route.request().url();

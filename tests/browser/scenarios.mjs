@@ -29,10 +29,11 @@ async function drawSquare(page) {
   const b = await page.evaluate(() => window.__stratplotMap.getBounds().toArray());
   const [w, s] = b[0];
   const [e, n] = b[1];
-  const x0 = w + (e - w) * 0.08;
-  const x1 = w + (e - w) * 0.16;
-  const y0 = s + (n - s) * 0.82;
-  const y1 = s + (n - s) * 0.9;
+  // Clear of the key (top left), the zoom buttons (top right), the scale and the credit (bottom).
+  const x0 = w + (e - w) * 0.55;
+  const x1 = w + (e - w) * 0.63;
+  const y0 = s + (n - s) * 0.1;
+  const y1 = s + (n - s) * 0.18;
   await page.getByRole('button', { name: /^Draw stratum/ }).click();
   for (const [x, y] of [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]) {
     await clickLngLat(page, x, y);
@@ -150,6 +151,17 @@ export const SCENARIOS = [
         check(inside, `plot ${f.properties.plot_id} is not inside stratum ${f.properties.stratum}`);
       }
       await shot('4-design');
+      // Clicking a plot opens its popup, built from DOM text: id, UTM and MGRS as in the plot file.
+      const one = plots.features[0];
+      await clickLngLat(page, one.geometry.coordinates[0], one.geometry.coordinates[1]);
+      await page.waitForSelector('.plot-popup', { timeout: 5000 });
+      const popup = await page.locator('.plot-popup').textContent();
+      check(popup.includes(one.properties.plot_id) && popup.includes('MGRS'), `popup shows "${popup}"`);
+      const fromFile = await page.evaluate((id) => {
+        const p = window.__stratplotMap.queryRenderedFeatures({ layers: ['sp-plots'] }).find((f) => f.properties.plot_id === id);
+        return p?.properties.plot_id;
+      }, one.properties.plot_id);
+      check(fromFile === one.properties.plot_id, 'the clicked plot is not on the map');
       await page.getByRole('button', { name: /4\s*Plots/ }).click();
       const first = plots.features.find((f) => f.properties.role === 'primary');
       const stratum = first.properties.stratum;
@@ -170,21 +182,49 @@ export const SCENARIOS = [
   },
   {
     no: 5,
-    name: 'after a reload the drawn and imported work is restored from the browser copy',
-    async run({ page, origin, shot }) {
+    name: 'after a reload the drawn work is restored from the browser copy, also with the network off',
+    serviceWorkers: true,
+    async run({ page, context, origin, shot }) {
       await openPlanner(page, origin);
       await drawSquare(page);
       await strataRows(page, 7);
       await page.locator('input[aria-label="Name of stratum Stratum 7"]').fill('Restored stratum');
       await page.keyboard.press('Tab');
-      await page.waitForFunction(() => [...document.querySelectorAll('input.name-input')].some((i) => i.value === 'Restored stratum' && i.getAttribute('aria-label') === 'Name of stratum Stratum 7'));
-      await sleep(800);
+      await page.waitForFunction(() => document.querySelector('.legend')?.textContent?.includes('Restored stratum'), null, { timeout: 5000 }).catch(async () => {
+        throw new Error(`rename not applied; notice: ${await page.locator('.notice').textContent()}; tool: ${await page.locator('.tool-on').count()}`);
+      });
+      // Wait until the browser copy (IndexedDB, idb-keyval's default store) holds the rename.
+      await page.waitForFunction(
+        () =>
+          new Promise((resolve) => {
+            const open = indexedDB.open('keyval-store');
+            open.onsuccess = () => {
+              const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
+              req.onsuccess = () => resolve(typeof req.result === 'string' && req.result.includes('Restored stratum'));
+              req.onerror = () => resolve(false);
+            };
+            open.onerror = () => resolve(false);
+          }),
+        null,
+        { timeout: 10_000, polling: 250 },
+      );
       await page.reload();
       await openPlanner(page, origin);
       const rows = await page.locator('table.ledger tbody tr[data-stratum]').count();
       check(rows === 7, `expected 7 strata after reload, saw ${rows}`);
       check((await mappedHaOf(page, 'Restored stratum')) !== null, 'the renamed stratum was not restored');
       await shot('5-restored');
+      // Offline: the service worker has cached the built files; the planner must open without a network.
+      await page.evaluate(async () => {
+        await navigator.serviceWorker.ready;
+        if (!navigator.serviceWorker.controller) await new Promise((r) => navigator.serviceWorker.addEventListener('controllerchange', r, { once: true }));
+      });
+      await context.setOffline(true);
+      await page.reload();
+      await openPlanner(page, origin);
+      check((await mappedHaOf(page, 'Restored stratum')) !== null, 'offline, the planner did not open with the work restored');
+      await shot('5-offline');
+      await context.setOffline(false);
     },
   },
   {

@@ -15,6 +15,7 @@ import { siteBounds } from './siteBounds';
 import { siteLayersAdd } from './siteLayers';
 import { EXCLUSION_COLOURS } from './palette';
 import { syncSiteToMap } from './syncSiteToMap';
+import { resultsMapLayerInstall } from '../results/resultsMapLayer';
 
 setWorkerUrl(workerUrl);
 
@@ -53,6 +54,7 @@ export function MapView() {
       mapStyleLandInstall(map);
       siteLayersAdd(map);
       cleanups.push(syncSiteToMap(map, plannerStore));
+      cleanups.push(resultsMapLayerInstall(map, plannerStore));
       cleanups.push(drawControlInstall(map, plannerStore, notify));
       const b = siteBounds(plannerStore.getState().site);
       if (b) map.fitBounds(b, { padding: 40, duration: 0 });

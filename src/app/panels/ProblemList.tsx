@@ -1,9 +1,12 @@
+import type { Problem } from '../../core/types';
 import { plannerStore } from '../plannerStoreInstance';
 import { usePlanner } from '../usePlanner';
 
 /** Problems the checks found in the mapped strata; each names the feature and zooms there when clicked. */
+const NONE: Problem[] = [];
+
 export function ProblemList() {
-  const problems = usePlanner((s) => s.analysis?.problems ?? []);
+  const problems = usePlanner((s) => s.analysis?.problems ?? NONE);
   const parts = usePlanner((s) => s.site.parts);
   if (problems.length === 0) return <p className="fine">Checks: no problems found in the mapped strata.</p>;
   return (

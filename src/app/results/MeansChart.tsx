@@ -14,13 +14,29 @@ export interface StratumMeanBar {
 
 /**
  * Per-stratum means with 95 % intervals: ȳ_h ± t(0.975, n_h − 1) × SE_h, SE_h with the stratum's
- * finite-population correction (Cochran 1977 §5.3, section number from memory).
+ * finite-population correction (Cochran 1977 §5.3, section number from memory), clipped to the
+ * values the kind can take (0–100 for cover, 0–1 for presence, ≥ 0 for counts).
  */
 export function stratumMeanBars(report: EstimateReport): StratumMeanBar[] {
+  const [lo, hi] = KIND_RANGE[report.kind];
   return report.strata.map((s) => {
     const half = s.se !== null && s.n >= 2 ? tQuantile95(s.n - 1) * s.se : null;
-    return { stratum: s.stratum, n: s.n, mean: s.mean, ci95: s.mean !== null && half !== null ? [s.mean - half, s.mean + half] : null };
+    const ci95: [number, number] | null = s.mean !== null && half !== null ? [Math.max(lo, s.mean - half), Math.min(hi, s.mean + half)] : null;
+    return { stratum: s.stratum, n: s.n, mean: s.mean, ci95 };
   });
+}
+
+/** Values a kind can take; intervals are clipped to them (a cover below 0 % means nothing). */
+const KIND_RANGE = {
+  measure: [Number.NEGATIVE_INFINITY, Number.POSITIVE_INFINITY],
+  cover: [0, 100],
+  count: [0, Number.POSITIVE_INFINITY],
+  presence: [0, 1],
+} as const;
+
+/** A tick label: the round number as it is, grouped in thousands. */
+function tickText(v: number): string {
+  return Number(v.toPrecision(6)).toLocaleString('en', { maximumFractionDigits: 6 });
 }
 
 const W = 440;
@@ -57,7 +73,7 @@ export function MeansChart({ report }: { report: EstimateReport }) {
         <g key={t}>
           <line x1={x(t)} x2={x(t)} y1={TOP} y2={TOP + rowsH} stroke="#1d2a2e" strokeOpacity={0.15} />
           <text x={x(t)} y={TOP + rowsH + 16} textAnchor="middle" fontSize={10} fill="#1d2a2e">
-            {fmtValue(t)}
+            {tickText(t)}
           </text>
         </g>
       ))}

@@ -43,29 +43,32 @@ export function NextSeasonBox({ collection, onUseInDesign }: { collection: PlotC
           <table className="ledger compact" aria-label="Plots needed next season">
             <thead>
               <tr>
-                <th scope="col">Allocation</th>
-                <th scope="col" className="num">Plots</th>
-                {next.proportional.plots.map((p) => (
-                  <th key={p.stratum} scope="col" className="num">
-                    {p.stratum}
-                  </th>
-                ))}
-                <th scope="col">
-                  <span className="sr-only">Action</span>
-                </th>
+                <th scope="col">Stratum</th>
+                <th scope="col" className="num">Proportional</th>
+                <th scope="col" className="num">Neyman</th>
               </tr>
             </thead>
             <tbody>
-              {[next.proportional, next.neyman].map((o) => (
-                <tr key={o.allocation} data-allocation={o.allocation}>
-                  <th scope="row">{o.allocation === 'neyman' ? 'Neyman' : 'proportional'}</th>
-                  <td className="num">{o.n}</td>
-                  {o.plots.map((p) => (
-                    <td key={p.stratum} className="num">
-                      {p.plots}
-                    </td>
-                  ))}
-                  <td className="actions">
+              {next.proportional.plots.map((p, i) => (
+                <tr key={p.stratum}>
+                  <th scope="row">{p.stratum}</th>
+                  <td className="num">{p.plots}</td>
+                  <td className="num">{next.neyman.plots[i].plots}</td>
+                </tr>
+              ))}
+            </tbody>
+            <tfoot>
+              <tr>
+                <th scope="row">Plots</th>
+                <td className="num" data-allocation="proportional">{next.proportional.n}</td>
+                <td className="num" data-allocation="neyman">{next.neyman.n}</td>
+              </tr>
+              <tr>
+                <th scope="row">
+                  <span className="sr-only">Action</span>
+                </th>
+                {[next.proportional, next.neyman].map((o) => (
+                  <td key={o.allocation} className="num actions">
                     <button
                       type="button"
                       aria-label={`Use ${o.n} plots, ${o.allocation} allocation, in the design`}
@@ -77,9 +80,9 @@ export function NextSeasonBox({ collection, onUseInDesign }: { collection: PlotC
                       Use in design
                     </button>
                   </td>
-                </tr>
-              ))}
-            </tbody>
+                ))}
+              </tr>
+            </tfoot>
           </table>
           <p className="fine">
             Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes use z = 1.96 (Cochran 1977 §5.9–5.10, section numbers from memory).

@@ -58,6 +58,8 @@ export function ResultsPanel({ collection, onUseInDesign, site = null }: Results
   const variable = useResults((s) => s.variable);
   const [message, setMessage] = useState<string | null>(null);
 
+  // A message about an earlier file or estimate would mislead once the figures change.
+  useEffect(() => setMessage(null), [table, report?.variable]);
   // Results are matched to the current plots: re-check when a new design replaces them.
   useEffect(() => {
     resultsOptionsSet(resultsStore, {}, collection);

@@ -73,6 +73,16 @@ describe('stratplot plan', () => {
     expect(m.err).toMatch(/minimum of 2 plots in each of 6 strata needs 12 plots/);
   });
 
+  it('writes other formats through the design exports, and refuses an unknown extension before any work', async () => {
+    const file = join(mkdtempSync(join(tmpdir(), 'plan-')), 'x.gpx');
+    const r = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '12', '--seed', '1', '--out', file]);
+    expect(r.code).toBe(0);
+    expect(readFileSync(file, 'utf8')).toMatch(/<gpx version="1.1"[^>]*xmlns="http:\/\/www.topografix.com\/GPX\/1\/1"/);
+    const bad = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '12', '--seed', '1', '--out', 'x.xyz']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--out x.xyz: unknown format; use one of .geojson/);
+  });
+
   it('refuses strata that cross themselves, naming the feature', async () => {
     const r = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--plots', '4', '--min-per-stratum', '0', '--seed', '1']);
     expect(r.code).toBe(2);

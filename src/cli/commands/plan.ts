@@ -1,5 +1,5 @@
 import { writeFile } from 'node:fs/promises';
-import { resolve } from 'node:path';
+import { basename, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { designRun } from '../../core/designRun';
 import { designSettingsDefault } from '../../core/designSettingsDefault';
@@ -9,6 +9,7 @@ import { InputError } from '../../core/InputError';
 import { rngSeedFromClock } from '../../core/rng';
 import { siteValidate } from '../../core/siteValidate';
 import type { Exclusion, Site } from '../../core/types';
+import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
 import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../../io/parseFeatureFile';
 import { strataFromFeatures } from '../../io/strataFromFeatures';
@@ -47,7 +48,10 @@ Placement:
   --quadrat-interval M      transect method: metres between quadrats along a transect
   --seed S                  random seed (default: from the clock, printed to stderr)
 Output:
-  --out FILE                write the plots as GeoJSON (.geojson or .json)
+  --out FILE                write the design; the extension picks the format:
+${Object.entries(DESIGN_OUTPUT_FORMATS)
+  .map(([ext, what]) => `                              .${ext.padEnd(8)} ${what}`)
+  .join('\n')}
   --json                    print the design summary as JSON to stdout
 Without --out the plot GeoJSON goes to stdout.
 
@@ -121,6 +125,13 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   }
   const { values: o, positionals } = parsed;
   if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot plan --help`);
+  if (o.out !== undefined) {
+    const dot = o.out.lastIndexOf('.');
+    const ext = dot >= 0 ? o.out.slice(dot + 1).toLowerCase() : '';
+    if (!Object.hasOwn(DESIGN_OUTPUT_FORMATS, ext)) {
+      throw new InputError(`--out ${o.out}: unknown format; use one of ${Object.keys(DESIGN_OUTPUT_FORMATS).map((e) => `.${e}`).join(', ')}`);
+    }
+  }
   const strataFile = await readInputFile(io, positionals[0]);
   const fc = await parseFeatureFile(strataFile.name, strataFile.bytes);
   const { strata, parts } = strataFromFeatures(fc, { field: o.field, fileName: strataFile.name });
@@ -146,7 +157,13 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     targetHalfwidth = { value: relative ? value / 100 : value, relative };
   }
   const plots = wholeOption(o.plots, '--plots');
-  if (plots === undefined && !targetHalfwidth) throw new InputError('give --plots N (or --target-halfwidth X to size the design)');
+  const method = o.method ?? 'random';
+  const sizedByLayout = method === 'transect' || (method === 'grid' && o['grid-spacing'] !== undefined);
+  if (plots === undefined && !targetHalfwidth && !sizedByLayout) {
+    throw new InputError(
+      method === 'grid' ? 'give --plots N or --grid-spacing M for a grid design' : 'give --plots N (or --target-halfwidth X to size the design)',
+    );
+  }
   let seed = numberOption(o.seed, '--seed');
   if (seed === undefined) {
     seed = rngSeedFromClock(Date.now());
@@ -165,7 +182,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     footprint: footprintParse(o.footprint ?? 'point', '--footprint'),
     edgeBufferM: numberOption(o['edge-buffer'], '--edge-buffer') ?? 0,
     reservePerStratum: wholeOption(o.reserve, '--reserve') ?? 0,
-    method: (o.method ?? 'random') as DesignSettings['method'],
+    method: method as DesignSettings['method'],
     gridSpacingM: numberOption(o['grid-spacing'], '--grid-spacing') ?? null,
     gridAngleDeg: numberOption(o['grid-angle'], '--grid-angle') ?? 0,
     baseline: o.baseline ? await readBaseline(io, o.baseline) : null,
@@ -178,10 +195,8 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   const geojson = JSON.stringify(collection);
   if (o.out) {
     const lower = o.out.toLowerCase();
-    if (!lower.endsWith('.geojson') && !lower.endsWith('.json')) {
-      throw new InputError(`--out ${o.out}: plan writes .geojson or .json plot files; other formats are not yet available from plan`);
-    }
-    await writeFile(resolve(io.cwd, o.out), geojson);
+    const bytes = lower.endsWith('.geojson') || lower.endsWith('.json') ? geojson : await designOutputBytes(basename(o.out), collection, site);
+    await writeFile(resolve(io.cwd, o.out), bytes);
   }
   if (o.json) io.out(`${JSON.stringify(collection.design)}\n`);
   else if (o.out) io.out(summaryTable(collection));

@@ -1,0 +1,48 @@
+import { EXCLUSION_KINDS } from '../../core/types';
+import { usePlanner } from '../usePlanner';
+import { EXCLUSION_COLOURS, INK } from './palette';
+
+/** The key to the map: strata by colour, code and name; exclusion kinds by colour and hatch; plot symbols. */
+export function MapLegend() {
+  const strata = usePlanner((s) => s.site.strata);
+  const exclusions = usePlanner((s) => s.site.exclusions);
+  const kinds = new Set(exclusions.map((e) => e.kind));
+  const hasPlots = usePlanner((s) => s.result !== null);
+  return (
+    <details className="legend" open>
+      <summary>Key</summary>
+      <ul aria-label="Strata">
+        {strata.map((s) => (
+          <li key={s.key}>
+            <span className="sw" style={{ background: s.colour, opacity: 0.75 }} />
+            <span className="mono">{s.code}</span> {s.label}
+          </li>
+        ))}
+      </ul>
+      <ul aria-label="Exclusions and buffers">
+        {EXCLUSION_KINDS.filter((k) => kinds.has(k)).map((k) => (
+          <li key={k}>
+            <span className="sw sw-hatch" style={{ color: EXCLUSION_COLOURS[k], borderColor: EXCLUSION_COLOURS[k] }} />
+            {k} + buffer
+          </li>
+        ))}
+      </ul>
+      {hasPlots ? (
+        <ul aria-label="Plots">
+          <li>
+            <span className="dot" style={{ background: INK }} /> primary plot
+          </li>
+          <li>
+            <span className="dot dot-ring" /> reserve
+          </li>
+          <li>
+            <span className="dot" style={{ background: '#f2b134' }} /> promoted reserve
+          </li>
+          <li>
+            <span className="dot" style={{ background: '#b9b9b9' }} /> rejected
+          </li>
+        </ul>
+      ) : null}
+    </details>
+  );
+}

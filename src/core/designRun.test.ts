@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { designRun } from './designRun';
+import { designSettingsDefault } from './designSettingsDefault';
+import { siteInventedRandom } from './fixtures/siteInventedRandom';
+import { isInputError } from './InputError';
+
+const site = siteInventedRandom(8, 3, 3);
+
+describe('designRun', () => {
+  it('reports progress from 0 to 1 and stops with DesignCancelled when asked', () => {
+    const fractions: number[] = [];
+    designRun(site, designSettingsDefault({ plots: 30 }), { onProgress: (f) => fractions.push(f) });
+    expect(fractions[0]).toBe(0);
+    expect(fractions[fractions.length - 1]).toBe(1);
+    expect([...fractions].sort((a, b) => a - b)).toEqual(fractions);
+    let polls = 0;
+    const run = () => designRun(site, designSettingsDefault({ plots: 30, spacingM: 1 }), { isCancelled: () => ++polls > 2 });
+    expect(run).toThrow(expect.objectContaining({ name: 'DesignCancelled' }));
+  });
+
+  it('writes the allocation rows, CRS, statements and software into the summary', () => {
+    const r = designRun(site, designSettingsDefault({ plots: 30, reservePerStratum: 2, seed: 12 }));
+    expect(r.design.seed).toBe(12);
+    expect(r.design.crs.utm_zone).toMatch(/^\d{1,2}S$/);
+    expect(r.design.software).toEqual({ name: 'stratplot', version: '0.1.0' });
+    for (const row of r.design.allocation) {
+      expect(Object.keys(row)).toEqual(['stratum', 'mapped_m2', 'usable_m2', 'share', 'plots', 'reserve', 'capacity']);
+      expect(row.usable_m2).toBeLessThanOrEqual(row.mapped_m2);
+    }
+    expect(r.design.allocation.reduce((a, row) => a + row.share, 0)).toBeCloseTo(1, 5);
+    const words = r.design.statements.join(' ');
+    expect(words).toMatch(/usable area/);
+    expect(words).toMatch(/Inference covers the usable area only/);
+    expect(words).toMatch(/lowest-ranked unused reserve/);
+    expect(words).toMatch(/landholder's permission/);
+    const p = r.features[0].properties;
+    expect(p.plot_id).toMatch(/^[A-Z0-9]+-\d{2}$/);
+    expect(p.mgrs).toMatch(/^\d{1,2}[C-X][A-Z]{2}\d{10}$/);
+    expect(String(p.lon).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(7);
+  });
+
+  it('throws an InputError naming the setting for impossible requests', () => {
+    const cases: [Partial<Parameters<typeof designSettingsDefault>[0]>, RegExp][] = [
+      [{ plots: 4, minPerStratum: 2 }, /needs 6 plots, more than the 4/],
+      [{ allocation: 'neyman', sd: { S0: 1 } }, /standard deviation for stratum "S1"/],
+      [{ targetHalfwidth: { value: 0.1, relative: true } }, /pilot mean/],
+      [{ method: 'transect' }, /baseline/],
+      [{ spacingM: -1 }, /minimum spacing/],
+    ];
+    for (const [over, message] of cases) {
+      let caught: unknown;
+      try {
+        designRun(site, designSettingsDefault({ plots: 30, ...over }));
+      } catch (e) {
+        caught = e;
+      }
+      expect(isInputError(caught), String(message)).toBe(true);
+      expect((caught as Error).message).toMatch(message);
+    }
+  });
+});

@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest';
+import { estimateFromResults } from '../core/estimateFromResults';
+import { nextSeasonSampleSize } from '../core/nextSeasonSampleSize';
+import { plotCollectionInvented } from '../core/plotCollectionInvented';
+import { recaptureEstimate } from '../core/recapture';
+import { designReportEstimates } from './designReportEstimates';
+import { designReportPdf, reportTablesParse } from './designReportPdf';
+import { parseResultsCsv } from './parseResultsCsv';
+
+// Invented plot file (not a real site): 10 m square plots.
+const plots = plotCollectionInvented([
+  { key: 'Coastal heath', code: 'HEA', primaries: 3, reserves: 0, mappedM2: 50_000, usableM2: 50_000 },
+  { key: 'Saltmarsh', code: 'SAL', primaries: 2, reserves: 0, mappedM2: 30_000, usableM2: 30_000 },
+]);
+const table = parseResultsCsv('invented.csv', 'plot_id,stems\nHEA-01,4\nHEA-02,6\nHEA-03,8\nSAL-01,1\nSAL-02,3\n');
+const report = estimateFromResults(plots, table, { value: 'stems', kind: 'count', collapse: false });
+
+describe('designReportEstimates', () => {
+  it('lists every stratum and the stratified line in a table the design report accepts', () => {
+    const next = nextSeasonSampleSize(
+      report.strata.map((s) => ({ stratum: s.stratum, basisM2: s.basis_m2, sd: s.sd })),
+      { target: { value: 0.2, relative: true }, observedMean: report.mean, plotAreaM2: 100 },
+    );
+    // Krebs 1989 Box 2.1 (REFERENCES §4): M 948, n 421, m 167 → Chapman 2382.80.
+    const grids = [{ name: 'North grid', estimate: recaptureEstimate({ marked: 948, caught: 421, recaptured: 167 }) }];
+    const tables = designReportEstimates(report, next, grids);
+    expect(reportTablesParse(tables)).toHaveLength(3);
+    // By hand: SE_h = √((1 − f_h) s_h²/n_h), f = 3·100/50 000 and 2·100/30 000: √(0.994·4/3), √(0.99333·2/2).
+    expect(tables[0].rows).toEqual([
+      ['Coastal heath', 3, '6', '2', '1.151', '0.625'],
+      ['Saltmarsh', 2, '2', '1.414', '0.9967', '0.375'],
+      ['Stratified (8.00 ha)', 5, '4.5', '', String(Number((report.se as number).toPrecision(4))), '1'],
+    ]);
+    expect(tables[0].notes?.some((n) => n.startsWith('95 % CI of the mean'))).toBe(true);
+    expect(tables[0].notes).toContain(report.population);
+    expect(tables[1].rows.map((r) => r[0])).toEqual(['proportional', 'neyman']);
+    expect(tables[2].rows[0].slice(0, 3)).toEqual(['North grid', '2390', '2383']);
+    const pdf = designReportPdf(plots, null, { paper: 'a4', estimates: tables, generatedAt: new Date('2026-01-01T00:00:00Z') });
+    expect(new TextDecoder().decode(pdf.slice(0, 5))).toBe('%PDF-');
+  });
+});
