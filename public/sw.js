@@ -1,6 +1,6 @@
 // stratplot offline cache: on install, fetch the list of built files the build wrote
-// (offline-files.json) and keep them all; afterwards answer from the cache first, so the planner
-// opens and works with no network. Only same-origin GET requests are handled.
+// (offline-files.json) and keep them all, so the planner opens and works with no network.
+// Only same-origin GET requests are handled.
 const CACHE = 'stratplot-v1';
 
 self.addEventListener('install', (event) => {
@@ -23,14 +23,26 @@ self.addEventListener('activate', (event) => {
   );
 });
 
+// Pages: network first (so a new build is picked up), falling back to the cached copy when the
+// network is slow or absent. Built files have hashed names and never change: cache first.
+async function pageResponse(request, cache) {
+  try {
+    const response = await Promise.race([fetch(request), new Promise((_, reject) => setTimeout(() => reject(new Error('slow')), 3000))]);
+    if (response.ok) cache.put('/', response.clone());
+    return response;
+  } catch {
+    return (await cache.match('/')) ?? Response.error();
+  }
+}
+
 self.addEventListener('fetch', (event) => {
   const request = event.request;
   if (request.method !== 'GET' || new URL(request.url).origin !== self.location.origin) return;
   event.respondWith(
     (async () => {
       const cache = await caches.open(CACHE);
-      const url = new URL(request.url);
-      const key = request.mode === 'navigate' ? '/' : url.pathname;
+      if (request.mode === 'navigate') return pageResponse(request, cache);
+      const key = new URL(request.url).pathname;
       const hit = await cache.match(key);
       if (hit) return hit;
       try {
@@ -38,7 +50,7 @@ self.addEventListener('fetch', (event) => {
         if (response.ok) cache.put(key, response.clone());
         return response;
       } catch {
-        return (await cache.match('/')) ?? Response.error();
+        return Response.error();
       }
     })(),
   );

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { FileBar } from './FileBar';
+import { FirstSteps } from './FirstSteps';
 import { HistoryButtons } from './HistoryButtons';
 import { MapLegend } from './map/MapLegend';
 import { MapView } from './map/MapView';
@@ -42,6 +43,7 @@ export function App() {
           <StatusLine />
         </div>
         <div className="sheet-pane">
+          <FirstSteps />
           {step === 'strata' ? <StrataPanel /> : null}
           {step === 'exclusions' ? <ExclusionsPanel /> : null}
           {step === 'design' ? <DesignPanel /> : null}

@@ -56,8 +56,15 @@ export async function imageryLoadWorldFile(image: File, worldFile: File, epsg: n
   }
 }
 
+/** Label of the demo site's image (synthetic, of an invented place). */
+export const DEMO_IMAGE_NAME = 'ochre-spit-aerial.tif';
+
 /** Shows the invented demo site's synthetic aerial image. */
 export async function imageryLoadDemo(): Promise<void> {
-  const bytes = new Uint8Array(await (await fetch(demoAerialUrl)).arrayBuffer());
-  await imageryLoadGeotiff('ochre-spit-aerial.tif (synthetic, invented)', bytes);
+  try {
+    const bytes = new Uint8Array(await (await fetch(demoAerialUrl)).arrayBuffer());
+    await imageryLoadGeotiff(`${DEMO_IMAGE_NAME} (synthetic image of the invented site)`, bytes);
+  } catch (e) {
+    notify('error', `the demo image could not be shown: ${(e as Error).message}`);
+  }
 }

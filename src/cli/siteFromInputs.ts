@@ -7,6 +7,7 @@ import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../io/parseFeatureFile';
 import { strataFromFeatures } from '../io/strataFromFeatures';
 import type { CliIo } from './command';
+import type { ImportChoices } from './importFlags';
 import { readInputFile } from './readInput';
 
 /** Map files named on a command line. */
@@ -17,6 +18,8 @@ export interface SiteInputs {
   exclude?: string[];
   access?: string[];
   boundary?: string;
+  /** Reader options from the import flags (see importFlagsRead); default: none. */
+  imports?: ImportChoices;
 }
 
 function failOn(file: string, problems: Problem[]): string[] {
@@ -30,18 +33,19 @@ function failOn(file: string, problems: Problem[]): string[] {
 
 /**
  * Reads, checks and assembles a site from the files named on a command line: strata (grouped by
- * `field`), exclusions, access points and a boundary polygon. Validation runs per file so that
- * messages name the file and the feature index within it.
+ * `field`), exclusions, access points and a boundary polygon. The import flags' layer, EPSG code
+ * and encoding reach the strata file only; their CSV columns reach every file. Validation runs per
+ * file so that messages name the file and the feature index within it.
  * @returns the site and its warnings, one line each, already prefixed with the file name
  * Throws InputError (one line) for a missing or unreadable file or the first error-severity
  * problem found by siteValidate.
  */
 export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ site: Site; warnings: string[] }> {
-  const load = async (path: string) => {
+  const load = async (path: string, isStrata = false) => {
     const { name, bytes } = await readInputFile(io, path);
-    return { name, fc: await parseFeatureFile(name, bytes) };
+    return { name, fc: await parseFeatureFile(name, bytes, (isStrata ? inputs.imports?.strata : inputs.imports?.other) ?? {}) };
   };
-  const strataFile = await load(inputs.strata);
+  const strataFile = await load(inputs.strata, true);
   const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });
   const empty: Site = { name: basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
   const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));

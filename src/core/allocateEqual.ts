@@ -3,7 +3,7 @@ import { type AllocationResult, allocateWithMinimum } from './allocateWithMinimu
 /**
  * Equal allocation: n / H plots in each of the H strata; the plots left over by whole division go,
  * one each, to the strata listed first (largest-remainder rounding with every remainder tied).
- * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.5 (equal allocation as a special case).
+ * Source: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (equal allocation as a special case).
  * @param keys stratum keys, in stratum order
  * @param n total primary plots
  * @param minPerStratum whole plots every stratum must get (default 2)

@@ -28,8 +28,8 @@ export function neymanWeights(
  * Neyman (optimum) allocation: n_h ∝ A_h · S_h / √c_h from pilot standard deviations S_h and relative
  * costs per plot c_h (1 when absent); rounded by largest remainder with the minimum rule of
  * {@link allocateWithMinimum}. With every S_h = 0 the plots are shared equally.
- * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.5 (optimum allocation, eq. 5.24) and §5.9
- * (Neyman allocation); the area A_h stands in for N_h in an areal frame.
+ * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.5 (optimum allocation) and §5.9
+ * (Neyman allocation; section and equation numbers from memory); the area A_h stands in for N_h in an areal frame.
  * @param strata key and basis area (m²)
  * @param sd pilot SD by stratum key
  * @param cost relative cost per plot by stratum key

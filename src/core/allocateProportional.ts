@@ -10,7 +10,7 @@ export interface AllocationStratum {
 /**
  * Proportional allocation: n_h = n · A_h / A, rounded by largest remainder, with the minimum rule of
  * {@link allocateWithMinimum}.
- * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.3 (proportional allocation).
+ * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.3 (proportional allocation; section number from memory).
  * @param strata key and basis area (m²) of each stratum
  * @param n total primary plots
  * @param minPerStratum whole plots every stratum must get (default 2)

@@ -15,7 +15,7 @@ export interface AllocationResult {
  * strata whose quota falls below the minimum are set to it and taken out, the rest is shared again
  * among the others, and so on until every quota meets the minimum; then largest-remainder rounding
  * ({@link allocateLargestRemainder}). With all weights 0 the plots are shared equally.
- * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.5 (allocation, with the usual
+ * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.5 (section number from memory; allocation, with the usual
  * adjustment when an optimum n_h is impractical).
  * @param weights non-negative weight per stratum (area, area × SD / √cost, or 1)
  * @param n total plots, a whole number

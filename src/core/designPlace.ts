@@ -105,6 +105,9 @@ export function designPlace(
     if (t.gaveUp) full[i] = true;
   }
   if (fixedLayout) {
+    statements.push(
+      `Plots per stratum follow from the ${s.method} layout (about in proportion to each stratum's usable area), not from the allocation setting; each plot stands for about the same area of ground.`,
+    );
     const dropped = tallies.reduce((a, t) => ({ excluded: a.excluded + t.excluded, nearEdge: a.nearEdge + t.nearEdge, tooClose: a.tooClose + t.tooClose }), {
       excluded: 0,
       nearEdge: 0,

@@ -39,6 +39,21 @@ describe('designRun', () => {
     expect(String(p.lon).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(7);
   });
 
+  it('gives no plots to a stratum that buffered exclusions cover completely, and says so', () => {
+    const covered = siteInventedRandom(3, 3, 0);
+    const ring = (covered.parts[2].geometry.coordinates as number[][][])[0];
+    const xs = ring.map((p) => p[0]);
+    const ys = ring.map((p) => p[1]);
+    const [a, b, c, d] = [Math.min(...xs) - 0.001, Math.min(...ys) - 0.001, Math.max(...xs) + 0.001, Math.max(...ys) + 0.001];
+    covered.exclusions.push({ id: 'lake', kind: 'water', bufferM: 10, geometry: { type: 'Polygon', coordinates: [[[a, b], [c, b], [c, d], [a, d], [a, b]]] } });
+    const r = designRun(covered, designSettingsDefault({ plots: 20, reservePerStratum: 1 }));
+    const row = r.design.allocation.find((x) => x.stratum === 'S1')!;
+    expect(row.usable_m2).toBe(0);
+    expect(row.plots).toBe(0);
+    expect(r.design.allocation.reduce((n, x) => n + x.plots, 0)).toBe(20);
+    expect(r.design.warnings.join(' ')).toMatch(/stratum "S1" has no usable area/);
+  });
+
   it('throws an InputError naming the setting for impossible requests', () => {
     const cases: [Partial<Parameters<typeof designSettingsDefault>[0]>, RegExp][] = [
       [{ plots: 4, minPerStratum: 2 }, /needs 6 plots, more than the 4/],

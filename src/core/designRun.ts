@@ -68,14 +68,27 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const totalBasis = basis.reduce((a, b) => a + b, 0);
   if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
   progress(0.2, 'allocation');
-  const strataBasis = keys.map((key, i) => ({ key, basisM2: basis[i] }));
   const warnings: string[] = [...areas.warnings];
+  // A stratum with no basis area cannot hold a plot: it is left out of the allocation, and said so.
+  const active = keys.map((_, i) => i).filter((i) => basis[i] > 0);
+  for (let i = 0; i < keys.length; i++) {
+    if (basis[i] > 0) continue;
+    warnings.push(`stratum "${keys[i]}" has no ${settings.shareBasis} area (buffered exclusions cover it): it gets no plots and the estimates do not cover it.`);
+  }
+  const strataBasis = active.map((i) => ({ key: keys[i], basisM2: basis[i] }));
+  const activeKeys = active.map((i) => keys[i]);
   const extraStatements: string[] = [];
   let allocation: AllocationResult | null = null;
   let weights = basis.slice();
   if (settings.method === 'random' || settings.method === 'balanced') {
-    if (settings.allocation === 'neyman') weights = neymanWeights(strataBasis, settings.sd, settings.cost);
-    if (settings.allocation === 'equal') weights = keys.map(() => 1);
+    if (settings.allocation === 'neyman') {
+      const w = neymanWeights(strataBasis, settings.sd, settings.cost);
+      weights = keys.map(() => 0);
+      active.forEach((i, k) => {
+        weights[i] = w[k];
+      });
+    }
+    if (settings.allocation === 'equal') weights = keys.map((_, i) => (basis[i] > 0 ? 1 : 0));
     if (settings.targetHalfwidth) {
       const d = settings.targetHalfwidth.relative ? settings.targetHalfwidth.value * settings.pilotMean! : settings.targetHalfwidth.value;
       const plotArea = footprintAreaM2(settings.footprint);
@@ -96,15 +109,21 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     } else if (settings.allocation === 'neyman') {
       allocation = allocateNeyman(strataBasis, settings.sd, settings.cost, settings.plots, settings.minPerStratum);
     } else if (settings.allocation === 'equal') {
-      allocation = allocateEqual(keys, settings.plots, settings.minPerStratum);
+      allocation = allocateEqual(activeKeys, settings.plots, settings.minPerStratum);
     } else {
       allocation = allocateProportional(strataBasis, settings.plots, settings.minPerStratum);
     }
     if (allocation.raisedToMinimum.length) {
       extraStatements.push(
-        `Raised to the minimum of ${settings.minPerStratum} plots: ${allocation.raisedToMinimum.map((i) => `"${keys[i]}"`).join(', ')}; the other strata share the rest.`,
+        `Raised to the minimum of ${settings.minPerStratum} plots: ${allocation.raisedToMinimum.map((k) => `"${activeKeys[k]}"`).join(', ')}; the other strata share the rest.`,
       );
     }
+    // Back from the strata that have ground to every stratum, in site order.
+    const plots = keys.map(() => 0);
+    active.forEach((i, k) => {
+      plots[i] = allocation!.plots[k];
+    });
+    allocation = { ...allocation, plots };
   }
   tick();
   progress(0.3, 'placing');

@@ -135,7 +135,8 @@ export function designUsableAreas(
     }
     const sub: Site = { ...site, parts: [part], exclusions: near.sort((x, y) => x - y).map((i) => site.exclusions[i]) };
     try {
-      usable[s] += area - excludedByWindows(sub, part, frame);
+      // Rounding can leave a fully covered part a hair below zero or above its mapped area.
+      usable[s] += Math.min(area, Math.max(0, area - excludedByWindows(sub, part, frame)));
     } catch (error) {
       if (error instanceof Error && error.name === 'InputError') throw error;
       // Exact clipping can fail on awkward geometry; count instead, and say so with the error bound.

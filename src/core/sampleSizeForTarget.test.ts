@@ -31,7 +31,7 @@ describe('sampleSizeForTarget', () => {
     expect(ney.n).toBeLessThanOrEqual(prop.n);
     expect(ney.halfwidth).toBeLessThanOrEqual(0.2 * mean);
     expect(prop.fpcApplied).toBe(false);
-    // Without the fpc, proportional n is Cochran's n0 = Σ W_h S_h² / V (1977, eq. 5.26): 889.0.
+    // Without the fpc, proportional n is Cochran's n0 = Σ W_h S_h² / V (1977, ch. 5; REFERENCES.md §3): 889.0, worked by hand.
     expect(prop.formulaN).toBeCloseTo(889.0, 0);
   });
 

@@ -34,7 +34,7 @@ export interface SampleSizeResult {
 
 /**
  * 95 % CI half-width of the stratified mean for whole plots n_h: z · √Σ W_h² (1 − f_h) S_h² / n_h,
- * f_h = n_h / N_h (0 without an fpc). Source: Cochran 1977, §5.3, eq. 5.6 (variance of ȳ_st).
+ * f_h = n_h / N_h (0 without an fpc). Source: Cochran 1977, ch. 5 (variance of ȳ_st; REFERENCES.md §3).
  * Returns Infinity when a stratum with S_h > 0 has no plot.
  */
 export function stratifiedHalfwidth(w: readonly number[], s: readonly number[], nh: readonly number[], bigN: readonly number[] | null): number {
@@ -54,7 +54,8 @@ export function stratifiedHalfwidth(w: readonly number[], s: readonly number[], 
  * V = (d/z)², w_h the allocation's share of stratum h — which gives Cochran's n0/(1 + n0/N) for
  * proportional and (Σ W_h S_h)² / (V + Σ W_h S_h²/N) for Neyman — then a search upward from it for
  * the smallest whole n whose rounded allocation (with the minimum rule) really meets d.
- * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.9–5.10 (eqs. 5.25–5.26 and the general form).
+ * Source: Cochran, Sampling Techniques, 3rd ed. 1977, §5.9–5.10 (section numbers from memory) and the formulas of
+ * REFERENCES.md §3.
  * Throws InputError when an SD is missing, d is not > 0, or the target cannot be met even by
  * sampling every plot position.
  */

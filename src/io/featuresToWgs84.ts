@@ -1,54 +1,29 @@
 import type { FeatureCollection, Geometry, Position } from 'geojson';
-import proj4 from 'proj4';
 import { InputError } from '../core/InputError';
-
-/** EPSG codes that already are WGS84 longitude/latitude in degrees. */
-const WGS84_CODES = new Set([4326, 4979]);
-
-/**
- * The proj4 definition for an EPSG code: WGS84 UTM zones (326xx north, 327xx south) are built
- * here, other codes only when proj4 itself knows them (4269, 3857 and their aliases).
- * Returns null for codes we cannot convert.
- */
-export function epsgProj4Definition(epsg: number): string | null {
-  const zone = epsg % 100;
-  const base = epsg - zone;
-  if ((base === 32600 || base === 32700) && zone >= 1 && zone <= 60) {
-    return `+proj=utm +zone=${zone}${base === 32700 ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`;
-  }
-  const known = proj4.defs(`EPSG:${epsg}`);
-  return known ? `EPSG:${epsg}` : null;
-}
-
-/** True when the EPSG code is WGS84 lon/lat and needs no conversion. */
-export function isWgs84Epsg(epsg: number): boolean {
-  return WGS84_CODES.has(epsg);
-}
+import { crsResolveEpsg } from './crsResolve';
 
 /**
  * Converts every coordinate of a feature collection from the given EPSG code to WGS84 lon/lat
- * (returns a new collection; the input is not changed). Altitudes are kept.
- * Throws InputError naming the code when proj4 cannot convert it, or naming the feature whose
- * coordinates do not convert (e.g. metres given for a degrees system).
+ * (returns a new collection; the input is not changed). Altitudes are kept. The definition,
+ * datum shift included, comes from crsResolveEpsg, the one table of coordinate systems imports use.
+ * Throws InputError naming the file for a code stratplot does not carry (listing the supported
+ * ones), or naming the feature and position whose coordinates do not convert to a position on
+ * Earth. Degrees given for a metres system do convert (to somewhere far away): callers check that
+ * the result lies where the site is.
  */
 export function featuresToWgs84(fc: FeatureCollection, epsg: number, fileName: string): FeatureCollection {
-  if (isWgs84Epsg(epsg)) return fc;
-  const def = epsgProj4Definition(epsg);
-  if (!def) {
-    throw new InputError(
-      `${fileName}: coordinate system EPSG:${epsg} is not one stratplot can convert (it knows WGS84 EPSG:4326, ` +
-        'UTM EPSG:326xx/327xx, EPSG:3857 and EPSG:4269); reproject the file to EPSG:4326 first',
-    );
-  }
-  const converter = proj4(def, 'EPSG:4326');
+  const crs = crsResolveEpsg(epsg, fileName);
+  if (crs.epsg === 4326) return fc;
   const features = fc.features.map((feature, index) => {
+    let position = 0;
     const convert = (p: Position): Position => {
-      const [lon, lat] = converter.forward([p[0], p[1]]);
-      if (!Number.isFinite(lon) || !Number.isFinite(lat)) {
+      const [lon, lat] = crs.toWgs84(p[0], p[1]);
+      if (!(Number.isFinite(lon) && Number.isFinite(lat) && Math.abs(lat) <= 90 && Math.abs(lon) <= 540)) {
         throw new InputError(
-          `${fileName}: feature ${index}: coordinate ${p[0]}, ${p[1]} does not convert from EPSG:${epsg} to WGS84`,
+          `${fileName}: feature ${index}, position ${position}: ${p[0]}, ${p[1]} is not a position in ${crs.label} (it does not convert to WGS84)`,
         );
       }
+      position++;
       return p.length > 2 ? [lon, lat, ...p.slice(2)] : [lon, lat];
     };
     return { ...feature, geometry: feature.geometry ? geometryMapPositions(feature.geometry, convert) : feature.geometry };

@@ -73,9 +73,19 @@ describe('parseFeatureFile', () => {
     expect(lat).toBeCloseTo(40.5, 7);
   });
 
-  it('names a coordinate system it cannot convert', async () => {
-    const text = JSON.stringify({ type: 'FeatureCollection', crs: { type: 'name', properties: { name: 'EPSG:28355' } }, features: [] });
-    await expect(parseFeatureFile('mga.geojson', enc(text))).rejects.toThrow(/mga\.geojson: coordinate system EPSG:28355 is not one stratplot can convert/);
+  it('names a coordinate system it cannot convert and lists the ones it can', async () => {
+    const text = JSON.stringify({ type: 'FeatureCollection', crs: { type: 'name', properties: { name: 'EPSG:3111' } }, features: [] });
+    await expect(parseFeatureFile('vicgrid.geojson', enc(text))).rejects.toThrow(/^vicgrid\.geojson: EPSG:3111 is not a coordinate system stratplot knows; supported: 4326, /);
+  });
+
+  it('refuses bytes that are not UTF-8 unless an encoding is given', async () => {
+    // "Forêt" in windows-1252 (ê = 0xEA, WHATWG index-windows-1252): not valid UTF-8.
+    const head = enc('{"type":"Feature","properties":{"stratum":"For');
+    const tail = enc(`t"},"geometry":${JSON.stringify(square)}}`);
+    const bytes = Uint8Array.from([...head, 0xea, ...tail]);
+    await expect(parseFeatureFile('legacy.geojson', bytes)).rejects.toThrow(/^legacy\.geojson: the file is not UTF-8 text, as JSON must be \(RFC 8259\)/);
+    const fc = await parseFeatureFile('legacy.geojson', bytes, { encoding: 'windows-1252' });
+    expect(fc.features[0].properties?.stratum).toBe('Forêt');
   });
 
   it('rejects JSON that is not GeoJSON', async () => {

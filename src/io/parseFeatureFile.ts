@@ -7,6 +7,7 @@ import { parseGpx } from './parseGpx';
 import { parseKml } from './parseKml';
 import { parsePointCsv } from './parsePointCsv';
 import { parseShapefileZip } from './parseShapefileZip';
+import { textDecoderFor } from './textDecoderFor';
 
 /** Options a reader may use: a layer of a multi-layer file, a CRS for files without one, a text encoding. */
 export interface FeatureFileOptions {
@@ -23,11 +24,22 @@ export interface FeatureFileOptions {
 
 type Reader = (fileName: string, bytes: Uint8Array, options: FeatureFileOptions) => Promise<FeatureCollection>;
 
+/**
+ * JSON text is UTF-8 (RFC 8259 §8.1): by default invalid bytes are refused rather than shown as
+ * U+FFFD, and a byte-order mark is dropped (TextDecoder does; parseGeoJson also tolerates one).
+ * An explicit encoding goes through textDecoderFor, which decodes windows-1252 correctly on Node 20.
+ */
 function decodeText(fileName: string, bytes: Uint8Array, encoding: string | undefined): string {
+  let decode: (bytes: Uint8Array) => string;
   try {
-    return new TextDecoder(encoding ?? 'utf-8').decode(bytes);
+    decode = textDecoderFor(encoding ?? 'utf-8', encoding === undefined);
   } catch {
     throw new InputError(`${fileName}: unknown text encoding "${encoding}"`);
+  }
+  try {
+    return decode(bytes);
+  } catch {
+    throw new InputError(`${fileName}: the file is not UTF-8 text, as JSON must be (RFC 8259); save it as UTF-8 or give its encoding (--encoding)`);
   }
 }
 

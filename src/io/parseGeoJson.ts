@@ -26,9 +26,10 @@ const NESTING: Record<string, number> = {
 /**
  * Reads GeoJSON text (RFC 7946): a FeatureCollection, a single Feature or a bare geometry, always
  * returned as a FeatureCollection in WGS84 lon/lat. The pre-RFC `crs` member is honoured:
- * CRS84/EPSG:4326 pass through, other EPSG codes are converted; `epsg` overrides a missing `crs`.
- * Throws InputError for text that is not JSON (with line and column), is not GeoJSON, or has a
- * malformed geometry (naming the feature index).
+ * CRS84/EPSG:4326 pass through, other EPSG codes are converted with crsResolve's definitions;
+ * `epsg` stands in for a missing `crs`. Throws InputError for text that is not JSON (with line and
+ * column), is not GeoJSON, has a malformed geometry (naming the feature index), names a CRS
+ * stratplot does not carry, or names one that contradicts `epsg`.
  */
 export function parseGeoJson(fileName: string, text: string, epsg?: number): FeatureCollection {
   const data = jsonParseWithPosition(fileName, text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
@@ -49,7 +50,7 @@ export function parseGeoJson(fileName: string, text: string, epsg?: number): Fea
   } else {
     throw new InputError(`${fileName}: not GeoJSON (type is ${JSON.stringify(root.type ?? null)})`);
   }
-  const code = crsEpsg(fileName, root.crs) ?? epsg;
+  const code = sourceEpsg(fileName, root.crs, epsg);
   return code === undefined ? fc : featuresToWgs84(fc, code, fileName);
 }
 
@@ -71,15 +72,36 @@ function jsonParseWithPosition(fileName: string, text: string): unknown {
   }
 }
 
-/** EPSG code named by a pre-RFC 7946 `crs` member, or undefined when there is none. */
-function crsEpsg(fileName: string, crs: unknown): number | undefined {
+/**
+ * EPSG code named by a pre-RFC 7946 `crs` member (GeoJSON 2008 §3: a named CRS as an OGC URN,
+ * "EPSG:n" or an OGC http URI; the older `{"type":"EPSG","properties":{"code":n}}` form is read
+ * too), or undefined when there is none; an unreadable member yields `given` when there is one.
+ * Whether the code is one we can convert is crsResolve's call.
+ */
+function crsEpsg(fileName: string, crs: unknown, given: number | undefined): number | undefined {
   if (crs === undefined || crs === null) return undefined;
-  const name = (crs as { properties?: { name?: unknown } }).properties?.name;
-  if (typeof name !== 'string') throw new InputError(`${fileName}: the "crs" member has no name`);
-  if (/CRS84$/i.test(name)) return 4326;
-  const match = /EPSG:(?:[\d.]*:)?(\d+)$/i.exec(name);
-  if (!match) throw new InputError(`${fileName}: coordinate system "${name}" is not an EPSG code stratplot knows`);
+  const props = (crs as { properties?: { name?: unknown; code?: unknown } }).properties;
+  if (typeof props?.code === 'number' && Number.isInteger(props.code)) return props.code;
+  const name = props?.name;
+  // A crs member we cannot read is no contradiction of a code the user gave for the file.
+  if (typeof name !== 'string') {
+    if (given !== undefined) return given;
+    throw new InputError(`${fileName}: the "crs" member has no name; give the file's EPSG code (--epsg)`);
+  }
+  if (/CRS84$/i.test(name.trim())) return 4326;
+  const match = /EPSG:(?:[\d.]*:)?(\d+)$/i.exec(name.trim()) ?? /\/def\/crs\/EPSG\/[^/]+\/(\d+)$/i.exec(name.trim());
+  if (!match && given !== undefined) return given;
+  if (!match) throw new InputError(`${fileName}: coordinate system "${name}" in the "crs" member is not an EPSG code; give the file's EPSG code (--epsg)`);
   return Number(match[1]);
+}
+
+/** The code to convert from: the file's `crs` member, else the epsg option; a contradiction is refused. */
+function sourceEpsg(fileName: string, crs: unknown, epsg: number | undefined): number | undefined {
+  const stated = crsEpsg(fileName, crs, epsg);
+  if (stated !== undefined && epsg !== undefined && stated !== epsg) {
+    throw new InputError(`${fileName}: its "crs" member names EPSG:${stated} but EPSG:${epsg} was given (--epsg); leave out one of them`);
+  }
+  return stated ?? epsg;
 }
 
 function featureChecked(fileName: string, value: unknown, index: number): Feature {

@@ -19,6 +19,11 @@ describe('importing files and finishing drawings', () => {
     importStrata(store, preview, 'habitat');
     expect(store.getState().site.strata.map((s) => s.key)).toEqual(['Heath']);
     expect(store.getState().strataField).toBe('habitat');
+    // A second file's first stratum would get the same first palette colour: it is moved along.
+    const again = await importRead('more.geojson', enc({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { habitat: 'Marsh' }, geometry: { type: 'Polygon', coordinates: [ring] } }] }));
+    importStrata(store, again, 'habitat');
+    const [a, b] = store.getState().site.strata;
+    expect(a.colour).not.toBe(b.colour);
   });
 
   it('passes on the reader’s message naming the file and feature for a wrong field or kind', async () => {

@@ -4,7 +4,7 @@ import type { Site, StratumInfo } from '../core/types';
 import { accessFromFeatures } from '../io/accessFromFeatures';
 import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../io/parseFeatureFile';
-import { strataFromFeatures } from '../io/strataFromFeatures';
+import { STRATUM_PALETTE, strataFromFeatures } from '../io/strataFromFeatures';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
 
@@ -54,7 +54,10 @@ function strataMergeInto(site: Site, incoming: { strata: StratumInfo[]; parts: S
   for (const s of incoming.strata) {
     if (known.has(s.key)) continue;
     if (codes.has(s.code)) throw new InputError(`stratum "${s.key}" has the code ${s.code}, already used by another stratum: change one code first`);
-    strata.push(s);
+    // Each file is coloured from the start of the palette: keep colours apart from strata already mapped.
+    const used = new Set(strata.map((x) => x.colour.toLowerCase()));
+    const colour = used.has(s.colour.toLowerCase()) ? (STRATUM_PALETTE.find((c) => !used.has(c)) ?? s.colour) : s.colour;
+    strata.push({ ...s, colour });
     codes.add(s.code);
   }
   const ids = site.parts.map((p) => p.id);

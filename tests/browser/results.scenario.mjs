@@ -83,8 +83,18 @@ export const RESULTS_SCENARIO = {
     await page.getByRole('img', { name: /^Map colours for cover_pct/ }).scrollIntoViewIfNeeded();
     await shot('results-charts');
 
-    await page.getByRole('button', { name: /allocation, in the design$/ }).last().click();
+    const pdfDownload = page.waitForEvent('download', { timeout: 30_000 });
+    await page.getByRole('button', { name: 'Design report with estimates (PDF)' }).click();
+    const pdf = readFileSync(await (await pdfDownload).path());
+    check(pdf.subarray(0, 5).toString('latin1') === '%PDF-', 'the design report is not a PDF');
+
+    const neyman = Number(await page.locator('td[data-allocation="neyman"]').textContent());
+    await page.getByRole('button', { name: /neyman allocation, in the design$/ }).click();
     await page.waitForSelector('text=Design settings updated');
+    await page.getByRole('button', { name: /3\s*Design/ }).click();
+    const plotsField = await page.getByLabel('Total primary plots').inputValue();
+    check(Number(plotsField) === neyman, `design asks for ${plotsField} plots after "Use in design", next season's Neyman size is ${neyman}`);
+    await page.getByRole('button', { name: /5\s*Results/ }).click();
 
     await page.getByLabel('Marked M for Grid 1').fill('948');
     await page.getByLabel('Caught n for Grid 1').fill('421');

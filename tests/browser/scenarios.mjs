@@ -82,7 +82,7 @@ export const SCENARIOS = [
   },
   {
     no: 2,
-    name: 'a stratum drawn by clicks appears in the table with its ellipsoidal area',
+    name: 'a stratum drawn by clicks appears in the table with its ellipsoidal area; vertex moves undo',
     async run({ page, origin, shot }) {
       await openPlanner(page, origin);
       await drawSquare(page);
@@ -98,6 +98,31 @@ export const SCENARIOS = [
       await shot('2-drawn-stratum');
       await page.keyboard.press('Control+z');
       await strataRows(page, 6);
+      // Vertex editing: select a stratum from its row, arm "Move vertices", drag one vertex; undo puts it back.
+      await page.keyboard.press('Escape');
+      const wet = (await sourceData(page, 'sp-strata')).features.find((f) => f.properties.stratum === 'Wet meadow');
+      const v = wet.geometry.coordinates[0][5];
+      await page.getByRole('button', { name: 'Show Wet meadow on the map and select it' }).click();
+      await sleep(700);
+      await mapIdle(page);
+      await page.keyboard.press('e');
+      await sleep(300);
+      const box = await page.locator('.map-holder canvas').boundingBox();
+      const p = await page.evaluate(([x, y]) => window.__stratplotMap.project([x, y]), v);
+      await page.mouse.move(box.x + p.x, box.y + p.y);
+      await page.mouse.down();
+      await page.mouse.move(box.x + p.x + 15, box.y + p.y + 15, { steps: 5 });
+      await page.mouse.move(box.x + p.x + 30, box.y + p.y + 30, { steps: 5 });
+      await page.mouse.up();
+      await sleep(400);
+      const moved = (await sourceData(page, 'sp-strata')).features.find((f) => f.properties.stratum === 'Wet meadow').geometry.coordinates[0][5];
+      check(moved[0] !== v[0] || moved[1] !== v[1], 'dragging a vertex did not move it');
+      await shot('2-vertex-moved');
+      await page.keyboard.press('Escape');
+      await page.keyboard.press('Control+z');
+      await sleep(300);
+      const back = (await sourceData(page, 'sp-strata')).features.find((f) => f.properties.stratum === 'Wet meadow').geometry.coordinates[0][5];
+      check(back[0] === v[0] && back[1] === v[1], 'undo did not put the vertex back');
     },
   },
   {
@@ -121,6 +146,13 @@ export const SCENARIOS = [
       const msg = await page.locator('.notice-error').textContent();
       check(/broken\.geojson/.test(msg ?? ''), `a broken file should be named in the message, saw "${msg}"`);
       await shot('3-imported');
+      // Opening a plan over unsaved work asks first; keeping the work leaves it as it was.
+      const plan = { format: 'stratplot-plan', version: 1, savedAt: '2026-12-01T00:00:00Z', site: { name: 'Other site (invented)', strata: [], parts: [], exclusions: [], access: [], boundary: null }, design: {}, result: null, rejections: [] };
+      await page.setInputFiles('input[data-open-plan]', { name: 'other.stratplot.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(plan)) });
+      await page.waitForSelector('[role="alertdialog"]');
+      await shot('3-confirm');
+      await page.getByRole('button', { name: 'Keep my work' }).click();
+      await strataRows(page, 8);
     },
   },
   {
@@ -157,6 +189,7 @@ export const SCENARIOS = [
       await page.waitForSelector('.plot-popup', { timeout: 5000 });
       const popup = await page.locator('.plot-popup').textContent();
       check(popup.includes(one.properties.plot_id) && popup.includes('MGRS'), `popup shows "${popup}"`);
+      await shot('4-popup');
       const fromFile = await page.evaluate((id) => {
         const p = window.__stratplotMap.queryRenderedFeatures({ layers: ['sp-plots'] }).find((f) => f.properties.plot_id === id);
         return p?.properties.plot_id;

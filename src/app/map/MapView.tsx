@@ -3,7 +3,8 @@ import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
 import { useEffect, useRef } from 'react';
 import type { PlotProperties } from '../../core/designTypes';
 import { DEMO_SITE_NAME } from '../demoSite';
-import { imageryLoadDemo } from '../imageryLoad';
+import { DEMO_IMAGE_NAME, imageryLoadDemo } from '../imageryLoad';
+import { imageryRemove } from './imageryControl';
 import { plannerStore } from '../plannerStoreInstance';
 import { notify } from '../usePlanner';
 import { drawControlInstall } from './drawControl';
@@ -90,6 +91,19 @@ export function MapView() {
       window.__stratplotMap = map;
       mapHandleSet(map);
       if (plannerStore.getState().site.name === DEMO_SITE_NAME) void imageryLoadDemo();
+      cleanups.push(
+        plannerStore.subscribe((s, prev) => {
+          if (s.site.name === prev.site.name) return;
+          // Another plan was opened: the demo's synthetic image belongs to the demo only.
+          if (s.site.name === DEMO_SITE_NAME) void imageryLoadDemo();
+          else if (s.imagery?.label.startsWith(DEMO_IMAGE_NAME)) {
+            imageryRemove(map);
+            plannerStore.setState({ imagery: null });
+          }
+          const b = siteBounds(s.site);
+          if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+        }),
+      );
     });
     return () => {
       for (const c of cleanups) c();

@@ -92,7 +92,7 @@ export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (
     draw.addFeatures([{ id: drawId, type: 'Feature', geometry: part.geometry, properties: { mode: 'polygon' } }]);
     draw.selectFeature(drawId);
     editing = { drawId, partId: part.id };
-    say('info', 'Drag a vertex to move it, drag a midpoint to add one; press Escape or Done when finished.');
+    say('info', 'Drag a vertex to move it, drag a midpoint to add one; press Escape (or the tool button again) when finished.');
   };
 
   const applyTool = (tool: DrawTool) => {

@@ -4,7 +4,7 @@ import { EXCLUSION_COLOURS, INK } from './palette';
 import { LABEL_PREFIX } from './labelImages';
 
 /** Source ids of the planner's own map data. */
-export const SOURCES = ['sp-strata', 'sp-buffers', 'sp-exclusions', 'sp-access', 'sp-plots', 'sp-footprints', 'sp-selection'] as const;
+export const SOURCES = ['sp-strata', 'sp-buffers', 'sp-exclusions', 'sp-access', 'sp-plots', 'sp-footprints', 'sp-selection', 'sp-baseline'] as const;
 export type SourceId = (typeof SOURCES)[number];
 
 const kindColour: unknown[] = ['match', ['get', 'kind'], ...Object.entries(EXCLUSION_COLOURS).flat(), '#555555'];
@@ -42,6 +42,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
     filter: ['==', ['geometry-type'], 'Point'],
     paint: { 'circle-radius': 6, 'circle-color': '#ffffff', 'circle-stroke-color': c, 'circle-stroke-width': 3 },
   });
+  map.addLayer({ id: 'sp-baseline', type: 'line', source: 'sp-baseline', paint: { 'line-color': INK, 'line-width': 2.5, 'line-dasharray': [4, 2] } });
   map.addLayer({ id: 'sp-selection-line', type: 'line', source: 'sp-selection', paint: { 'line-color': '#f2b134', 'line-width': 4, 'line-opacity': 0.9 } });
   map.addLayer({
     id: 'sp-footprints',

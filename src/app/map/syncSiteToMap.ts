@@ -17,6 +17,11 @@ function selectionSource(s: PlannerState): FeatureCollection {
   return { type: 'FeatureCollection', features: feature ? [feature] : [] };
 }
 
+function baselineSource(s: PlannerState): FeatureCollection {
+  const b = s.design.method === 'transect' ? s.design.baseline : null;
+  return { type: 'FeatureCollection', features: b ? [{ type: 'Feature', geometry: { type: 'LineString', coordinates: b }, properties: { id: 'baseline' } }] : [] };
+}
+
 /**
  * Pushes store state into the map's GeoJSON sources whenever the site, the design result or the
  * selection changes; buffered ground comes from the worker's analysis of the site.
@@ -37,9 +42,11 @@ export function syncSiteToMap(map: MapLibreMap, store: PlannerStore): () => void
   pushResult(now);
   if (now.analysis) siteLayerSet(map, 'sp-buffers', now.analysis.buffers);
   siteLayerSet(map, 'sp-selection', selectionSource(now));
+  siteLayerSet(map, 'sp-baseline', baselineSource(now));
   return store.subscribe((s, prev) => {
     if (s.site !== prev.site) pushSite(s);
     if (s.result !== prev.result) pushResult(s);
+    if (s.design !== prev.design) siteLayerSet(map, 'sp-baseline', baselineSource(s));
     if (s.analysis !== prev.analysis && s.analysis) siteLayerSet(map, 'sp-buffers', s.analysis.buffers);
     if (s.selection !== prev.selection || s.site !== prev.site) siteLayerSet(map, 'sp-selection', selectionSource(s));
   });

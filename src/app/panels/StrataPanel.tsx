@@ -1,5 +1,6 @@
 import { strataMerge, stratumRecode, stratumRecolour, stratumRename } from '../../state/strataActions';
 import { fmtHa, fmtPct } from '../format';
+import { siteBounds } from '../map/siteBounds';
 import { plannerStore } from '../plannerStoreInstance';
 import { useAreaTable } from '../useAreaTable';
 import { attempt, usePlanner } from '../usePlanner';
@@ -89,7 +90,21 @@ export function StrataPanel() {
                 <td className="num area-ha">{r ? fmtHa(r.area_m2) : '–'}</td>
                 <td className="num">{r ? fmtPct(r.share) : '–'}</td>
                 <td className="num">{r ? fmtHa(r.usable_m2) : '–'}</td>
-                <td className="num">{r?.features ?? 0}</td>
+                <td className="num">
+                  <button
+                    type="button"
+                    className="link"
+                    aria-label={`Show ${s.label} on the map and select it`}
+                    title="Show on the map"
+                    onClick={() => {
+                      const parts = site.parts.filter((p) => p.stratum === s.key);
+                      const bbox = siteBounds({ ...site, parts, exclusions: [], access: [] });
+                      if (bbox) plannerStore.setState({ focus: { bbox, at: Date.now() }, selection: { kind: 'part', id: parts[0].id } });
+                    }}
+                  >
+                    {r?.features ?? 0}
+                  </button>
+                </td>
                 <td>
                   <select
                     className="merge-select"

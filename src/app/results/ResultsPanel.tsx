@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { COLLAPSE_RULE } from '../../core/collapseStrata';
 import type { DesignSettings, PlotCollection } from '../../core/designTypes';
+import type { EstimateReport } from '../../core/estimateFromResults';
 import type { Site } from '../../core/types';
 import { estimatesToCsv } from '../../io/estimatesToCsv';
 import { resultsColouringSet, resultsOptionsSet } from '../../state/resultsStore';
@@ -56,10 +57,11 @@ export function ResultsPanel({ collection, onUseInDesign, site = null }: Results
   const colouring = useResults((s) => s.colouring);
   const plotValues = useResults((s) => s.plotValues);
   const variable = useResults((s) => s.variable);
-  const [message, setMessage] = useState<string | null>(null);
+  // A message is shown only for the file and estimate it was about: once they change it would mislead.
+  const [note, setNote] = useState<{ text: string; about: EstimateReport | null } | null>(null);
+  const message = note && note.about === report ? note.text : null;
+  const setMessage = (text: string) => setNote({ text, about: resultsStore.getState().report });
 
-  // A message about an earlier file or estimate would mislead once the figures change.
-  useEffect(() => setMessage(null), [table, report?.variable]);
   // Results are matched to the current plots: re-check when a new design replaces them.
   useEffect(() => {
     resultsOptionsSet(resultsStore, {}, collection);

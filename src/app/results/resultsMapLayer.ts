@@ -2,7 +2,7 @@ import type { FeatureCollection } from 'geojson';
 import type { GeoJSONSource, Map as MapLibreMap } from 'maplibre-gl';
 import type { PlotCollection } from '../../core/designTypes';
 import type { PlannerStore } from '../../state/plannerStore';
-import type { ResultsColouring } from '../../state/resultsStore';
+import { type ResultsColouring, resultsColouringSet } from '../../state/resultsStore';
 import { resultsStore } from './resultsStoreInstance';
 
 const SOURCE = 'sp-results-colour';
@@ -20,7 +20,8 @@ export function resultsColourSource(result: PlotCollection | null, colouring: Re
 
 /**
  * Adds a layer that paints measured plots in the results colour ramp over the usual plot dots
- * (below the labels), and keeps it in step with the results store and the planner's plots.
+ * (below the labels), and keeps it in step with the results store and the planner's plots; a
+ * new design clears the colours until the Results step has checked the results against it.
  * Call once the map's style and site layers are loaded; returns an unsubscribe function.
  */
 export function resultsMapLayerInstall(map: MapLibreMap, planner: PlannerStore): () => void {
@@ -40,7 +41,10 @@ export function resultsMapLayerInstall(map: MapLibreMap, planner: PlannerStore):
     if (s.colouring !== prev.colouring) push();
   });
   const offPlanner = planner.subscribe((s, prev) => {
-    if (s.result !== prev.result) push();
+    if (s.result === prev.result) return;
+    // Colours were worked out for the old plots; new plots may reuse their ids at other places.
+    if (resultsStore.getState().colouring) resultsColouringSet(resultsStore, null);
+    else push();
   });
   return () => {
     offResults();

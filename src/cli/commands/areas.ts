@@ -2,9 +2,11 @@ import { parseArgs } from 'node:util';
 import { InputError } from '../../core/InputError';
 import { type StratumAreaTable, stratumAreaTable } from '../../core/stratumAreaTable';
 import type { CliIo, Command } from '../command';
+import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { siteFromInputs } from '../siteFromInputs';
 
 const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--boundary FILE] [--json]
+                       [--layer NAME] [--epsg CODE] [--encoding NAME] [--x-column X --y-column Y]
 
 Mapped and usable area of every stratum, measured on the WGS84 ellipsoid (geodesic edges,
 Karney 2013). Usable area is the stratum less its exclusions widened by their buffer_m (clipped
@@ -16,6 +18,8 @@ Options:
   --boundary FILE  site boundary (one polygon): warns of ground inside it that no stratum covers
   --json           print {"strata":[{stratum, features, area_m2, area_ha, share, usable_m2}],
                    "total_m2", "crs":{utm_zone, epsg}}; m² to 0.001, ha to 1e-7, share to 1e-9
+
+${importFlagsHelp('<strata-file>')}
 
 Exit status: 0 done; 2 bad input (one line on stderr saying what and where).`;
 
@@ -63,7 +67,7 @@ function argsParse(argv: string[]) {
   try {
     return parseArgs({
       args: argv,
-      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' } },
+      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' }, ...IMPORT_FLAG_SPECS },
       allowPositionals: true,
       strict: true,
     });
@@ -85,7 +89,8 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 1) {
     throw new InputError(positionals.length === 0 ? 'give one strata file (see stratplot areas --help)' : `give one strata file, not ${positionals.length}: ${positionals.join(' ')}`);
   }
-  const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude, boundary: values.boundary });
+  const imports = importFlagsRead(values);
+  const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude, boundary: values.boundary, imports });
   for (const w of warnings) io.err(`warning: ${w}\n`);
   const table = stratumAreaTable(site);
   io.out(values.json ? areasJson(table) : areasText(table));

@@ -6,6 +6,7 @@ import type { Site } from '../../core/types';
 import { designOutputBytes } from '../../io/designOutput';
 import { parsePlotFile } from '../../io/parsePlotFile';
 import type { CliIo, Command } from '../command';
+import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
 
@@ -41,6 +42,8 @@ ${Object.entries(FORMATS)
   --paper P           sheets/report: a4 | letter (default a4)
   --survey-date D     sheets: survey day YYYY-MM-DD (sets the magnetic declination; default today)
 
+${importFlagsHelp('--strata FILE')}
+
 Plot positions are a plan: on the ground follow local codes, the landholder's permission and your
 employer's safety plan, and do not enter ground that is unsafe on the day.`;
 
@@ -64,6 +67,7 @@ export const exportCommand: Command = {
           bom: { type: 'boolean' },
           paper: { type: 'string' },
           'survey-date': { type: 'string' },
+          ...IMPORT_FLAG_SPECS,
         },
       });
     } catch (error) {
@@ -96,11 +100,14 @@ export const exportCommand: Command = {
       throw new InputError('--exclude and --access need --strata (the map the design was made on)');
     }
 
+    const imports = importFlagsRead(values as ImportFlagValues);
+    const usesImports = Object.keys(IMPORT_FLAG_SPECS).some((k) => values[k] !== undefined);
+    if (!values.strata && usesImports) throw new InputError('--layer, --epsg, --encoding and --x-column/--y-column say how to read --strata FILE; give --strata');
     const plotsFile = await readInputFile(io, positionals[0]);
     const collection = parsePlotFile(plotsFile.name, plotsFile.bytes);
     let site: Site | undefined;
     if (values.strata) {
-      const loaded = await siteFromInputs(io, { strata: String(values.strata), field: values.field as string | undefined, exclude, access });
+      const loaded = await siteFromInputs(io, { strata: String(values.strata), field: values.field as string | undefined, exclude, access, imports });
       site = loaded.site;
       for (const w of loaded.warnings) io.err(`warning: ${w}\n`);
     }

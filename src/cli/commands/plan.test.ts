@@ -95,7 +95,7 @@ describe('stratplot plan', () => {
     const r = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--target-halfwidth', '10%', '--pilot-mean', '40', '--sd', sd, '--seed', '2', '--json']);
     expect(r.code).toBe(0);
     const design = JSON.parse(r.out);
-    // Proportional, no fpc (point plots): n0 = S² (z/d)² = 144 · (1.96/4)² = 34.57 (Cochran 1977, §5.10);
+    // Proportional, no fpc (point plots): n0 = S² (z/d)² = 144 · (1.96/4)² = 34.57 (Cochran 1977, ch. 5; REFERENCES.md §3);
     // with the minimum of 2 in each small stratum the smallest whole design meeting d is a little larger.
     expect(design.statements.join(' ')).toMatch(/continuous formula gave 34\.57/);
     const n = design.allocation.reduce((a: number, row: { plots: number }) => a + row.plots, 0);

@@ -11,6 +11,7 @@ import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../../io/parseFeatureFile';
 import { strataFromFeatures } from '../../io/strataFromFeatures';
 import type { CliIo, Command } from '../command';
+import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { readInputFile } from '../readInput';
 
 const USAGE = `stratplot traps <strata-file> --grids G --rows R --cols C --spacing S --separation D [options]
@@ -30,7 +31,9 @@ Options:
   --angle DEG         turn of the rows from true east, degrees clockwise (default 0)
   --seed N            random seed (default from the clock, printed)
   --out FILE          write the stations: .geojson/.json plot file, or .gpx .kml .kmz .csv .zip .gpkg .pdf
-  --json              print the grids and warnings as JSON`;
+  --json              print the grids and warnings as JSON
+
+${importFlagsHelp('<strata-file>')}`;
 
 function num(v: string | undefined, name: string, fallback?: number): number {
   if (v === undefined) {
@@ -81,12 +84,13 @@ export const trapsCommand: Command = {
     }
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot traps --help`);
+    const imports = importFlagsRead(o);
     const strataFile = await readInputFile(io, positionals[0]);
-    const { strata, parts } = strataFromFeatures(await parseFeatureFile(strataFile.name, strataFile.bytes), { field: o.field, fileName: strataFile.name });
+    const { strata, parts } = strataFromFeatures(await parseFeatureFile(strataFile.name, strataFile.bytes, imports.strata), { field: o.field, fileName: strataFile.name });
     const exclusions: Exclusion[] = [];
     for (const path of o.exclude ?? []) {
       const file = await readInputFile(io, path);
-      exclusions.push(...exclusionsFromFeatures(await parseFeatureFile(file.name, file.bytes), { fileName: file.name }));
+      exclusions.push(...exclusionsFromFeatures(await parseFeatureFile(file.name, file.bytes, imports.other), { fileName: file.name }));
     }
     const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
     const errors = siteValidate(site).filter((p) => p.severity === 'error');
@@ -135,6 +139,7 @@ function parse(argv: string[]) {
       seed: { type: 'string' },
       out: { type: 'string' },
       json: { type: 'boolean' },
+      ...IMPORT_FLAG_SPECS,
     },
   });
 }
