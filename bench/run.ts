@@ -1,5 +1,5 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -138,3 +138,4 @@ const cli = cliRun(files, 10000);
 console.log(`  whole CLI process (bin/stratplot.mjs plan … --out): ${cli.ms.toFixed(0)} ms (target ≤ 1 500 ms), exit ${cli.code}` + (cli.peakMb ? `, peak RSS ${cli.peakMb.toFixed(0)} MB` : ''));
 if (cli.code !== 0) console.log(`  CLI said: ${cli.err.split('\n')[0]}`);
 console.log(`\n(result sink ${sink.toFixed(3)})`);
+rmSync(dir, { recursive: true, force: true });

@@ -7,7 +7,7 @@ import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../io/parseFeatureFile';
 import { strataFromFeatures } from '../io/strataFromFeatures';
 import type { CliIo } from './command';
-import type { ImportChoices } from './importFlags';
+import { type ImportChoices, importOptionsFor, importOtherFile } from './importFlags';
 import { readInputFile } from './readInput';
 
 /** Map files named on a command line. */
@@ -43,7 +43,9 @@ function failOn(file: string, problems: Problem[]): string[] {
 export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ site: Site; warnings: string[] }> {
   const load = async (path: string, isStrata = false) => {
     const { name, bytes } = await readInputFile(io, path);
-    return { name, fc: await parseFeatureFile(name, bytes, (isStrata ? inputs.imports?.strata : inputs.imports?.other) ?? {}) };
+    const imports = inputs.imports ?? { strata: {}, other: {} };
+    const fc = isStrata ? await parseFeatureFile(name, bytes, importOptionsFor(name, imports.strata)) : await importOtherFile(name, bytes, imports);
+    return { name, fc };
   };
   const strataFile = await load(inputs.strata, true);
   const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });

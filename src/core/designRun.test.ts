@@ -1,3 +1,4 @@
+import geodesic from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
 import { designRun } from './designRun';
 import { designSettingsDefault } from './designSettingsDefault';
@@ -52,6 +53,23 @@ describe('designRun', () => {
     expect(row.plots).toBe(0);
     expect(r.design.allocation.reduce((n, x) => n + x.plots, 0)).toBe(20);
     expect(r.design.warnings.join(' ')).toMatch(/stratum "S1" has no usable area/);
+  });
+
+  it('gives each plot its distance to the nearest exclusion as GeographicLib measures it, and its design density', () => {
+    // geographiclib-geodesic 2.2.0 (Karney 2013): geodesic distance from the plot to the hazard point.
+    const lone = siteInventedRandom(9, 2, 0);
+    const [lon, lat] = (lone.parts[0].geometry.coordinates as number[][][])[0][0];
+    lone.exclusions.push({ id: 'shaft', kind: 'hazard', bufferM: 30, geometry: { type: 'Point', coordinates: [lon + 0.001, lat + 0.001] } });
+    const r = designRun(lone, designSettingsDefault({ plots: 12, seed: 3 }));
+    for (const f of r.features) {
+      const p = f.properties;
+      const s12 = geodesic.Geodesic.WGS84.Inverse(p.lat, p.lon, lat + 0.001, lon + 0.001).s12 as number;
+      expect(p.nearest_exclusion_kind).toBe('hazard');
+      // 0.05 m for the 0.1 m rounding, 0.01 m for 7-decimal coordinates.
+      expect(Math.abs(p.nearest_exclusion_m! - s12)).toBeLessThan(0.06);
+      const row = r.design.allocation.find((x) => x.stratum === p.stratum)!;
+      expect(p.design_density_per_ha).toBeCloseTo(row.plots / (row.usable_m2 / 10000), 5);
+    }
   });
 
   it('throws an InputError naming the setting for impossible requests', () => {

@@ -40,8 +40,11 @@ export interface PlacementHooks {
   tick?: () => void;
 }
 
-/** No more than this many refused candidates in a row before a stratum counts as full (common practice, no source). */
-export const MAX_CONSECUTIVE_FAILURES = 5000;
+/**
+ * Refused candidates in a row before a stratum counts as full: with even 1 candidate in 1 000 fitting,
+ * giving up too early has a chance of e^-20 (common practice, no source).
+ */
+export const MAX_CONSECUTIVE_FAILURES = 20000;
 
 /**
  * Sequential inhibition: takes candidates from `source` in order and keeps each one whose footprint

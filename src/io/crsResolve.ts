@@ -28,6 +28,8 @@ const GRS80_NO_SHIFT = '+ellps=GRS80 +towgs84=0,0,0,0,0,0,0';
  */
 const FIXED: Record<number, string> = {
   4326: '+proj=longlat +datum=WGS84 +no_defs',
+  // WGS 84 geographic 3D: the same longitude/latitude; heights are carried through untouched.
+  4979: '+proj=longlat +datum=WGS84 +no_defs',
   4258: `+proj=longlat ${GRS80_NO_SHIFT} +no_defs`,
   4283: `+proj=longlat ${GRS80_NO_SHIFT} +no_defs`,
   7844: `+proj=longlat ${GRS80_NO_SHIFT} +no_defs`,
@@ -58,7 +60,7 @@ export function crsProj4Definition(epsg: number): string | null {
 
 /** Every EPSG code {@link crsResolveEpsg} accepts, described in words for error messages. */
 export const SUPPORTED_EPSG_TEXT =
-  '4326, 4258, 4269, 4283, 7844, 4167, 3857, 27700, 2193, 2154, 3035, 32601–32660, 32701–32760, ' +
+  '4326, 4979, 4258, 4269, 4283, 7844, 4167, 3857, 27700, 2193, 2154, 3035, 32601–32660, 32701–32760, ' +
   '25828–25838, 26901–26923, 28348–28358, 7846–7859';
 
 /**

@@ -53,6 +53,8 @@ describe('featuresToWgs84', () => {
     expect(at(fc)).toEqual([334368.634, 6250948.345, 12.5]);
     const wgs = points([151.2, -33.9]);
     expect(featuresToWgs84(wgs, 4326, 'w.geojson')).toBe(wgs);
+    // EPSG:4979 is WGS 84 geographic 3D (EPSG dataset): the same longitude and latitude.
+    expect(at(featuresToWgs84(points([151.2, -33.9, 40]), 4979, 'w3d.geojson'))).toEqual([151.2, -33.9, 40]);
   });
 
   it('names the feature and position that do not convert', () => {

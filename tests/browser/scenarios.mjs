@@ -66,6 +66,15 @@ export const SCENARIOS = [
       await page.getByRole('button', { name: /Mark exclusions/ }).click();
       await page.waitForSelector('text=Buffers here are planning distances');
       await shot('1-exclusions-sheet');
+      // Delete removes the selected feature; Ctrl+Z brings it back.
+      const exclusionRows = () => page.locator('table[aria-label="Exclusions"] tbody tr').count();
+      const before = await exclusionRows();
+      await page.getByRole('button', { name: 'Show Old mine shaft on the map' }).click();
+      await page.keyboard.press('Delete');
+      await page.waitForFunction((n) => document.querySelectorAll('table[aria-label="Exclusions"] tbody tr').length === n - 1, before, { timeout: 5000 });
+      await page.keyboard.press('Control+z');
+      await page.waitForFunction((n) => document.querySelectorAll('table[aria-label="Exclusions"] tbody tr').length === n, before, { timeout: 5000 });
+      check((await exclusionRows()) === before, 'undo did not restore the deleted exclusion');
       // Tablet, portrait: the map on top, the sheet below it.
       await page.setViewportSize({ width: 820, height: 1180 });
       await page.getByRole('button', { name: /Map strata/ }).click();
@@ -123,6 +132,21 @@ export const SCENARIOS = [
       await sleep(300);
       const back = (await sourceData(page, 'sp-strata')).features.find((f) => f.properties.stratum === 'Wet meadow').geometry.coordinates[0][5];
       check(back[0] === v[0] && back[1] === v[1], 'undo did not put the vertex back');
+      // Drawing beside neighbours: a square over the southern tip of the heath is clipped to the open ground.
+      const heath = (await sourceData(page, 'sp-strata')).features.find((f) => f.properties.stratum === 'Coastal heath');
+      const tip = heath.geometry.coordinates[0].reduce((m, c) => (c[1] < m[1] ? c : m));
+      const d = 0.0005;
+      await page.evaluate((b) => window.__stratplotMap.fitBounds(b, { duration: 0, padding: 120 }), [tip[0] - 2 * d, tip[1] - 2 * d, tip[0] + 2 * d, tip[1] + 2 * d]);
+      await mapIdle(page);
+      await page.keyboard.press('b');
+      for (const [x, y] of [[tip[0] - d, tip[1] - d], [tip[0] + d, tip[1] - d], [tip[0] + d, tip[1] + d], [tip[0] - d, tip[1] + d], [tip[0] - d, tip[1] - d]]) {
+        await clickLngLat(page, x, y);
+        await sleep(160);
+      }
+      await strataRows(page, 7);
+      const problems = (await page.locator('.problems').textContent().catch(() => '')) ?? '';
+      check(!/overlap/i.test(problems), `the stratum drawn beside its neighbours overlaps them: ${problems}`);
+      await shot('2-beside');
     },
   },
   {

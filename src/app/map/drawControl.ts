@@ -1,4 +1,3 @@
-import KDBush from 'kdbush';
 import type { Map as MapLibreMap } from 'maplibre-gl';
 import type { Polygon } from 'geojson';
 import {
@@ -10,58 +9,33 @@ import {
   TerraDrawSelectMode,
 } from 'terra-draw';
 import { TerraDrawMapLibreGLAdapter } from 'terra-draw-maplibre-gl-adapter';
-import type { Site } from '../../core/types';
 import { drawFinish, TOOL_GEOMETRY } from '../../state/drawFinish';
 import type { DrawTool, PlannerStore } from '../../state/plannerStore';
 import { stratumPartReshape } from '../../state/strataActions';
+import { strataSnapIndexBuild, strataSnapNearest } from './strataSnap';
 
 const SNAP_PX = 10;
 
-interface VertexIndex {
-  index: KDBush;
-  coords: Float64Array;
-}
-
-function vertexIndexBuild(site: Site): VertexIndex | null {
-  const pts: number[] = [];
-  for (const p of site.parts) {
-    const polys = p.geometry.type === 'Polygon' ? [p.geometry.coordinates] : p.geometry.coordinates;
-    for (const poly of polys) for (const ring of poly) for (const c of ring) pts.push(c[0], c[1]);
-  }
-  if (pts.length === 0) return null;
-  const n = pts.length / 2;
-  const index = new KDBush(n);
-  for (let i = 0; i < n; i++) index.add(pts[2 * i], pts[2 * i + 1]);
-  index.finish();
-  return { index, coords: Float64Array.from(pts) };
-}
-
 /**
  * Puts terra-draw on the map and follows the store's drawing tool: polygons, lines and points
- * become site edits through drawFinish, snapping to the vertices of mapped strata within 10 px so
- * neighbours can share vertices; the edit tool reshapes the selected stratum feature. terra-draw
+ * become site edits through drawFinish, snapping to the vertices (first) and edges of mapped strata
+ * within 10 px so neighbours can share boundaries; the edit tool reshapes the selected stratum feature. terra-draw
  * keeps no history of its own: every finished shape is one step in the store's undo history.
  */
 export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (tone: 'info' | 'error', text: string) => void): () => void {
-  let vertices = vertexIndexBuild(store.getState().site);
+  let snapIndex = strataSnapIndexBuild(store.getState().site);
   const snapToStrata: SnapToCustom = (event) => {
-    if (!vertices) return undefined;
+    if (!snapIndex) return undefined;
     const a = map.unproject([event.containerX - SNAP_PX, event.containerY + SNAP_PX]);
     const b = map.unproject([event.containerX + SNAP_PX, event.containerY - SNAP_PX]);
-    const found = vertices.index.range(a.lng, a.lat, b.lng, b.lat);
-    let best: [number, number] | undefined;
-    let bestD = Infinity;
-    for (const i of found) {
-      const lon = vertices.coords[2 * i];
-      const lat = vertices.coords[2 * i + 1];
-      const p = map.project([lon, lat]);
-      const d = Math.hypot(p.x - event.containerX, p.y - event.containerY);
-      if (d < bestD) {
-        bestD = d;
-        best = [lon, lat];
-      }
-    }
-    return bestD <= SNAP_PX ? best : undefined;
+    return strataSnapNearest(
+      snapIndex,
+      { x: event.containerX, y: event.containerY },
+      [a.lng, a.lat, b.lng, b.lat],
+      (lon, lat) => map.project([lon, lat]),
+      (x, y) => map.unproject([x, y]).toArray() as [number, number],
+      SNAP_PX,
+    );
   };
   const snapping = { toCustom: snapToStrata };
   const draw = new TerraDraw({
@@ -128,7 +102,7 @@ export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (
   });
 
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.site !== prev.site) vertices = vertexIndexBuild(s.site);
+    if (s.site !== prev.site) snapIndex = strataSnapIndexBuild(s.site);
     if (s.tool !== prev.tool) applyTool(s.tool);
   });
   applyTool(store.getState().tool);

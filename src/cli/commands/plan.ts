@@ -11,10 +11,10 @@ import { siteValidate } from '../../core/siteValidate';
 import type { Exclusion, Site } from '../../core/types';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
 import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
-import { type FeatureFileOptions, parseFeatureFile } from '../../io/parseFeatureFile';
+import { parseFeatureFile } from '../../io/parseFeatureFile';
 import { strataFromFeatures } from '../../io/strataFromFeatures';
 import type { CliIo, Command } from '../command';
-import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
+import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOptionsFor, importOtherFile } from '../importFlags';
 import { readInputFile } from '../readInput';
 
 const USAGE = `stratplot plan <strata-file> --plots N [options]
@@ -90,9 +90,9 @@ function keyValues(v: string | undefined, name: string, keys: readonly string[])
   return out;
 }
 
-async function readBaseline(io: CliIo, path: string, options: FeatureFileOptions): Promise<number[][]> {
+async function readBaseline(io: CliIo, path: string, imports: ImportChoices): Promise<number[][]> {
   const file = await readInputFile(io, path);
-  const fc = await parseFeatureFile(file.name, file.bytes, options);
+  const fc = await importOtherFile(file.name, file.bytes, imports);
   for (const f of fc.features) {
     if (f.geometry?.type === 'LineString') return f.geometry.coordinates;
     if (f.geometry?.type === 'MultiLineString' && f.geometry.coordinates.length) return f.geometry.coordinates[0];
@@ -137,12 +137,12 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   }
   const imports = importFlagsRead(o);
   const strataFile = await readInputFile(io, positionals[0]);
-  const fc = await parseFeatureFile(strataFile.name, strataFile.bytes, imports.strata);
+  const fc = await parseFeatureFile(strataFile.name, strataFile.bytes, importOptionsFor(strataFile.name, imports.strata));
   const { strata, parts } = strataFromFeatures(fc, { field: o.field, fileName: strataFile.name });
   const exclusions: Exclusion[] = [];
   for (const path of o.exclude ?? []) {
     const file = await readInputFile(io, path);
-    exclusions.push(...exclusionsFromFeatures(await parseFeatureFile(file.name, file.bytes, imports.other), { fileName: file.name }));
+    exclusions.push(...exclusionsFromFeatures(await importOtherFile(file.name, file.bytes, imports), { fileName: file.name }));
   }
   const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
   const problems = siteValidate(site);
@@ -189,7 +189,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     method: method as DesignSettings['method'],
     gridSpacingM: numberOption(o['grid-spacing'], '--grid-spacing') ?? null,
     gridAngleDeg: numberOption(o['grid-angle'], '--grid-angle') ?? 0,
-    baseline: o.baseline ? await readBaseline(io, o.baseline, imports.other) : null,
+    baseline: o.baseline ? await readBaseline(io, o.baseline, imports) : null,
     transectIntervalM: numberOption(o['transect-interval'], '--transect-interval') ?? null,
     quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval') ?? null,
     seed,

@@ -11,7 +11,7 @@ import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
 import { parseFeatureFile } from '../../io/parseFeatureFile';
 import { strataFromFeatures } from '../../io/strataFromFeatures';
 import type { CliIo, Command } from '../command';
-import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
+import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead, importOptionsFor, importOtherFile } from '../importFlags';
 import { readInputFile } from '../readInput';
 
 const USAGE = `stratplot traps <strata-file> --grids G --rows R --cols C --spacing S --separation D [options]
@@ -86,11 +86,11 @@ export const trapsCommand: Command = {
     if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot traps --help`);
     const imports = importFlagsRead(o);
     const strataFile = await readInputFile(io, positionals[0]);
-    const { strata, parts } = strataFromFeatures(await parseFeatureFile(strataFile.name, strataFile.bytes, imports.strata), { field: o.field, fileName: strataFile.name });
+    const { strata, parts } = strataFromFeatures(await parseFeatureFile(strataFile.name, strataFile.bytes, importOptionsFor(strataFile.name, imports.strata)), { field: o.field, fileName: strataFile.name });
     const exclusions: Exclusion[] = [];
     for (const path of o.exclude ?? []) {
       const file = await readInputFile(io, path);
-      exclusions.push(...exclusionsFromFeatures(await parseFeatureFile(file.name, file.bytes, imports.other), { fileName: file.name }));
+      exclusions.push(...exclusionsFromFeatures(await importOtherFile(file.name, file.bytes, imports), { fileName: file.name }));
     }
     const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
     const errors = siteValidate(site).filter((p) => p.severity === 'error');

@@ -1,0 +1,36 @@
+import type { Polygon } from 'geojson';
+import { describe, expect, it } from 'vitest';
+import { designRun } from '../../core/designRun';
+import { designSettingsDefault } from '../../core/designSettingsDefault';
+import { polygonAreaM2 } from '../../core/polygonAreaM2';
+import type { Site } from '../../core/types';
+import { footprintsSource, plotsSource, strataSource } from './siteSources';
+
+const site: Site = {
+  name: 'test (invented)',
+  strata: [{ key: 'Heath', label: 'Heath', code: 'HEA', colour: '#cc6677' }],
+  parts: [{ id: 'p1', stratum: 'Heath', geometry: { type: 'Polygon', coordinates: [[[150, -35], [150.01, -35], [150.01, -34.99], [150, -34.99], [150, -35]]] } }],
+  exclusions: [],
+  access: [],
+  boundary: null,
+};
+
+describe('map sources built from the plan', () => {
+  it('draws each square footprint with the ground area of its side squared', () => {
+    const result = designRun(site, designSettingsDefault({ plots: 4, footprint: { shape: 'square', sideM: 20, angleDeg: 30 }, seed: 3 }));
+    const fps = footprintsSource(result);
+    expect(fps.features).toHaveLength(4);
+    for (const f of fps.features) {
+      // 20 m × 20 m = 400 m² on the ground (elementary geometry; measured on WGS84 by polygonAreaM2;
+      // the UTM scale factor here, ~1.0005, allows 0.2 %).
+      expect(Math.abs(polygonAreaM2(f.geometry as Polygon) - 400) / 400).toBeLessThan(0.002);
+    }
+  });
+
+  it('gives plots one styling state from role and field status, and strata their colour and code', () => {
+    const result = designRun(site, designSettingsDefault({ plots: 2, reservePerStratum: 1, seed: 3 }));
+    const states = plotsSource(result).features.map((f) => f.properties?.state);
+    expect(states.sort()).toEqual(['primary', 'primary', 'reserve']);
+    expect(strataSource(site).features[0].properties).toMatchObject({ code: 'HEA', colour: '#cc6677', label: 'Heath' });
+  });
+});
