@@ -51,7 +51,9 @@ export function StrataPanel() {
             <th scope="col" className="num">Mapped ha</th>
             <th scope="col" className="num">Share</th>
             <th scope="col" className="num">Usable ha</th>
-            <th scope="col" className="num">Features</th>
+            <th scope="col" className="num">
+              <abbr title="mapped features">Feat.</abbr>
+            </th>
             <th scope="col">Merge</th>
           </tr>
         </thead>
