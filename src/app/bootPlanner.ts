@@ -21,7 +21,10 @@ export async function bootPlanner(): Promise<void> {
   } else {
     plannerStore.setState({ notice: { tone: 'info', text: 'Your work was restored from this browser’s copy.' } });
   }
-  autosaveStart(plannerStore, storage, 250, () =>
+  const { flush } = autosaveStart(plannerStore, storage, 150, () =>
     plannerStore.setState({ notice: { tone: 'error', text: 'This browser refused to keep a copy of your work: save a plan file to be safe.' } }),
   );
+  // An edit made just before the page is hidden or closed is written at once, not after the delay.
+  document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && void flush());
+  window.addEventListener('pagehide', () => void flush());
 }

@@ -28,7 +28,11 @@ export function coordinateProblems(features: readonly PositionedFeature[]): Prob
   const problems: Problem[] = [];
   for (const f of features) {
     for (let v = 0; v < f.positions.length; v++) {
-      const [lon, lat] = f.positions[v];
+      const p = f.positions[v];
+      const lon = p[0];
+      const lat = p[1];
+      // The common case, a good vertex, allocates nothing (this runs once per vertex of the map).
+      if (!looksProjected && Math.abs(lon) <= 180 && Math.abs(lat) <= 90) continue;
       const where = { ...f.where, vertex: v };
       if (!Number.isFinite(lon) || !Number.isFinite(lat)) {
         problems.push(problemMake('error', 'coordinate-not-finite', where, `vertex ${v} is not a finite number pair`));

@@ -16,8 +16,14 @@ function onSegment(ax: number, ay: number, bx: number, by: number, px: number, p
 }
 
 function segmentsMeet(s: Float64Array, i: number, j: number): Meet {
-  const [ax, ay, bx, by] = [s[4 * i], s[4 * i + 1], s[4 * i + 2], s[4 * i + 3]];
-  const [cx, cy, dx, dy] = [s[4 * j], s[4 * j + 1], s[4 * j + 2], s[4 * j + 3]];
+  const ax = s[4 * i];
+  const ay = s[4 * i + 1];
+  const bx = s[4 * i + 2];
+  const by = s[4 * i + 3];
+  const cx = s[4 * j];
+  const cy = s[4 * j + 1];
+  const dx = s[4 * j + 2];
+  const dy = s[4 * j + 3];
   const o1 = orient(ax, ay, bx, by, cx, cy);
   const o2 = orient(ax, ay, bx, by, dx, dy);
   const o3 = orient(cx, cy, dx, dy, ax, ay);
@@ -63,7 +69,10 @@ export function polygonSelfIntersections(rings: readonly (readonly Position[])[]
   let k = 0;
   rings.forEach((ring, r) => {
     for (let i = 0; i + 1 < ring.length; i++, k++) {
-      segs.set([ring[i][0], ring[i][1], ring[i + 1][0], ring[i + 1][1]], 4 * k);
+      segs[4 * k] = ring[i][0];
+      segs[4 * k + 1] = ring[i][1];
+      segs[4 * k + 2] = ring[i + 1][0];
+      segs[4 * k + 3] = ring[i + 1][1];
       ringOf[k] = r;
       indexInRing[k] = i;
       index.add(Math.min(ring[i][0], ring[i + 1][0]), Math.min(ring[i][1], ring[i + 1][1]), Math.max(ring[i][0], ring[i + 1][0]), Math.max(ring[i][1], ring[i + 1][1]));
@@ -71,28 +80,32 @@ export function polygonSelfIntersections(rings: readonly (readonly Position[])[]
   });
   index.finish();
   const problems: Problem[] = [];
-  for (let a = 0; a < count && problems.length < limit; a++) {
-    const hits = index.search(
+  let a = 0;
+  // The filter does the work and keeps nothing, so a search allocates no result array.
+  const visit = (b: number): boolean => {
+    if (b <= a || problems.length >= limit) return false;
+    const meet = segmentsMeet(segs, a, b);
+    if (!meet) return false;
+    const sameRing = ringOf[a] === ringOf[b];
+    const n = ringLength[ringOf[a]];
+    const gap = Math.abs(indexInRing[a] - indexInRing[b]);
+    // Neighbours share a vertex; only folding back along each other (a spike) is a problem.
+    if (sameRing && (gap === 1 || gap === n - 1) && meet.kind !== 'overlap') return false;
+    if (!sameRing && meet.kind === 'touch') return false;
+    const text = sameRing
+      ? `crosses itself: edges ${indexInRing[a]} and ${indexInRing[b]} meet`
+      : `crosses ring ${ringOf[b]} (its edge ${indexInRing[b]})`;
+    problems.push(problemMake('error', 'self-intersection', { ...where, ring: ringOf[a], vertex: indexInRing[a], lonLat: [meet.x, meet.y] }, text));
+    return false;
+  };
+  for (a = 0; a < count && problems.length < limit; a++) {
+    index.search(
       Math.min(segs[4 * a], segs[4 * a + 2]),
       Math.min(segs[4 * a + 1], segs[4 * a + 3]),
       Math.max(segs[4 * a], segs[4 * a + 2]),
       Math.max(segs[4 * a + 1], segs[4 * a + 3]),
+      visit,
     );
-    for (const b of hits) {
-      if (b <= a || problems.length >= limit) continue;
-      const meet = segmentsMeet(segs, a, b);
-      if (!meet) continue;
-      const sameRing = ringOf[a] === ringOf[b];
-      const n = ringLength[ringOf[a]];
-      const gap = Math.abs(indexInRing[a] - indexInRing[b]);
-      // Neighbours share a vertex; only folding back along each other (a spike) is a problem.
-      if (sameRing && (gap === 1 || gap === n - 1) && meet.kind !== 'overlap') continue;
-      if (!sameRing && meet.kind === 'touch') continue;
-      const text = sameRing
-        ? `crosses itself: edges ${indexInRing[a]} and ${indexInRing[b]} meet`
-        : `crosses ring ${ringOf[b]} (its edge ${indexInRing[b]})`;
-      problems.push(problemMake('error', 'self-intersection', { ...where, ring: ringOf[a], vertex: indexInRing[a], lonLat: [meet.x, meet.y] }, text));
-    }
   }
   return problems;
 }

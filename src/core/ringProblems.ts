@@ -7,6 +7,19 @@ export const SPIKE_ANGLE_DEG = 1;
 
 const same = (a: Position, b: Position) => a[0] === b[0] && a[1] === b[1];
 
+/** How many distinct points `points` has, counting no further than three (one pass, no allocation). */
+function distinctUpToThree(points: readonly Position[]): number {
+  if (points.length === 0) return 0;
+  const a = points[0];
+  let b: Position | null = null;
+  for (const p of points) {
+    if (same(p, a)) continue;
+    if (b === null) b = p;
+    else if (!same(p, b)) return 3;
+  }
+  return b === null ? 1 : 2;
+}
+
 /**
  * Problems of one polygon ring on its own: not closed (error), fewer than 3 distinct points
  * (error), duplicate consecutive vertices (warning; repairable), and spikes — a vertex where the
@@ -43,9 +56,9 @@ export function ringProblems(ring: readonly Position[], where: ProblemLocation):
         `${duplicates} duplicate consecutive vertex${duplicates > 1 ? 'es' : ''} (first at vertex ${firstDuplicate})`),
     );
   }
-  const unique = new Set(distinct.map((p) => `${p[0]},${p[1]}`));
-  if (unique.size < 3) {
-    problems.push(problemMake('error', 'ring-too-few-points', { ...where, lonLat: open[0] }, `ring has ${unique.size} distinct point${unique.size === 1 ? '' : 's'}; a polygon needs at least 3`));
+  const unique = distinctUpToThree(distinct);
+  if (unique < 3) {
+    problems.push(problemMake('error', 'ring-too-few-points', { ...where, lonLat: open[0] }, `ring has ${unique} distinct point${unique === 1 ? '' : 's'}; a polygon needs at least 3`));
     return problems;
   }
   const n = distinct.length;

@@ -20,10 +20,15 @@ interface AutosaveRecord {
 
 /**
  * Writes the working plan to storage after every change (site, design, result, field decisions),
- * coalescing bursts into one write per `delayMs`. Returns a function that stops autosave and
- * flushes a pending write.
+ * coalescing bursts into one write per `delayMs`. Returns `flush` (write a pending change now, e.g.
+ * when the page is being hidden or closed) and `stop` (stop autosave after flushing).
  */
-export function autosaveStart(store: PlannerStore, storage: AutosaveStorage, delayMs = 250, onError?: (e: unknown) => void): () => Promise<void> {
+export function autosaveStart(
+  store: PlannerStore,
+  storage: AutosaveStorage,
+  delayMs = 250,
+  onError?: (e: unknown) => void,
+): { flush: () => Promise<void>; stop: () => Promise<void> } {
   let timer: ReturnType<typeof setTimeout> | null = null;
   let writing: Promise<void> = Promise.resolve();
   const write = () => {
@@ -36,13 +41,19 @@ export function autosaveStart(store: PlannerStore, storage: AutosaveStorage, del
     if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.rejections === prev.rejections && s.savedRevision === prev.savedRevision) return;
     if (timer === null) timer = setTimeout(write, delayMs);
   });
-  return async () => {
-    unsubscribe();
+  const flush = async () => {
     if (timer !== null) {
       clearTimeout(timer);
       write();
     }
     await writing;
+  };
+  return {
+    flush,
+    stop: async () => {
+      unsubscribe();
+      await flush();
+    },
   };
 }
 

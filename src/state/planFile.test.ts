@@ -49,7 +49,7 @@ describe('autosave', () => {
   it('keeps the working plan in storage after a change and restores it into a fresh store', async () => {
     const storage = memoryStorage();
     const store = plannerStoreCreate(designSettingsDefault());
-    const stop = autosaveStart(store, storage, 5);
+    const { stop } = autosaveStart(store, storage, 5);
     stratumPartAdd(store, 'Heath', square);
     await stop();
     expect(typeof storage.data.get(AUTOSAVE_KEY)).toBe('string');

@@ -144,7 +144,7 @@ export const SCENARIOS = [
         await sleep(160);
       }
       await strataRows(page, 7);
-      const problems = (await page.locator('.problems').textContent().catch(() => '')) ?? '';
+      const problems = await page.evaluate(() => document.querySelector('.problems')?.textContent ?? '');
       check(!/overlap/i.test(problems), `the stratum drawn beside its neighbours overlaps them: ${problems}`);
       await shot('2-beside');
     },
@@ -181,10 +181,25 @@ export const SCENARIOS = [
   },
   {
     no: 4,
-    name: 'a design runs in the worker, its plots are read back from the map, and a rejected plot promotes the next reserve',
+    name: 'a design runs in the worker (and can be cancelled), its plots are read back from the map, and a rejected plot promotes the next reserve',
     async run({ page, origin, shot }) {
       await openPlanner(page, origin);
       await page.getByRole('button', { name: /3\s*Design/ }).click();
+      // A very large design is cancelled while it runs: the page stays responsive and nothing is kept.
+      const totalInput = page.getByLabel('Total primary plots');
+      const spacing = page.getByLabel('Minimum spacing');
+      await totalInput.fill('400000');
+      await totalInput.press('Enter');
+      await spacing.fill('1');
+      await spacing.press('Enter');
+      await page.getByRole('button', { name: 'Make the design' }).click();
+      await page.getByRole('button', { name: 'Cancel' }).click({ timeout: 3000 });
+      await page.waitForSelector('text=Design cancelled', { timeout: 5000 });
+      check((await page.locator('table[aria-label="Allocation of plots to strata"]').count()) === 0, 'a cancelled design left plots behind');
+      await totalInput.fill('36');
+      await totalInput.press('Enter');
+      await spacing.fill('40');
+      await spacing.press('Enter');
       await page.getByRole('button', { name: 'Make the design' }).click();
       await page.waitForSelector('table[aria-label="Allocation of plots to strata"]', { timeout: 60_000 });
       await mapIdle(page);
@@ -251,20 +266,24 @@ export const SCENARIOS = [
         throw new Error(`rename not applied; notice: ${await page.locator('.notice').textContent()}; tool: ${await page.locator('.tool-on').count()}`);
       });
       // Wait until the browser copy (IndexedDB, idb-keyval's default store) holds the rename.
-      await page.waitForFunction(
-        () =>
-          new Promise((resolve) => {
-            const open = indexedDB.open('keyval-store');
-            open.onsuccess = () => {
-              const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
-              req.onsuccess = () => resolve(typeof req.result === 'string' && req.result.includes('Restored stratum'));
-              req.onerror = () => resolve(false);
-            };
-            open.onerror = () => resolve(false);
-          }),
-        null,
-        { timeout: 10_000, polling: 250 },
-      );
+      const storedRename = () =>
+        page.evaluate(
+          () =>
+            new Promise((resolve) => {
+              const open = indexedDB.open('keyval-store');
+              open.onsuccess = () => {
+                const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
+                req.onsuccess = () => {
+                  open.result.close();
+                  resolve(typeof req.result === 'string' && req.result.includes('Restored stratum'));
+                };
+                req.onerror = () => resolve(false);
+              };
+              open.onerror = () => resolve(false);
+            }),
+        );
+      for (let i = 0; i < 40 && !(await storedRename()); i++) await sleep(250);
+      check(await storedRename(), 'the rename never reached the browser copy');
       await page.reload();
       await openPlanner(page, origin);
       const rows = await page.locator('table.ledger tbody tr[data-stratum]').count();
