@@ -3,23 +3,9 @@ import type { PlanFile } from '../core/designTypes';
 import { planFileApply, planFileFromState, planFileParse, planHasUnsavedWork } from '../state/planFile';
 import { ConfirmDialog } from './ConfirmDialog';
 import { demoDesign, demoSiteLoad } from './demoSite';
+import { downloadFile, fileSafeName } from './downloadFile';
 import { plannerStore } from './plannerStoreInstance';
 import { notify, usePlanner } from './usePlanner';
-
-function download(name: string, text: string, type: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
-
-function fileSafe(name: string): string {
-  return name.replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '').toLowerCase() || 'plan';
-}
 
 /** Save and open plan files; opening over unsaved work asks first (our own dialog, never a silent overwrite). */
 export function FileBar() {
@@ -40,7 +26,7 @@ export function FileBar() {
   const save = () => {
     const s = plannerStore.getState();
     const plan = planFileFromState(s, new Date().toISOString());
-    download(`${fileSafe(s.site.name)}.stratplot.json`, JSON.stringify(plan, null, 1), 'application/json');
+    downloadFile(`${fileSafeName(s.site.name, 'plan')}.stratplot.json`, JSON.stringify(plan, null, 1), 'application/json');
     plannerStore.setState({ savedRevision: s.revision });
     notify('info', 'Plan saved to your downloads.');
   };

@@ -1,4 +1,5 @@
 import { booleanPointInPolygon } from '@turf/turf';
+import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -325,4 +326,5 @@ export const SCENARIOS = [
       await shot('6-markup-as-text');
     },
   },
+  RESULTS_SCENARIO,
 ];

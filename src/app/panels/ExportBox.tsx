@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import { downloadFile, fileSafeName } from '../downloadFile';
 import { plannerStore } from '../plannerStoreInstance';
 import { notify } from '../usePlanner';
 
@@ -12,10 +13,6 @@ const FORMATS: [string, string][] = [
   ['pdf:sheets', 'Field sheets (PDF)'],
   ['pdf:report', 'Design report (PDF)'],
 ];
-
-function fileSafe(name: string): string {
-  return name.replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '').toLowerCase() || 'design';
-}
 
 /** Writes the plots (and, where the format holds layers, the site) to a file in the downloads. */
 export function ExportBox() {
@@ -35,15 +32,8 @@ export function ExportBox() {
         return initSqlJs({ locateFile: () => wasmUrl });
       };
       const bytes = await designOutputBytes(`plots.${ext}`, s.result, s.site, { pdf, sqlJsInit, name: s.site.name });
-      const name = `${fileSafe(s.site.name)}${pdf ? `-${pdf}` : '-plots'}.${ext}`;
-      const url = URL.createObjectURL(new Blob([bytes as BlobPart]));
-      const a = document.createElement('a');
-      a.href = url;
-      a.download = name;
-      document.body.append(a);
-      a.click();
-      a.remove();
-      setTimeout(() => URL.revokeObjectURL(url), 2000);
+      const name = `${fileSafeName(s.site.name, 'design')}${pdf ? `-${pdf}` : '-plots'}.${ext}`;
+      downloadFile(name, bytes);
       notify('info', `${name} written to your downloads.`);
     } catch (e) {
       notify('error', (e as Error).message);

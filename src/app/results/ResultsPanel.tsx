@@ -14,7 +14,7 @@ import { recaptureFormResult } from './recaptureFormResult';
 import { ResultsLoadBox } from './ResultsLoadBox';
 import { ResultsProblems } from './ResultsProblems';
 import { resultsPlotColours, resultsValueRange } from './resultsPlotColours';
-import { downloadFile } from './resultsFormat';
+import { downloadFile, fileSafeName } from '../downloadFile';
 import { resultsStore, useResults } from './resultsStoreInstance';
 import { ShareChart } from './ShareChart';
 import './results.css';
@@ -24,10 +24,6 @@ export interface ResultsPanelProps {
   onUseInDesign: (patch: Partial<DesignSettings>) => void;
   /** The site, for the design report's map (optional: the report prints without it). */
   site?: Site | null;
-}
-
-function fileSafe(name: string): string {
-  return name.replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '').toLowerCase() || 'results';
 }
 
 /** Writes the design report with the estimate, next-season and recapture tables added. */
@@ -40,7 +36,7 @@ async function reportDownload(collection: PlotCollection, site: Site | null): Pr
     return r.state === 'ok' ? [{ name: g.name, estimate: r.estimate }] : [];
   });
   const bytes = designReportPdf(collection, site, { paper: 'a4', estimates: designReportEstimates(s.report, s.next, grids) });
-  const name = `${fileSafe(site?.name ?? 'design')}-report-${fileSafe(s.report.variable)}.pdf`;
+  const name = `${fileSafeName(site?.name ?? 'design', 'results')}-report-${fileSafeName(s.report.variable, 'results')}.pdf`;
   downloadFile(name, bytes, 'application/pdf');
   return name;
 }
@@ -75,7 +71,7 @@ export function ResultsPanel({ collection, onUseInDesign, site = null }: Results
   const csv = () => {
     if (!report || !table) return;
     const semicolon = table.delimiter === ';' || table.decimal === ',';
-    const name = `estimate-${fileSafe(report.variable)}.csv`;
+    const name = `estimate-${fileSafeName(report.variable, 'results')}.csv`;
     downloadFile(name, estimatesToCsv(report, semicolon ? { delimiter: ';', decimal: table.decimal } : {}), 'text/csv');
     setMessage(`${name} written to your downloads.`);
   };

@@ -17,14 +17,3 @@ export function fmtInterval(ci: readonly [number, number] | null | undefined): s
   return ci ? `${fmtValue(ci[0])} to ${fmtValue(ci[1])}` : '–';
 }
 
-/** Starts a download of bytes or text under `name` (a temporary link; nothing leaves the computer). */
-export function downloadFile(name: string, content: Uint8Array | string, type: string): void {
-  const url = URL.createObjectURL(new Blob([content as BlobPart], { type }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 2000);
-}
