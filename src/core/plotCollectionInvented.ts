@@ -1,3 +1,4 @@
+import { designSettingsDefault } from './designSettingsDefault';
 import type { DesignSettings, Footprint, PlotCollection, PlotProperties } from './designTypes';
 
 /** One stratum of an invented plot file. */
@@ -36,7 +37,7 @@ export function plotCollectionInvented(
         rank,
         lon,
         lat,
-        utm_zone: '56J',
+        utm_zone: '56S',
         easting: 510000 + k * 10,
         northing: 6969000,
         mgrs: '56JNP1000069000',
@@ -55,34 +56,19 @@ export function plotCollectionInvented(
     }
   }
   const total = strata.reduce((a, s) => a + (shareBasis === 'usable' ? s.usableM2 : s.mappedM2), 0);
-  const settings: DesignSettings = {
+  const settings: DesignSettings = designSettingsDefault({
     plots: strata.reduce((a, s) => a + s.primaries, 0),
-    allocation: 'proportional',
     shareBasis,
-    minPerStratum: 2,
-    sd: {},
-    cost: {},
-    targetHalfwidth: null,
-    pilotMean: null,
-    spacingM: 0,
     footprint,
-    edgeBufferM: 0,
     reservePerStratum: Math.max(0, ...strata.map((s) => s.reserves)),
-    method: 'random',
-    gridSpacingM: null,
-    gridAngleDeg: 0,
-    baseline: null,
-    transectIntervalM: null,
-    quadratIntervalM: null,
-    seed: 1,
-  };
+  });
   return {
     type: 'FeatureCollection',
     features,
     design: {
       settings,
       seed: 1,
-      crs: { utm_zone: '56J', epsg: 32756 },
+      crs: { utm_zone: '56S', epsg: 32756 },
       allocation: strata.map((s) => ({
         stratum: s.key,
         mapped_m2: s.mappedM2,
