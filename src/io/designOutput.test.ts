@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Feature, FeatureCollection } from 'geojson';
+import { GPX_XSD } from '../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
 import type { Site } from '../core/types';
 import { designOutputBytes } from './designOutput';
@@ -35,7 +36,7 @@ function xmllint(text: string): string {
   const file = join(mkdtempSync(join(tmpdir(), 'stratplot-out-')), 'out.gpx');
   writeFileSync(file, text);
   try {
-    execFileSync('xmllint', ['--noout', '--schema', '/work/shared/schemas/gpx-1.1.xsd', file], { stdio: 'pipe' });
+    execFileSync('xmllint', ['--noout', '--schema', GPX_XSD, file], { stdio: 'pipe' });
     return 'valid';
   } catch (error) {
     return String((error as { stderr?: Buffer }).stderr ?? error);

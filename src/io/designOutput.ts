@@ -3,6 +3,7 @@ import { zipSync } from 'fflate';
 import type { SqlJsStatic } from 'sql.js';
 import type { PlotCollection, PlotProperties } from '../core/designTypes';
 import { InputError, isInputError } from '../core/InputError';
+import { type PlotsAnnotateOptions, plotsAnnotate } from '../core/plotsAnnotate';
 import type { Site } from '../core/types';
 import { designReportPdf } from './designReportPdf';
 import { featuresToGeoJson } from './featuresToGeoJson';
@@ -46,6 +47,16 @@ export interface DesignOutputOptions {
   sqlJsInit?: () => Promise<SqlJsStatic>;
   /** Document name in GPX/KML (default the site name, else "stratplot design"). */
   name?: string;
+  /**
+   * Navigation and safety notes added to every plot when a site is given (access point, safety
+   * thresholds); `false` writes the plots as they are. Plots that already carry navigation are
+   * not annotated twice.
+   */
+  annotate?: Omit<PlotsAnnotateOptions, 'surveyDate'> | false;
+}
+
+function isAnnotated(collection: PlotCollection): boolean {
+  return 'annotation' in collection || collection.features.some((f) => f.properties.distance_m !== undefined);
 }
 
 function gpxLabels(f: Feature, index: number): GpxLabels {
@@ -91,8 +102,13 @@ export async function designOutputBytes(
   }
 }
 
-async function designOutputUnchecked(fileName: string, collection: PlotCollection, site: Site | undefined, options: DesignOutputOptions): Promise<Uint8Array> {
+async function designOutputUnchecked(fileName: string, plots: PlotCollection, site: Site | undefined, options: DesignOutputOptions): Promise<Uint8Array> {
   const enc = new TextEncoder();
+  // Field files carry each plot's route and safety notes; the field sheets annotate for themselves.
+  const collection =
+    site && options.annotate !== false && options.pdf !== 'sheets' && !isAnnotated(plots)
+      ? plotsAnnotate(plots, site, { ...(options.annotate || {}), surveyDate: options.surveyDate })
+      : plots;
   const layers = siteLayers(collection, site);
   const name = options.name ?? site?.name ?? 'stratplot design';
   const ext = extensionOf(fileName);
@@ -121,7 +137,12 @@ async function designOutputUnchecked(fileName: string, collection: PlotCollectio
       return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit });
     case 'pdf':
       return options.pdf === 'sheets'
-        ? fieldSheetsPdf(collection, site ?? null, { paper: options.paper ?? 'a4', surveyDate: options.surveyDate, siteName: site?.name })
+        ? fieldSheetsPdf(collection, site ?? null, {
+            paper: options.paper ?? 'a4',
+            surveyDate: options.surveyDate,
+            siteName: site?.name,
+            accessPointId: options.annotate ? options.annotate.accessPointId : undefined,
+          })
         : designReportPdf(collection, site ?? null, { paper: options.paper ?? 'a4' });
     default:
       throw new InputError(

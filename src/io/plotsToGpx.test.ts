@@ -3,6 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { FeatureCollection } from 'geojson';
+import { GPX_XSD } from '../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
 import { featuresToGpx } from './featuresToGpx';
 import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samplePlots } from './fixtures/ioSamples';
@@ -10,7 +11,7 @@ import { parseGpx } from './parseGpx';
 import { plotsToGpx } from './plotsToGpx';
 
 // The GPX 1.1 schema as published by Topografix (copy in /work/shared/schemas, see REFERENCES.md).
-const XSD = '/work/shared/schemas/gpx-1.1.xsd';
+const XSD = GPX_XSD;
 
 function xmllint(text: string): string {
   const dir = mkdtempSync(join(tmpdir(), 'stratplot-gpx-'));

@@ -93,6 +93,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   const { site, warnings } = await siteFromInputs(io, { strata: positionals[0], field: values.field, exclude: values.exclude, boundary: values.boundary, imports });
   for (const w of warnings) io.err(`warning: ${w}\n`);
   const table = stratumAreaTable(site);
+  for (const w of table.warnings ?? []) io.err(`warning: ${w}\n`);
   io.out(values.json ? areasJson(table) : areasText(table));
   return 0;
 }

@@ -40,7 +40,15 @@ ${Object.entries(FORMATS)
   --access FILE       access points (repeat for more files); needs --strata
   --bom               csv: start with a UTF-8 byte-order mark (for some spreadsheet programs)
   --paper P           sheets/report: a4 | letter (default a4)
-  --survey-date D     sheets: survey day YYYY-MM-DD (sets the magnetic declination; default today)
+  --survey-date D     survey day YYYY-MM-DD (sets the magnetic declination; default today)
+  --from ACCESS       access point (its id or name) that distances and bearings are measured from
+                      (default: each plot's nearest access point); needs --access
+  --cliff-near-m M    note plots within M metres of a cliff edge (default 50)
+  --private-near-m M  note plots within M metres of private land (default 100)
+  --remote-km K       note plots farther than K km from every access point (default 2)
+With --strata, every plot gets its route from an access point (distance, true and magnetic
+bearing, World Magnetic Model) and safety notes; the thresholds are common practice, no source:
+set them to what your local rules and safety plan require.
 
 ${importFlagsHelp('--strata FILE')}
 
@@ -67,6 +75,10 @@ export const exportCommand: Command = {
           bom: { type: 'boolean' },
           paper: { type: 'string' },
           'survey-date': { type: 'string' },
+          from: { type: 'string' },
+          'cliff-near-m': { type: 'string' },
+          'private-near-m': { type: 'string' },
+          'remote-km': { type: 'string' },
           ...IMPORT_FLAG_SPECS,
         },
       });
@@ -116,6 +128,7 @@ export const exportCommand: Command = {
       pdf: format.pdf,
       paper,
       surveyDate,
+      annotate: site ? annotateOptions(values, site) : false,
     });
     await writeFile(resolve(io.cwd, out), bytes);
     const primaries = collection.features.filter((f) => f.properties.role === 'primary').length;
@@ -123,3 +136,30 @@ export const exportCommand: Command = {
     return 0;
   },
 };
+
+function positiveNumber(values: Record<string, unknown>, flag: string, scale = 1): number | undefined {
+  const text = values[flag];
+  if (text === undefined) return undefined;
+  const n = Number(text);
+  if (!(n > 0) || !Number.isFinite(n)) throw new InputError(`--${flag} needs a positive number, got "${text}"`);
+  return n * scale;
+}
+
+function annotateOptions(values: Record<string, unknown>, site: Site) {
+  const from = values.from as string | undefined;
+  let accessPointId: string | undefined;
+  if (from !== undefined) {
+    const hit = site.access.find((a) => a.id === from) ?? site.access.find((a) => a.name.toLowerCase() === from.toLowerCase());
+    if (!hit) {
+      const known = site.access.map((a) => `"${a.name}" (${a.id})`).join(', ');
+      throw new InputError(`--from "${from}" is not an access point of the site; ${known ? `known: ${known}` : 'give --access FILE'}`);
+    }
+    accessPointId = hit.id;
+  }
+  return {
+    accessPointId,
+    cliffNearM: positiveNumber(values, 'cliff-near-m'),
+    privateNearM: positiveNumber(values, 'private-near-m'),
+    remoteM: positiveNumber(values, 'remote-km', 1000),
+  };
+}

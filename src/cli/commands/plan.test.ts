@@ -86,7 +86,7 @@ describe('stratplot plan', () => {
   it('refuses strata that cross themselves, naming the feature', async () => {
     const r = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--plots', '4', '--min-per-stratum', '0', '--seed', '1']);
     expect(r.code).toBe(2);
-    expect(r.err).toMatch(/invalid map: .*feature 0/i);
+    expect(r.err).toMatch(/^stratplot plan: [^\n]*\.geojson: feature 0 [^\n]*\n$/);
   });
 
   it('sizes the design for a relative target half-width from pilot SDs', async () => {
@@ -101,5 +101,20 @@ describe('stratplot plan', () => {
     const n = design.allocation.reduce((a: number, row: { plots: number }) => a + row.plots, 0);
     expect(n).toBeGreaterThanOrEqual(35);
     expect(n).toBeLessThanOrEqual(40);
+  });
+
+  it('gives a CSV for the crew with routes from the access points and a boundary check', async () => {
+    const file = join(mkdtempSync(join(tmpdir(), 'plan-')), 'x.csv');
+    const r = await cli([
+      'plan', 'demo-maps/ochre-spit-strata.geojson', '--exclude', 'demo-maps/ochre-spit-exclusions.geojson',
+      '--access', 'demo-maps/ochre-spit-access.geojson', '--boundary', 'demo-maps/ochre-spit-boundary.geojson',
+      '--plots', '14', '--seed', '5', '--out', file,
+    ]);
+    expect(r.code, r.err).toBe(0);
+    // The invented demo's strata tile its boundary exactly, so no gap is reported.
+    expect(r.err).not.toMatch(/gap/);
+    const [head, ...rows] = readFileSync(file, 'utf8').trim().split(/\r?\n/);
+    expect(head.split(',')).toEqual(expect.arrayContaining(['access_point', 'distance_m', 'bearing_true_deg', 'bearing_mag_deg', 'notes']));
+    expect(rows).toHaveLength(14);
   });
 });

@@ -7,15 +7,11 @@ import type { DesignSettings, PlotCollection } from '../../core/designTypes';
 import { footprintParse } from '../../core/footprintParse';
 import { InputError } from '../../core/InputError';
 import { rngSeedFromClock } from '../../core/rng';
-import { siteValidate } from '../../core/siteValidate';
-import type { Exclusion, Site } from '../../core/types';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
-import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
-import { parseFeatureFile } from '../../io/parseFeatureFile';
-import { strataFromFeatures } from '../../io/strataFromFeatures';
 import type { CliIo, Command } from '../command';
-import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOptionsFor, importOtherFile } from '../importFlags';
+import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOtherFile } from '../importFlags';
 import { readInputFile } from '../readInput';
+import { siteFromInputs } from '../siteFromInputs';
 
 const USAGE = `stratplot plan <strata-file> --plots N [options]
 
@@ -36,6 +32,9 @@ Allocation:
   --redistribute            move plots a full stratum cannot hold to strata with room
 Placement:
   --exclude FILE            exclusions (cliff, water, private, hazard, other); repeat for more files
+  --access FILE             access points (car park, gate): field files get each plot's distance
+                            and bearing from the nearest one, and safety notes
+  --boundary FILE           site boundary: ground inside it that no stratum covers is warned about
   --method M                random | balanced | grid | transect (default random)
   --spacing M               minimum metres between plot centres (default 0)
   --footprint F             point | square:10 | rect:20x5@30 | circle:5 (metres; @angle clockwise
@@ -136,22 +135,17 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     }
   }
   const imports = importFlagsRead(o);
-  const strataFile = await readInputFile(io, positionals[0]);
-  const fc = await parseFeatureFile(strataFile.name, strataFile.bytes, importOptionsFor(strataFile.name, imports.strata));
-  const { strata, parts } = strataFromFeatures(fc, { field: o.field, fileName: strataFile.name });
-  const exclusions: Exclusion[] = [];
-  for (const path of o.exclude ?? []) {
-    const file = await readInputFile(io, path);
-    exclusions.push(...exclusionsFromFeatures(await importOtherFile(file.name, file.bytes, imports), { fileName: file.name }));
-  }
-  const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
-  const problems = siteValidate(site);
-  const errors = problems.filter((p) => p.severity === 'error');
-  if (errors.length) {
-    const more = errors.length > 1 ? ` (and ${errors.length - 1} more problem${errors.length > 2 ? 's' : ''}; stratplot areas lists them)` : '';
-    throw new InputError(`invalid map: ${errors[0].message}${more}`);
-  }
-  for (const p of problems) io.err(`warning: ${p.message}\n`);
+  const loaded = await siteFromInputs(io, {
+    strata: positionals[0],
+    field: o.field,
+    exclude: o.exclude,
+    access: o.access,
+    boundary: o.boundary,
+    imports,
+  });
+  const { site } = loaded;
+  const { strata } = site;
+  for (const w of loaded.warnings) io.err(`warning: ${w}\n`);
   const keys = strata.map((s) => s.key);
   const target = o['target-halfwidth'];
   let targetHalfwidth: DesignSettings['targetHalfwidth'] = null;
@@ -219,6 +213,8 @@ function parse(argv: string[]) {
       plots: { type: 'string' },
       field: { type: 'string' },
       exclude: { type: 'string', multiple: true },
+      access: { type: 'string', multiple: true },
+      boundary: { type: 'string' },
       allocation: { type: 'string' },
       'share-basis': { type: 'string' },
       'min-per-stratum': { type: 'string' },
