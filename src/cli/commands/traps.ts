@@ -3,16 +3,11 @@ import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { InputError } from '../../core/InputError';
 import { rngSeedFromClock } from '../../core/rng';
-import { siteValidate } from '../../core/siteValidate';
 import { type TrapGridLayout, trapGridsPlace } from '../../core/trapGridsPlace';
-import type { Exclusion, Site } from '../../core/types';
 import { designOutputBytes } from '../../io/designOutput';
-import { exclusionsFromFeatures } from '../../io/exclusionsFromFeatures';
-import { parseFeatureFile } from '../../io/parseFeatureFile';
-import { strataFromFeatures } from '../../io/strataFromFeatures';
 import type { CliIo, Command } from '../command';
-import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead, importOptionsFor, importOtherFile } from '../importFlags';
-import { readInputFile } from '../readInput';
+import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
+import { siteFromInputs } from '../siteFromInputs';
 
 const USAGE = `stratplot traps <strata-file> --grids G --rows R --cols C --spacing S --separation D [options]
 
@@ -85,16 +80,10 @@ export const trapsCommand: Command = {
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot traps --help`);
     const imports = importFlagsRead(o);
-    const strataFile = await readInputFile(io, positionals[0]);
-    const { strata, parts } = strataFromFeatures(await parseFeatureFile(strataFile.name, strataFile.bytes, importOptionsFor(strataFile.name, imports.strata)), { field: o.field, fileName: strataFile.name });
-    const exclusions: Exclusion[] = [];
-    for (const path of o.exclude ?? []) {
-      const file = await readInputFile(io, path);
-      exclusions.push(...exclusionsFromFeatures(await importOtherFile(file.name, file.bytes, imports), { fileName: file.name }));
-    }
-    const site: Site = { name: strataFile.name, strata, parts, exclusions, access: [], boundary: null };
-    const errors = siteValidate(site).filter((p) => p.severity === 'error');
-    if (errors.length) throw new InputError(`invalid map: ${errors[0].message}`);
+    const loaded = await siteFromInputs(io, { strata: positionals[0], field: o.field, exclude: o.exclude, imports });
+    const { site } = loaded;
+    const { strata } = site;
+    for (const w of loaded.warnings) io.err(`warning: ${w}\n`);
     const seed = o.seed === undefined ? rngSeedFromClock(Date.now()) : num(o.seed, '--seed');
     const layout = trapGridsPlace(site, {
       gridsPerStratum: gridsOption(o.grids, strata.map((s) => s.key)),
