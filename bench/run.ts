@@ -4,14 +4,18 @@ import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as turf from '@turf/turf';
+import geodesic from 'geographiclib-geodesic';
 import type { Feature, LineString, Point, Polygon } from 'geojson';
 import { designPlace } from '../src/core/designPlace';
 import { designUsableAreas } from '../src/core/designUsableAreas';
 import { designSettingsDefault } from '../src/core/designSettingsDefault';
+import { geodesicRingAreaM2 } from '../src/core/geodesicRingAreaM2';
 import { placementConstraintsBuild } from '../src/core/placementConstraints';
 import { rngCreate } from '../src/core/rng';
 import { siteLocalFrame } from '../src/core/siteLocalFrame';
+import { polygonSelfIntersections } from '../src/core/polygonSelfIntersections';
 import { siteValidate } from '../src/core/siteValidate';
+import { stratumUsableRegion } from '../src/core/stratumUsableRegion';
 import type { Site } from '../src/core/types';
 import { exclusionsFromFeatures } from '../src/io/exclusionsFromFeatures';
 import { strataFromFeatures } from '../src/io/strataFromFeatures';
@@ -134,6 +138,36 @@ const bigFrame = siteLocalFrame(bigSite.parts);
 const validate = time(() => siteValidate(bigSite).length);
 const areas = time(() => designUsableAreas(bigSite, bigFrame).usable.length);
 console.log(`  stages in process: siteValidate ${validate.ms.toFixed(0)} ms, mapped + usable areas ${areas.ms.toFixed(0)} ms, indexes + placement ${engineBig.ms.toFixed(0)} ms`);
+// Baselines for the two area stages, measured in this run on the same site.
+const partRings = bigSite.parts.flatMap((part) => (part.geometry.type === 'Polygon' ? [part.geometry.coordinates[0]] : part.geometry.coordinates.map((p) => p[0])));
+const fastArea = time(() => partRings.reduce((a, ring) => a + geodesicRingAreaM2(ring), 0));
+const libArea = time(() =>
+  partRings.reduce((a, ring) => {
+    const poly = geodesic.Geodesic.WGS84.Polygon(false);
+    for (let i = 0; i < ring.length - 1; i++) poly.AddPoint(ring[i][1], ring[i][0]);
+    return a + (poly.Compute(false, true).area ?? 0);
+  }, 0),
+);
+sink += fastArea.value * 1e-12 + libArea.value * 1e-12;
+console.log(
+  `  ellipsoidal area of all ${partRings.length} rings: equal-area route ${fastArea.ms.toFixed(0)} ms, GeographicLib PolygonArea ${libArea.ms.toFixed(0)} ms` +
+    ` — ratio ${(libArea.ms / fastArea.ms).toFixed(1)}x, relative difference of the totals ${Math.abs(fastArea.value / libArea.value - 1).toExponential(1)}`,
+);
+// Self-intersection check of the same rings against turf's kinks (the tests' reference), on a sample.
+const sampleRings = partRings.slice(0, 40);
+const ourKinks = time(() => sampleRings.reduce((a, ring) => a + polygonSelfIntersections([ring], { featureIndex: 0, layer: 'strata' }).length, 0));
+const turfKinks = time(() => sampleRings.reduce((a, ring) => a + turf.kinks(turf.polygon([ring])).features.length, 0));
+console.log(
+  `  self-intersection check of ${sampleRings.length} rings: sweep ${ourKinks.ms.toFixed(0)} ms, turf kinks ${turfKinks.ms.toFixed(0)} ms — ratio ${(turfKinks.ms / ourKinks.ms).toFixed(1)}x (${ourKinks.value} and ${turfKinks.value} found)`,
+);
+// Clipping each stratum part with polyclip-ts (stratumUsableRegion), on a sample of parts, scaled up.
+const sampleParts = bigSite.parts.slice(0, 40);
+const clipped = time(() => sampleParts.reduce((a, part) => a + stratumUsableRegion({ ...bigSite, parts: [part] }, part.stratum, bigFrame).areaM2, 0));
+const direct = time(() => designUsableAreas({ ...bigSite, parts: sampleParts }, bigFrame).usable.reduce((a, x) => a + x, 0));
+console.log(
+  `  usable area of ${sampleParts.length} parts: measured directly ${direct.ms.toFixed(0)} ms, clipping each part (polyclip-ts) ${clipped.ms.toFixed(0)} ms` +
+    ` — ratio ${(clipped.ms / direct.ms).toFixed(1)}x, relative difference ${Math.abs(direct.value / clipped.value - 1).toExponential(1)}`,
+);
 const cli = cliRun(files, 10000);
 console.log(`  whole CLI process (bin/stratplot.mjs plan … --out): ${cli.ms.toFixed(0)} ms (target ≤ 1 500 ms), exit ${cli.code}` + (cli.peakMb ? `, peak RSS ${cli.peakMb.toFixed(0)} MB` : ''));
 if (cli.code !== 0) console.log(`  CLI said: ${cli.err.split('\n')[0]}`);

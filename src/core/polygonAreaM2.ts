@@ -4,8 +4,9 @@ import type { AreaGeometry, LonLat } from './types';
 /**
  * Area of a Polygon or MultiPolygon on the WGS84 ellipsoid, in m²: each shell less its holes,
  * whatever the winding of the input rings. Edges are geodesics (GeographicLib's model), which for
- * site-sized strata differs from rhumb-line edges by about 1e-9 relative.
- * Source: Karney (2013) through geographiclib-geodesic.
+ * site-sized strata differs from rhumb-line edges by about 1e-9 relative. Rings of short edges are
+ * measured in an equal-area projection instead (geodesicRingAreaM2), within 1e-7 of GeographicLib.
+ * Source: Karney (2013) through geographiclib-geodesic; Snyder (1987) eqs. 3-12, 10-15.
  */
 export function polygonAreaM2(geometry: AreaGeometry): number {
   const polygons: LonLat[][][] = geometry.type === 'Polygon' ? [geometry.coordinates] : geometry.coordinates;

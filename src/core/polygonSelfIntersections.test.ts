@@ -47,4 +47,34 @@ describe('polygonSelfIntersections', () => {
       { numRuns: 100, seed: 7946 },
     );
   });
+
+  it('agrees with turf kinks on long-edged random rings, where many edges are open at once', () => {
+    // Edges spanning the whole ring make the sweep give up and the flatbush search take over.
+    const pt = fc.tuple(fc.double({ min: 0, max: 1000, noNaN: true }), fc.double({ min: 0, max: 1000, noNaN: true }));
+    fc.assert(
+      fc.property(fc.array(pt, { minLength: 60, maxLength: 200 }), (pts) => {
+        const ring = [...pts, pts[0]];
+        const ours = polygonSelfIntersections([ring], where, 5);
+        const ref = kinks({ type: 'Polygon', coordinates: [ring] }).features.length;
+        expect(ours.length > 0).toBe(ref > 0);
+        expect(ours.length).toBeLessThanOrEqual(5);
+      }),
+      { numRuns: 30, seed: 11 },
+    );
+  });
+
+  it('finds the one crossing of a long wiggly ring with a single bow-tie', () => {
+    const ring: [number, number][] = [];
+    for (let k = 0; k < 3000; k++) {
+      const a = (k / 3000) * 2 * Math.PI;
+      const r = 400 + 30 * Math.sin(9 * a);
+      ring.push([Math.cos(a) * r, Math.sin(a) * r]);
+    }
+    // Swap two neighbouring vertices: edges 1499 and 1501 now cross.
+    [ring[1500], ring[1501]] = [ring[1501], ring[1500]];
+    ring.push(ring[0]);
+    const found = polygonSelfIntersections([ring], where);
+    expect(found).toHaveLength(1);
+    expect(found[0].where.vertex).toBe(1499);
+  });
 });

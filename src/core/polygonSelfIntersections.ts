@@ -49,11 +49,110 @@ function segmentsMeet(s: Float64Array, i: number, j: number): Meet {
   return null;
 }
 
+/** The problem two segments make (a < b), or null when they only meet as neighbours or not at all. */
+function pairProblem(
+  segs: Float64Array,
+  a: number,
+  b: number,
+  ringOf: Int32Array,
+  indexInRing: Int32Array,
+  ringLength: readonly number[],
+  where: ProblemLocation,
+): Problem | null {
+  const meet = segmentsMeet(segs, a, b);
+  if (!meet) return null;
+  const sameRing = ringOf[a] === ringOf[b];
+  const n = ringLength[ringOf[a]];
+  const gap = Math.abs(indexInRing[a] - indexInRing[b]);
+  // Neighbours share a vertex; only folding back along each other (a spike) is a problem.
+  if (sameRing && (gap === 1 || gap === n - 1) && meet.kind !== 'overlap') return null;
+  if (!sameRing && meet.kind === 'touch') return null;
+  const text = sameRing
+    ? `crosses itself: edges ${indexInRing[a]} and ${indexInRing[b]} meet`
+    : `crosses ring ${ringOf[b]} (its edge ${indexInRing[b]})`;
+  return problemMake('error', 'self-intersection', { ...where, ring: ringOf[a], vertex: indexInRing[a], lonLat: [meet.x, meet.y] }, text);
+}
+
+/** Candidate pairs from a flatbush index of the segments' boxes: O(n log n + k) whatever the shape. */
+function pairsByIndex(segs: Float64Array, count: number, report: (a: number, b: number) => boolean): void {
+  const index = new Flatbush(count);
+  for (let i = 0; i < count; i++) {
+    const o = 4 * i;
+    index.add(Math.min(segs[o], segs[o + 2]), Math.min(segs[o + 1], segs[o + 3]), Math.max(segs[o], segs[o + 2]), Math.max(segs[o + 1], segs[o + 3]));
+  }
+  index.finish();
+  let a = 0;
+  let done = false;
+  const visit = (b: number): boolean => {
+    if (b > a && !done) done = report(a, b);
+    return false;
+  };
+  for (a = 0; a < count && !done; a++) {
+    const o = 4 * a;
+    index.search(Math.min(segs[o], segs[o + 2]), Math.min(segs[o + 1], segs[o + 3]), Math.max(segs[o], segs[o + 2]), Math.max(segs[o + 1], segs[o + 3]), visit);
+  }
+}
+
+/**
+ * Candidate pairs by a sweep over x: segments are bucketed by west end (a counting sort, linear),
+ * and each is compared with the earlier ones still open and overlapping it in x and y. A segment
+ * closes once its east end lies west of the current bucket, so every overlapping pair is still met
+ * once. Fastest for mapped boundaries, where few segments are open at once; gives up and returns
+ * false once the work passes `budget` comparisons (long edges spanning much of the ring).
+ */
+function pairsBySweep(segs: Float64Array, count: number, budget: number, report: (a: number, b: number) => boolean): boolean {
+  const minX = new Float64Array(count);
+  const maxX = new Float64Array(count);
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = Number.NEGATIVE_INFINITY;
+  for (let i = 0; i < count; i++) {
+    minX[i] = Math.min(segs[4 * i], segs[4 * i + 2]);
+    maxX[i] = Math.max(segs[4 * i], segs[4 * i + 2]);
+    if (minX[i] < lo) lo = minX[i];
+    if (minX[i] > hi) hi = minX[i];
+  }
+  const scale = hi > lo ? count / (hi - lo) : 0;
+  const bucketOf = (x: number) => Math.min(count - 1, Math.floor((x - lo) * scale));
+  const starts = new Int32Array(count + 1);
+  for (let i = 0; i < count; i++) starts[bucketOf(minX[i]) + 1]++;
+  for (let k = 0; k < count; k++) starts[k + 1] += starts[k];
+  const order = new Int32Array(count);
+  const fill = starts.slice(0, count);
+  for (let i = 0; i < count; i++) order[fill[bucketOf(minX[i])]++] = i;
+  const open = new Int32Array(count);
+  let openCount = 0;
+  let work = 0;
+  for (let oi = 0; oi < count; oi++) {
+    const c = order[oi];
+    // Never above the segment's own west end, whatever the rounding.
+    const bucketLo = Math.min(minX[c], scale > 0 ? lo + bucketOf(minX[c]) / scale : lo);
+    const cx0 = minX[c];
+    const cx1 = maxX[c];
+    const cy0 = Math.min(segs[4 * c + 1], segs[4 * c + 3]);
+    const cy1 = Math.max(segs[4 * c + 1], segs[4 * c + 3]);
+    work += openCount;
+    if (work > budget) return false;
+    let kept = 0;
+    for (let t = 0; t < openCount; t++) {
+      const o = open[t];
+      if (maxX[o] < bucketLo) continue;
+      open[kept++] = o;
+      if (maxX[o] < cx0 || minX[o] > cx1) continue;
+      if (Math.max(segs[4 * o + 1], segs[4 * o + 3]) < cy0 || Math.min(segs[4 * o + 1], segs[4 * o + 3]) > cy1) continue;
+      if (o < c ? report(o, c) : report(c, o)) return true;
+    }
+    openCount = kept;
+    open[openCount++] = c;
+  }
+  return true;
+}
+
 /**
  * Self-intersections of one polygon (all its rings), as errors: a ring crossing or touching
  * itself away from neighbouring edges (bow-ties, figure-eights), or two rings crossing or
  * running along each other (a single-point touch between rings is allowed, as in OGC Simple
- * Features). Segments are indexed with flatbush, so the cost is O(n log n + k), not O(n²).
+ * Features). Candidate pairs come from a sweep over x, or from a flatbush index of the segments
+ * when the sweep would have too many segments open at once, so the cost stays O(n log n + k).
  * Expects rings without duplicate consecutive vertices (see ringProblems). Reports at most
  * `limit` crossings per polygon. Checked against turf `kinks` in the tests.
  */
@@ -65,7 +164,6 @@ export function polygonSelfIntersections(rings: readonly (readonly Position[])[]
   const ringOf = new Int32Array(count);
   const indexInRing = new Int32Array(count);
   const ringLength = rings.map((r) => Math.max(0, r.length - 1));
-  const index = new Flatbush(count);
   let k = 0;
   rings.forEach((ring, r) => {
     for (let i = 0; i + 1 < ring.length; i++, k++) {
@@ -75,37 +173,21 @@ export function polygonSelfIntersections(rings: readonly (readonly Position[])[]
       segs[4 * k + 3] = ring[i + 1][1];
       ringOf[k] = r;
       indexInRing[k] = i;
-      index.add(Math.min(ring[i][0], ring[i + 1][0]), Math.min(ring[i][1], ring[i + 1][1]), Math.max(ring[i][0], ring[i + 1][0]), Math.max(ring[i][1], ring[i + 1][1]));
     }
   });
-  index.finish();
-  const problems: Problem[] = [];
-  let a = 0;
-  // The filter does the work and keeps nothing, so a search allocates no result array.
-  const visit = (b: number): boolean => {
-    if (b <= a || problems.length >= limit) return false;
-    const meet = segmentsMeet(segs, a, b);
-    if (!meet) return false;
-    const sameRing = ringOf[a] === ringOf[b];
-    const n = ringLength[ringOf[a]];
-    const gap = Math.abs(indexInRing[a] - indexInRing[b]);
-    // Neighbours share a vertex; only folding back along each other (a spike) is a problem.
-    if (sameRing && (gap === 1 || gap === n - 1) && meet.kind !== 'overlap') return false;
-    if (!sameRing && meet.kind === 'touch') return false;
-    const text = sameRing
-      ? `crosses itself: edges ${indexInRing[a]} and ${indexInRing[b]} meet`
-      : `crosses ring ${ringOf[b]} (its edge ${indexInRing[b]})`;
-    problems.push(problemMake('error', 'self-intersection', { ...where, ring: ringOf[a], vertex: indexInRing[a], lonLat: [meet.x, meet.y] }, text));
-    return false;
+  // Every meeting is collected (up to a cap) and sorted, so both searches report the same first ones.
+  const found: Problem[] = [];
+  const cap = Math.max(limit, 1) * 20;
+  const report = (a: number, b: number): boolean => {
+    const problem = pairProblem(segs, a, b, ringOf, indexInRing, ringLength, where);
+    if (problem) found.push(problem);
+    return found.length >= cap;
   };
-  for (a = 0; a < count && problems.length < limit; a++) {
-    index.search(
-      Math.min(segs[4 * a], segs[4 * a + 2]),
-      Math.min(segs[4 * a + 1], segs[4 * a + 3]),
-      Math.max(segs[4 * a], segs[4 * a + 2]),
-      Math.max(segs[4 * a + 1], segs[4 * a + 3]),
-      visit,
-    );
+  if (!pairsBySweep(segs, count, 64 * count, report)) {
+    found.length = 0;
+    pairsByIndex(segs, count, report);
   }
+  found.sort((p, q) => (p.where.ring ?? 0) - (q.where.ring ?? 0) || (p.where.vertex ?? 0) - (q.where.vertex ?? 0));
+  const problems = found.slice(0, limit);
   return problems;
 }

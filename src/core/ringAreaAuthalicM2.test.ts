@@ -97,4 +97,24 @@ describe('ringAreaAuthalicM2', () => {
     expect(Math.abs(fast - 78.46094)).toBeLessThan(5e-5);
     expect(Math.abs(fast - geographiclibAreaM2(ring))).toBeLessThan(2e-4);
   });
+
+  it.each([
+    [0, 1, 12308463893.975],
+    [45, 46, 8686494956.67],
+    [60, 61, 6123140878.746],
+  ])('gives the REFERENCES.md §1 zone area from %f° to %f° × 1° with its parallels densified', (lat0, lat1, expected) => {
+    // Rows computed from Snyder's zone formula and confirmed by GeographicLib Planimeter (rhumb edges);
+    // densified every 0.001° (meridians too, which changes nothing: they are geodesics and rhumb lines
+    // alike), the edges are short enough for this route, and parallels and meridians are straight in it.
+    const ring: LonLat[] = [];
+    for (let i = 0; i < 1000; i++) ring.push([i / 1000, lat0]);
+    for (let i = 0; i < 1000; i++) ring.push([1, lat0 + (i / 1000) * (lat1 - lat0)]);
+    for (let i = 1000; i > 0; i--) ring.push([i / 1000, lat1]);
+    for (let i = 1000; i > 0; i--) ring.push([0, lat0 + (i / 1000) * (lat1 - lat0)]);
+    ring.push([0, lat0]);
+    const fast = ringAreaAuthalicM2(ring);
+    expect(Number.isNaN(fast)).toBe(false);
+    expect(Math.abs(fast / expected - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(fast / geographiclibAreaM2(ring) - 1)).toBeLessThan(1e-7);
+  });
 });

@@ -1,7 +1,7 @@
+import { designUsableAreas } from './designUsableAreas';
 import { M2_PER_HA, polygonAreaM2 } from './polygonAreaM2';
 import { siteLocalFrame } from './siteLocalFrame';
-import { stratumUsableRegion } from './stratumUsableRegion';
-import type { Site } from './types';
+import type { Site, StratumInfo } from './types';
 
 /** One stratum's line in the area table (snake_case: this is also the CLI's JSON). */
 export interface StratumAreaRow {
@@ -13,7 +13,7 @@ export interface StratumAreaRow {
   area_ha: number;
   /** Fraction of the total mapped area of all strata, 0–1. */
   share: number;
-  /** Mapped area less buffered exclusions, m² (see stratumUsableRegion). */
+  /** Mapped area less buffered exclusions, m² (see designUsableAreas). */
   usable_m2: number;
 }
 
@@ -22,12 +22,14 @@ export interface StratumAreaTable {
   rows: StratumAreaRow[];
   total_m2: number;
   crs: { utm_zone: string; epsg: number };
+  /** Present when a usable area had to be counted on a grid (see designUsableAreas). */
+  warnings?: string[];
 }
 
 /**
  * Mapped and usable areas of every stratum of a site. Mapped areas are geodesic polygon areas on
- * WGS84 (Karney 2013, via polygonAreaM2); usable areas clip in the site's UTM frame
- * (siteLocalFrame) and measure on the ellipsoid too. Strata listed in `site.strata` without parts
+ * WGS84 (polygonAreaM2); usable areas are the mapped areas less the ground under buffered
+ * exclusions, measured as in the design engine (designUsableAreas, site frame from siteLocalFrame). Strata listed in `site.strata` without parts
  * get zero rows; parts of strata not listed get rows after the listed ones.
  * Throws InputError when the site has no strata polygons.
  */
@@ -43,7 +45,10 @@ export function stratumAreaTable(site: Site): StratumAreaTable {
   }
   let total = 0;
   for (const { m2 } of mapped.values()) total += m2;
-  const rows = keys.map((stratum) => {
+  // Strata that only appear on parts still get a usable area: designUsableAreas reads just the keys.
+  const strata = keys.map((key) => site.strata.find((s) => s.key === key) ?? ({ key, label: key, code: key, colour: '#000000' } as StratumInfo));
+  const areas = designUsableAreas({ ...site, strata }, frame);
+  const rows = keys.map((stratum, i) => {
     const { n, m2 } = mapped.get(stratum)!;
     return {
       stratum,
@@ -51,8 +56,10 @@ export function stratumAreaTable(site: Site): StratumAreaTable {
       area_m2: m2,
       area_ha: m2 / M2_PER_HA,
       share: total > 0 ? m2 / total : 0,
-      usable_m2: n > 0 ? stratumUsableRegion(site, stratum, frame).areaM2 : 0,
+      usable_m2: n > 0 ? areas.usable[i] : 0,
     };
   });
-  return { rows, total_m2: total, crs: { utm_zone: frame.utmZone, epsg: frame.epsg } };
+  const table: StratumAreaTable = { rows, total_m2: total, crs: { utm_zone: frame.utmZone, epsg: frame.epsg } };
+  if (areas.warnings.length > 0) table.warnings = areas.warnings;
+  return table;
 }
