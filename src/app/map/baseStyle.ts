@@ -144,7 +144,8 @@ export function baseStyleBuild(input: BaseStyleInput): StyleSpecification {
       source: BASE_SOURCES.graticule,
       layout: {
         'symbol-placement': 'line',
-        'symbol-spacing': 500,
+        // About one label per line in a laptop-sized view, so labels do not crowd the imagery.
+        'symbol-spacing': 1000,
         'text-field': ['get', 'label'],
         'text-font': [...BASE_LABEL_FONT],
         'text-size': 11,
