@@ -34,6 +34,24 @@ describe('importing files and finishing drawings', () => {
     expect(() => importExclusions(store, excl)).toThrow(/x\.geojson.*feature 0/);
   });
 
+  it('adds exclusions with kinds and buffers mapped from the file’s own attributes, in one undo step', async () => {
+    const store = plannerStoreCreate(designSettingsDefault());
+    const bytes = enc({
+      type: 'FeatureCollection',
+      features: [
+        { type: 'Feature', properties: { what: 'Creek', gap: 12 }, geometry: { type: 'LineString', coordinates: [[150, -35], [150.002, -35]] } },
+        { type: 'Feature', properties: { what: 'shaft', gap: null }, geometry: { type: 'Point', coordinates: [150.001, -35.001] } },
+      ],
+    });
+    const preview = await importRead('invented-hazards.geojson', bytes);
+    expect(preview.fields).toEqual(['what', 'gap']);
+    expect(importExclusions(store, preview, { kind: { attribute: 'what' }, buffer: { attribute: 'gap' } })).toBe(2);
+    // Hazard default 30 m: DEFAULT_BUFFER_M (common practice, no source).
+    expect(store.getState().site.exclusions.map((e) => [e.kind, e.bufferM])).toEqual([['water', 12], ['hazard', 30]]);
+    store.temporal.getState().undo();
+    expect(store.getState().site.exclusions).toEqual([]);
+  });
+
   it('turns a drawn polygon into a new stratum and a drawn line into a cliff with its 15 m default buffer', () => {
     const store = plannerStoreCreate(designSettingsDefault());
     drawFinish(store, 'stratum', { type: 'Polygon', coordinates: [ring] });

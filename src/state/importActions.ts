@@ -1,10 +1,12 @@
 import type { FeatureCollection } from 'geojson';
-import { InputError } from '../core/InputError';
+import { InputError, isInputError } from '../core/InputError';
 import type { Site, StratumInfo } from '../core/types';
 import { accessFromFeatures } from '../io/accessFromFeatures';
 import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
-import { parseFeatureFile } from '../io/parseFeatureFile';
+import { type FeatureFileOptions, parseFeatureFile } from '../io/parseFeatureFile';
 import { STRATUM_PALETTE, strataFromFeatures } from '../io/strataFromFeatures';
+import { type ExclusionMapping, exclusionPropertiesMap } from './exclusionPropertiesMap';
+import { type ImportNeeds, importNeedsOf } from './importNeeds';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
 
@@ -14,19 +16,26 @@ export interface ImportPreview {
   features: FeatureCollection;
   /** Attribute names found on polygon features, for choosing the one that defines strata. */
   polygonFields: string[];
+  /** Attribute names found on any feature, for mapping exclusion kinds and buffers. */
+  fields: string[];
   polygons: number;
   lines: number;
   points: number;
 }
 
-/** Reads a map file (any format parseFeatureFile knows) and counts what it holds. Throws InputError. */
-export async function importRead(fileName: string, bytes: Uint8Array): Promise<ImportPreview> {
-  const features = await parseFeatureFile(fileName, bytes);
+/**
+ * Reads a map file (any format parseFeatureFile knows) and counts what it holds. `options` are
+ * the reader's (layer, EPSG code, encoding, CSV columns, sql.js loader). Throws InputError.
+ */
+export async function importRead(fileName: string, bytes: Uint8Array, options: FeatureFileOptions = {}): Promise<ImportPreview> {
+  const features = await parseFeatureFile(fileName, bytes, options);
   let polygons = 0;
   let lines = 0;
   let points = 0;
   const fields = new Set<string>();
+  const allFields = new Set<string>();
   for (const f of features.features) {
+    for (const k of Object.keys(f.properties ?? {})) allFields.add(k);
     const t = f.geometry?.type ?? '';
     if (t.endsWith('Polygon')) {
       polygons++;
@@ -34,7 +43,29 @@ export async function importRead(fileName: string, bytes: Uint8Array): Promise<I
     } else if (t.endsWith('LineString')) lines++;
     else if (t.endsWith('Point')) points++;
   }
-  return { fileName, features, polygonFields: [...fields], polygons, lines, points };
+  return { fileName, features, polygonFields: [...fields], fields: [...allFields], polygons, lines, points };
+}
+
+/** A file read, or what it still needs chosen (with the reader's refusal when it refused). */
+export type ImportAttempt = { preview: ImportPreview } | { needs: ImportNeeds; refusal: string | null };
+
+/**
+ * Reads a map file unless it first needs a choice (a layer of several, an EPSG code, a text
+ * encoding, CSV columns: see importNeedsOf), in which case the needs are returned and the user
+ * reads it again with `options` completed. Throws InputError for any other problem of the file,
+ * or when the options given do not fit it.
+ */
+export async function importAttempt(fileName: string, bytes: Uint8Array, options: FeatureFileOptions = {}): Promise<ImportAttempt> {
+  const before = await importNeedsOf(fileName, bytes, options, null);
+  if (before) return { needs: before, refusal: null };
+  try {
+    return { preview: await importRead(fileName, bytes, options) };
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    const needs = await importNeedsOf(fileName, bytes, options, error);
+    if (!needs) throw error;
+    return { needs, refusal: error.message };
+  }
 }
 
 /** The attribute to offer first: "stratum" if present, else a name that sounds like one, else the first. */
@@ -81,9 +112,14 @@ export function importStrata(store: PlannerStore, preview: ImportPreview, field:
   return incoming.parts.length;
 }
 
-/** Adds a file's features to the site as exclusions (kind, buffer_m, name, notes properties). */
-export function importExclusions(store: PlannerStore, preview: ImportPreview): number {
-  const incoming = exclusionsFromFeatures(preview.features, { fileName: preview.fileName });
+/**
+ * Adds a file's features to the site as exclusions: kind and buffer from their `kind` and
+ * `buffer_m` properties, or as `mapping` says (see exclusionPropertiesMap); name and notes
+ * properties are kept. One undo step. Throws InputError naming the file and feature.
+ */
+export function importExclusions(store: PlannerStore, preview: ImportPreview, mapping?: ExclusionMapping): number {
+  const features = mapping ? exclusionPropertiesMap(preview.features, mapping, preview.fileName) : preview.features;
+  const incoming = exclusionsFromFeatures(features, { fileName: preview.fileName });
   siteCommit(store, (site) => {
     const ids = site.exclusions.map((e) => e.id);
     const added = incoming.map((e) => {

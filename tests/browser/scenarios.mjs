@@ -1,4 +1,5 @@
 import { booleanPointInPolygon } from '@turf/turf';
+import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
@@ -327,4 +328,5 @@ export const SCENARIOS = [
     },
   },
   RESULTS_SCENARIO,
+  IMPORT_CHOICE_SCENARIO,
 ];

@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { downloadFile, fileSafeName } from '../downloadFile';
 import { plannerStore } from '../plannerStoreInstance';
+import { sqlJsBrowser } from '../sqlJsBrowser';
 import { notify } from '../usePlanner';
 
 const FORMATS: [string, string][] = [
@@ -27,11 +28,7 @@ export function ExportBox() {
       const [ext, pdf] = format.split(':') as [string, 'sheets' | 'report' | undefined];
       // The writers (PDF, GeoPackage) are large: load them only when someone exports.
       const { designOutputBytes } = await import('../../io/designOutput');
-      const sqlJsInit = async () => {
-        const [{ default: initSqlJs }, { default: wasmUrl }] = await Promise.all([import('sql.js'), import('sql.js/dist/sql-wasm.wasm?url')]);
-        return initSqlJs({ locateFile: () => wasmUrl });
-      };
-      const bytes = await designOutputBytes(`plots.${ext}`, s.result, s.site, { pdf, sqlJsInit, name: s.site.name });
+      const bytes = await designOutputBytes(`plots.${ext}`, s.result, s.site, { pdf, sqlJsInit: sqlJsBrowser, name: s.site.name });
       const name = `${fileSafeName(s.site.name, 'design')}${pdf ? `-${pdf}` : '-plots'}.${ext}`;
       downloadFile(name, bytes);
       notify('info', `${name} written to your downloads.`);

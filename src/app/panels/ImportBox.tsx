@@ -1,46 +1,71 @@
 import { useId, useState } from 'react';
-import { type ImportPreview, importAccess, importExclusions, importFieldGuess, importRead, importStrata } from '../../state/importActions';
+import type { FeatureFileOptions } from '../../io/parseFeatureFile';
+import type { ExclusionMapping } from '../../state/exclusionPropertiesMap';
+import { type ImportPreview, importAccess, importAttempt, importExclusions, importFieldGuess, importStrata } from '../../state/importActions';
+import type { ImportNeeds } from '../../state/importNeeds';
 import { plannerStore } from '../plannerStoreInstance';
+import { sqlJsBrowser } from '../sqlJsBrowser';
 import { notify } from '../usePlanner';
+import { ExclusionMappingForm } from './ExclusionMappingForm';
+import { ImportChoiceForm } from './ImportChoiceForm';
 
 const ACCEPT = '.geojson,.json,.zip,.kml,.kmz,.gpx,.gpkg,.csv';
 
+type Role = 'strata' | 'exclusions' | 'access';
+
+/** Where an import stands: asking how to read the file, or what to add from it. */
+type Step =
+  | { at: 'choice'; fileName: string; bytes: Uint8Array; options: FeatureFileOptions; needs: ImportNeeds; problem: string | null; round: number }
+  | { at: 'field'; preview: ImportPreview }
+  | { at: 'mapping'; preview: ImportPreview };
+
 /**
  * Reads a map file chosen by the user (nothing is uploaded: the bytes stay in the page) and adds
- * it as strata, exclusions or access points. For strata, the user picks the attribute that
- * defines them before anything is added.
+ * it as strata, exclusions or access points. A file that needs a choice first (a layer, an EPSG
+ * code, an encoding, CSV columns) is asked about and read again; strata then need the attribute
+ * that defines them, exclusions where their kinds and buffers come from.
  */
-export function ImportBox({ kind: role }: { kind: 'strata' | 'exclusions' | 'access' }) {
+export function ImportBox({ kind: role }: { kind: Role }) {
   const inputId = useId();
-  const [preview, setPreview] = useState<ImportPreview | null>(null);
+  const [step, setStep] = useState<Step | null>(null);
   const [field, setField] = useState<string>('');
   const [busy, setBusy] = useState(false);
 
-  const finish = (p: ImportPreview, f: string) => {
+  const add = (action: () => void) => {
     try {
-      if (role === 'strata') importStrata(plannerStore, p, f);
-      else if (role === 'exclusions') importExclusions(plannerStore, p);
-      else importAccess(plannerStore, p);
-      setPreview(null);
+      action();
+      setStep(null);
     } catch (e) {
       notify('error', (e as Error).message);
     }
   };
 
-  const onFile = async (file: File | undefined) => {
-    if (!file) return;
+  const read = async (fileName: string, bytes: Uint8Array, options: FeatureFileOptions, round: number) => {
     setBusy(true);
     try {
-      const p = await importRead(file.name, new Uint8Array(await file.arrayBuffer()));
-      if (role === 'strata') {
-        setField(importFieldGuess(p.polygonFields) ?? '');
-        setPreview(p);
-      } else finish(p, '');
+      const got = await importAttempt(fileName, bytes, { ...options, sqlJsInit: sqlJsBrowser });
+      if ('needs' in got) {
+        // Each need is explained in the form in the planner's words, so the reader's refusal is not repeated.
+        setStep({ at: 'choice', fileName, bytes, options, needs: got.needs, problem: null, round: round + 1 });
+      } else if (role === 'strata') {
+        setField(importFieldGuess(got.preview.polygonFields) ?? '');
+        setStep({ at: 'field', preview: got.preview });
+      } else if (role === 'exclusions') setStep({ at: 'mapping', preview: got.preview });
+      else add(() => importAccess(plannerStore, got.preview));
     } catch (e) {
-      notify('error', (e as Error).message);
+      const message = (e as Error).message;
+      // A refusal after a choice stays beside the choices, so the user can change them.
+      if (round > 0) setStep((s) => (s && s.at === 'choice' ? { ...s, problem: message } : s));
+      else notify('error', message);
     } finally {
       setBusy(false);
     }
+  };
+
+  const onFile = async (file: File | undefined) => {
+    if (!file) return;
+    setStep(null);
+    await read(file.name, new Uint8Array(await file.arrayBuffer()), {}, 0);
   };
 
   const noun = role === 'strata' ? 'strata' : role === 'exclusions' ? 'exclusions' : 'access points';
@@ -61,21 +86,38 @@ export function ImportBox({ kind: role }: { kind: 'strata' | 'exclusions' | 'acc
         }}
       />
       <p className="fine">GeoJSON, zipped shapefile, KML/KMZ, GPX, GeoPackage or CSV. Files are read here and never leave this computer.</p>
-      {preview ? (
+      {step?.at === 'choice' ? (
+        <ImportChoiceForm
+          key={step.round}
+          fileName={step.fileName}
+          needs={step.needs}
+          problem={step.problem}
+          onRead={(options) => void read(step.fileName, step.bytes, { ...step.options, ...options }, step.round)}
+          onCancel={() => setStep(null)}
+        />
+      ) : null}
+      {step?.at === 'mapping' ? (
+        <ExclusionMappingForm
+          preview={step.preview}
+          onAdd={(mapping: ExclusionMapping) => add(() => importExclusions(plannerStore, step.preview, mapping))}
+          onCancel={() => setStep(null)}
+        />
+      ) : null}
+      {step?.at === 'field' ? (
         <form
           className="field-pick"
           onSubmit={(e) => {
             e.preventDefault();
-            finish(preview, field);
+            add(() => importStrata(plannerStore, step.preview, field));
           }}
         >
           <p>
-            {preview.fileName}: {preview.polygons} polygons. Which attribute names the stratum?
+            {step.preview.fileName}: {step.preview.polygons} polygons. Which attribute names the stratum?
           </p>
           <label>
             Stratum attribute{' '}
             <select value={field} onChange={(e) => setField(e.currentTarget.value)}>
-              {preview.polygonFields.map((f) => (
+              {step.preview.polygonFields.map((f) => (
                 <option key={f} value={f}>
                   {f}
                 </option>
@@ -85,7 +127,7 @@ export function ImportBox({ kind: role }: { kind: 'strata' | 'exclusions' | 'acc
           <button type="submit" disabled={!field}>
             Add strata
           </button>
-          <button type="button" onClick={() => setPreview(null)}>
+          <button type="button" onClick={() => setStep(null)}>
             Cancel
           </button>
         </form>
