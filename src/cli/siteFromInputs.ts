@@ -18,6 +18,8 @@ export interface SiteInputs {
   exclude?: string[];
   access?: string[];
   boundary?: string;
+  /** The site's name for titles and documents (default: the strata file's name without extension). */
+  name?: string;
   /** Reader options from the import flags (see importFlagsRead); default: none. */
   imports?: ImportChoices;
 }
@@ -49,7 +51,7 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   };
   const strataFile = await load(inputs.strata, true);
   const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });
-  const empty: Site = { name: basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
+  const empty: Site = { name: inputs.name?.trim() || basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
   const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
 
   const exclusions: Exclusion[] = [];

@@ -119,4 +119,11 @@ describe('stratplot export with the site', () => {
     expect(r.code).toBe(2);
     expect(r.err).toBe('stratplot export: --from "South jetty" is not an access point of the site; known: "North car park" (access-north), "Creek Road gate" (access-east)\n');
   });
+
+  it('names the site in the GPS file as asked', async () => {
+    const dir = workspace();
+    const r = await run(dir, 'plots.geojson', '--format', 'gpx', '--out', 'p.gpx', '--strata', demo('strata'), '--site-name', 'Ochre Spit (invented)');
+    expect(r.code, r.err).toBe(0);
+    expect(readFileSync(join(dir, 'p.gpx'), 'utf8')).toContain('<metadata><name>Ochre Spit (invented)</name>');
+  });
 });

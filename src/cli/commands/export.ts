@@ -36,6 +36,7 @@ ${Object.entries(FORMATS)
   --strata FILE       the strata map the design was made on: adds strata to multi-layer formats and
                       the map to PDFs
   --field NAME        property holding each polygon's stratum (default stratum)
+  --site-name NAME    the site's name on sheets, reports and GPS files (default: the strata file's name)
   --exclude FILE      exclusions (repeat for more files); needs --strata
   --access FILE       access points (repeat for more files); needs --strata
   --bom               csv: start with a UTF-8 byte-order mark (for some spreadsheet programs)
@@ -70,6 +71,7 @@ export const exportCommand: Command = {
           out: { type: 'string' },
           strata: { type: 'string' },
           field: { type: 'string' },
+          'site-name': { type: 'string' },
           exclude: { type: 'string', multiple: true },
           access: { type: 'string', multiple: true },
           bom: { type: 'boolean' },
@@ -119,7 +121,7 @@ export const exportCommand: Command = {
     const collection = parsePlotFile(plotsFile.name, plotsFile.bytes);
     let site: Site | undefined;
     if (values.strata) {
-      const loaded = await siteFromInputs(io, { strata: String(values.strata), field: values.field as string | undefined, exclude, access, imports });
+      const loaded = await siteFromInputs(io, { strata: String(values.strata), field: values.field as string | undefined, name: values['site-name'] as string | undefined, exclude, access, imports });
       site = loaded.site;
       for (const w of loaded.warnings) io.err(`warning: ${w}\n`);
     }

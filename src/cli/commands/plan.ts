@@ -21,6 +21,7 @@ stratum, clear of every buffered exclusion, at a minimum spacing, with ranked re
 Allocation:
   --plots N                 total primary plots (required unless --target-halfwidth is given)
   --field NAME              property holding the stratum of each polygon (default stratum)
+  --site-name NAME          the site's name in the files written (default: the strata file's name)
   --allocation A            proportional | equal | neyman (default proportional)
   --share-basis B           usable | mapped: area the shares follow (default usable)
   --min-per-stratum K       at least K plots in every stratum (default 2)
@@ -141,6 +142,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     exclude: o.exclude,
     access: o.access,
     boundary: o.boundary,
+    name: o['site-name'],
     imports,
   });
   const { site } = loaded;
@@ -212,6 +214,7 @@ function parse(argv: string[]) {
     options: {
       plots: { type: 'string' },
       field: { type: 'string' },
+      'site-name': { type: 'string' },
       exclude: { type: 'string', multiple: true },
       access: { type: 'string', multiple: true },
       boundary: { type: 'string' },
