@@ -16,6 +16,7 @@ import { siteLocalFrame } from '../src/core/siteLocalFrame';
 import { polygonSelfIntersections } from '../src/core/polygonSelfIntersections';
 import { siteValidate } from '../src/core/siteValidate';
 import { stratumUsableRegion } from '../src/core/stratumUsableRegion';
+import { utmForwardArray } from '../src/core/utmForwardArray';
 import type { Site } from '../src/core/types';
 import { exclusionsFromFeatures } from '../src/io/exclusionsFromFeatures';
 import { strataFromFeatures } from '../src/io/strataFromFeatures';
@@ -152,6 +153,21 @@ sink += fastArea.value * 1e-12 + libArea.value * 1e-12;
 console.log(
   `  ellipsoidal area of all ${partRings.length} rings: equal-area route ${fastArea.ms.toFixed(0)} ms, GeographicLib PolygonArea ${libArea.ms.toFixed(0)} ms` +
     ` — ratio ${(libArea.ms / fastArea.ms).toFixed(1)}x, relative difference of the totals ${Math.abs(fastArea.value / libArea.value - 1).toExponential(1)}`,
+);
+// Projecting every stratum vertex into the UTM frame: one flat pass against proj4 point by point.
+const flatRings = partRings.map((ring) => Float64Array.from(ring.flat()));
+const flatXY = time(() => flatRings.map((f) => utmForwardArray(bigFrame, f)));
+const proj4XY = time(() => partRings.map((ring) => ring.map(([lon, lat]) => bigFrame.toXY(lon, lat))));
+let projDiff = 0;
+for (let r = 0; r < partRings.length; r++) {
+  const xy = flatXY.value[r];
+  const ref = proj4XY.value[r];
+  for (let i = 0; i < ref.length; i++) projDiff = Math.max(projDiff, Math.abs(xy[2 * i] - ref[i][0]), Math.abs(xy[2 * i + 1] - ref[i][1]));
+}
+sink += flatXY.value.length + proj4XY.value.length;
+console.log(
+  `  UTM projection of all ${big.vertices + partRings.length} ring vertices: flat Krüger series ${flatXY.ms.toFixed(0)} ms, proj4 point by point ${proj4XY.ms.toFixed(0)} ms` +
+    ` — ratio ${(proj4XY.ms / flatXY.ms).toFixed(1)}x, largest difference ${projDiff} m`,
 );
 // Self-intersection check of the same rings against turf's kinks (the tests' reference), on a sample.
 const sampleRings = partRings.slice(0, 40);

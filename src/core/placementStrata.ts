@@ -2,6 +2,7 @@ import earcut from 'earcut';
 import Flatbush from 'flatbush';
 import type { LocalFrame } from './localFrame';
 import type { Site } from './types';
+import { utmForwardArray } from './utmForwardArray';
 
 /** One stratum in frame metres, ready for sampling and containment tests. */
 export interface StratumShapeXY {
@@ -38,12 +39,17 @@ function sharedSegments(seg: Float64Array): Uint8Array {
   const shared = new Uint8Array(n);
   let size = 1;
   while (size < n * 2) size <<= 1;
+  const mask = size - 1;
   const table = new Int32Array(size).fill(-1);
   for (let i = 0; i < n; i++) {
     const o = i * 4;
-    let [ax, ay, bx, by] = [seg[o], seg[o + 1], seg[o + 2], seg[o + 3]];
-    if (bx < ax || (bx === ax && by < ay)) [ax, ay, bx, by] = [bx, by, ax, ay];
-    let h = hashDouble(hashDouble(hashDouble(hashDouble(0x811c9dc5, ax), ay), bx), by) & (size - 1);
+    // Ends in a fixed order, so a segment and its reverse hash alike.
+    const flip = seg[o + 2] < seg[o] || (seg[o + 2] === seg[o] && seg[o + 3] < seg[o + 1]);
+    const ax = flip ? seg[o + 2] : seg[o];
+    const ay = flip ? seg[o + 3] : seg[o + 1];
+    const bx = flip ? seg[o] : seg[o + 2];
+    const by = flip ? seg[o + 1] : seg[o + 3];
+    let h = hashDouble(hashDouble(hashDouble(hashDouble(0x811c9dc5, ax), ay), bx), by) & mask;
     for (;;) {
       const j = table[h];
       if (j < 0) {
@@ -59,7 +65,7 @@ function sharedSegments(seg: Float64Array): Uint8Array {
         shared[j] = 1;
         break;
       }
-      h = (h + 1) & (size - 1);
+      h = (h + 1) & mask;
     }
   }
   return shared;
@@ -80,7 +86,7 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
     // Sized once: every ring edge is at most one segment; triangles are collected per polygon.
     let seg = new Float64Array(vertexCount * 4);
     let segCount = 0;
-    const triParts: Float64Array[] = [];
+    const triParts: { coords: Float64Array; idx: number[] }[] = [];
     let triValues = 0;
     for (const poly of polygons) {
       let polyCount = 0;
@@ -96,11 +102,15 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
         if (r > 0) holes.push(used / 2);
         const start = used;
         for (let i = 0; i < len; i++) {
-          const xy = frame.toXY(ring[i][0], ring[i][1]);
-          const x = xy[0];
-          const y = xy[1];
-          flat[used++] = x;
-          flat[used++] = y;
+          const p = ring[i];
+          flat[used++] = p[0];
+          flat[used++] = p[1];
+        }
+        // Projected in place, one flat pass per ring (no per-vertex objects).
+        const xy = utmForwardArray(frame, flat.subarray(start, used), flat.subarray(start, used));
+        for (let i = 0; i < xy.length; i += 2) {
+          const x = xy[i];
+          const y = xy[i + 1];
           if (x < bbox[0]) bbox[0] = x;
           if (y < bbox[1]) bbox[1] = y;
           if (x > bbox[2]) bbox[2] = x;
@@ -119,19 +129,18 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
       if (used < 6) continue;
       const coords = used === flat.length ? flat : flat.subarray(0, used);
       const idx = earcut(coords, holes.length ? holes : null, 2);
-      const t = new Float64Array(idx.length * 2);
-      for (let k = 0; k < idx.length; k++) {
-        t[k * 2] = coords[idx[k] * 2];
-        t[k * 2 + 1] = coords[idx[k] * 2 + 1];
-      }
-      triParts.push(t);
-      triValues += t.length;
+      triParts.push({ coords, idx });
+      triValues += idx.length * 2;
     }
+    // Corners are written straight into one array, sized once.
     const triangles = new Float64Array(triValues);
     let off = 0;
-    for (const t of triParts) {
-      triangles.set(t, off);
-      off += t.length;
+    for (const { coords, idx } of triParts) {
+      for (let k = 0; k < idx.length; k++) {
+        const c = idx[k] * 2;
+        triangles[off++] = coords[c];
+        triangles[off++] = coords[c + 1];
+      }
     }
     const nt = triangles.length / 6;
     const cumulativeArea = new Float64Array(nt);
@@ -150,7 +159,7 @@ export function stratumShapesXY(site: Site, frame: LocalFrame): StratumShapeXY[]
         if (kept !== i) seg.copyWithin(kept * 4, i * 4, i * 4 + 4);
         kept++;
       }
-      seg = seg.slice(0, kept * 4);
+      seg = seg.subarray(0, kept * 4);
     }
     const ns = seg.length / 4;
     // Runs of EDGE_CHUNK consecutive segments share one index box: far fewer boxes to sort and search.
