@@ -1,10 +1,12 @@
 import { useId, useState } from 'react';
 import type { PlanFile } from '../core/designTypes';
 import { planFileApply, planFileFromState, planFileParse, planHasUnsavedWork } from '../state/planFile';
+import { resultsSnapshotTake } from '../state/resultsSnapshot';
 import { ConfirmDialog } from './ConfirmDialog';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { downloadFile, fileSafeName } from './downloadFile';
 import { plannerStore } from './plannerStoreInstance';
+import { resultsStore } from './results/resultsStoreInstance';
 import { notify, usePlanner } from './usePlanner';
 
 /** Save and open plan files; opening over unsaved work asks first (our own dialog, never a silent overwrite). */
@@ -15,7 +17,7 @@ export function FileBar() {
   const [pending, setPending] = useState<{ plan: PlanFile; what: string } | null>(null);
 
   const apply = (plan: PlanFile, what: string) => {
-    planFileApply(plannerStore, plan, demoDesign(null), true);
+    planFileApply(plannerStore, plan, demoDesign(null), true, resultsStore);
     notify('info', `${what} opened.`);
   };
   const offer = (plan: PlanFile, what: string) => {
@@ -25,7 +27,7 @@ export function FileBar() {
 
   const save = () => {
     const s = plannerStore.getState();
-    const plan = planFileFromState(s, new Date().toISOString());
+    const plan = planFileFromState(s, new Date().toISOString(), resultsSnapshotTake(resultsStore.getState()));
     downloadFile(`${fileSafeName(s.site.name, 'plan')}.stratplot.json`, JSON.stringify(plan, null, 1), 'application/json');
     plannerStore.setState({ savedRevision: s.revision });
     notify('info', 'Plan saved to your downloads.');

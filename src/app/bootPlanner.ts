@@ -3,6 +3,7 @@ import { autosaveRestore, autosaveStart } from '../state/autosave';
 import { planFileApply } from '../state/planFile';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { plannerStore } from './plannerStoreInstance';
+import { resultsStore } from './results/resultsStoreInstance';
 
 const storage = { get: (k: string) => get(k), set: (k: string, v: unknown) => set(k, v) };
 
@@ -10,7 +11,7 @@ const storage = { get: (k: string) => get(k), set: (k: string, v: unknown) => se
 export async function bootPlanner(): Promise<void> {
   let restored = false;
   try {
-    restored = await autosaveRestore(plannerStore, storage, demoDesign(null));
+    restored = await autosaveRestore(plannerStore, storage, demoDesign(null), resultsStore);
   } catch (e) {
     plannerStore.setState({ notice: { tone: 'error', text: `${(e as Error).message}; the demo site was opened instead` } });
   }
@@ -21,8 +22,12 @@ export async function bootPlanner(): Promise<void> {
   } else {
     plannerStore.setState({ notice: { tone: 'info', text: 'Your work was restored from this browser’s copy.' } });
   }
-  const { flush } = autosaveStart(plannerStore, storage, 150, () =>
-    plannerStore.setState({ notice: { tone: 'error', text: 'This browser refused to keep a copy of your work: save a plan file to be safe.' } }),
+  const { flush } = autosaveStart(
+    plannerStore,
+    storage,
+    150,
+    () => plannerStore.setState({ notice: { tone: 'error', text: 'This browser refused to keep a copy of your work: save a plan file to be safe.' } }),
+    resultsStore,
   );
   // An edit made just before the page is hidden or closed is written at once, not after the delay.
   document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && void flush());

@@ -1,4 +1,5 @@
 import type { FeatureCollection, Point } from 'geojson';
+import type { ResultKind } from './resultsCellParse';
 import type { ExclusionKind, Site } from './types';
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
@@ -123,4 +124,38 @@ export interface PlanFile {
   design: DesignSettings;
   result: PlotCollection | null;
   rejections: FieldRejection[];
+  /** The Results step's work (absent in plans saved before it was kept, or with nothing entered). */
+  results?: ResultsSnapshot;
+}
+
+/** A recapture grid as the planner typed it: every number kept as text, half-typed ones too. */
+export interface RecaptureGridSaved {
+  id: string;
+  name: string;
+  marked: string;
+  caught: string;
+  recaptured: string;
+  stripM: string;
+  by: 'stations' | 'area';
+  areaHa: string;
+  spacingM: string;
+  rows: string;
+  cols: string;
+}
+
+/**
+ * What the Results step keeps in the plan file: the results CSV as text, which columns mean what,
+ * the options chosen and the recapture forms. Estimates are not kept: they are worked out again.
+ */
+export interface ResultsSnapshot {
+  fileName: string | null;
+  csvText: string | null;
+  mapping: { idColumn: string; statusColumn: string | null; replacedByColumn: string | null; kinds: Record<string, ResultKind> } | null;
+  variable: string | null;
+  collapse: boolean;
+  perHa: boolean;
+  /** Next season's target half-width: a fraction of the mean when relative, else in the variable's units. */
+  target: { value: number; relative: boolean };
+  colourOn: boolean;
+  grids: RecaptureGridSaved[];
 }

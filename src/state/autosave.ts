@@ -2,6 +2,8 @@ import type { DesignSettings, PlanFile } from '../core/designTypes';
 import { InputError } from '../core/InputError';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
+import type { ResultsStore } from './resultsStore';
+import { RESULTS_SNAPSHOT_FIELDS, resultsSnapshotTake } from './resultsSnapshot';
 
 /** The two calls autosave needs from a key-value store (idb-keyval's get/set in the browser). */
 export interface AutosaveStorage {
@@ -21,24 +23,31 @@ interface AutosaveRecord {
 /**
  * Writes the working plan to storage after every change (site, design, result, field decisions),
  * coalescing bursts into one write per `delayMs`. Returns `flush` (write a pending change now, e.g.
- * when the page is being hidden or closed) and `stop` (stop autosave after flushing).
+ * when the page is being hidden or closed) and `stop` (stop autosave after flushing). With `results`,
+ * the Results step's work (file, mapping, options, recapture forms) is kept too, on its own changes.
  */
 export function autosaveStart(
   store: PlannerStore,
   storage: AutosaveStorage,
   delayMs = 250,
   onError?: (e: unknown) => void,
+  results?: ResultsStore,
 ): { flush: () => Promise<void>; stop: () => Promise<void> } {
   let timer: ReturnType<typeof setTimeout> | null = null;
   let writing: Promise<void> = Promise.resolve();
   const write = () => {
     timer = null;
     const s = store.getState();
-    const record: AutosaveRecord = { plan: planFileFromState(s, new Date().toISOString()), saved: s.revision === s.savedRevision };
+    const snapshot = results ? resultsSnapshotTake(results.getState()) : null;
+    const record: AutosaveRecord = { plan: planFileFromState(s, new Date().toISOString(), snapshot), saved: s.revision === s.savedRevision };
     writing = writing.then(() => storage.set(AUTOSAVE_KEY, JSON.stringify(record))).catch((e) => onError?.(e));
   };
   const unsubscribe = store.subscribe((s, prev) => {
     if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.rejections === prev.rejections && s.savedRevision === prev.savedRevision) return;
+    if (timer === null) timer = setTimeout(write, delayMs);
+  });
+  const unsubscribeResults = results?.subscribe((s, prev) => {
+    if (RESULTS_SNAPSHOT_FIELDS.every((k) => s[k] === prev[k])) return;
     if (timer === null) timer = setTimeout(write, delayMs);
   });
   const flush = async () => {
@@ -52,6 +61,7 @@ export function autosaveStart(
     flush,
     stop: async () => {
       unsubscribe();
+      unsubscribeResults?.();
       await flush();
     },
   };
@@ -59,9 +69,10 @@ export function autosaveStart(
 
 /**
  * Restores the working plan kept by {@link autosaveStart}; returns false when there is none.
- * A damaged record is reported through the thrown InputError rather than half-loaded.
+ * A damaged record is reported through the thrown InputError rather than half-loaded. With
+ * `results`, the Results step's kept work is restored as well.
  */
-export async function autosaveRestore(store: PlannerStore, storage: AutosaveStorage, defaults: DesignSettings): Promise<boolean> {
+export async function autosaveRestore(store: PlannerStore, storage: AutosaveStorage, defaults: DesignSettings, results?: ResultsStore): Promise<boolean> {
   const raw = await storage.get(AUTOSAVE_KEY);
   if (typeof raw !== 'string') return false;
   let record: AutosaveRecord;
@@ -71,6 +82,6 @@ export async function autosaveRestore(store: PlannerStore, storage: AutosaveStor
     throw new InputError('the browser copy of your work is damaged and could not be read');
   }
   const plan = planFileParse(JSON.stringify(record.plan), 'the browser copy of your work');
-  planFileApply(store, plan, defaults, record.saved);
+  planFileApply(store, plan, defaults, record.saved, results);
   return true;
 }

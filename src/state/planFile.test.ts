@@ -2,7 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { designSettingsDefault } from '../core/designSettingsDefault';
 import { type AutosaveStorage, AUTOSAVE_KEY, autosaveRestore, autosaveStart } from './autosave';
 import { planFileApply, planFileFromState, planFileParse, planHasUnsavedWork } from './planFile';
+import { plotCollectionInvented } from '../core/plotCollectionInvented';
 import { plannerStoreCreate } from './plannerStore';
+import { recaptureGridSet, resultsLoad, resultsMappingSet, resultsStoreCreate } from './resultsStore';
+import { resultsSnapshotTake } from './resultsSnapshot';
 import { stratumPartAdd } from './strataActions';
 
 const square = { type: 'Polygon' as const, coordinates: [[[150, -35], [150.001, -35], [150.001, -34.999], [150, -34.999], [150, -35]]] };
@@ -66,5 +69,85 @@ describe('autosave', () => {
     expect(await autosaveRestore(store, storage, designSettingsDefault())).toBe(false);
     storage.data.set(AUTOSAVE_KEY, '{not json');
     await expect(autosaveRestore(store, storage, designSettingsDefault())).rejects.toThrow('the browser copy of your work is damaged');
+  });
+});
+
+// Invented plot file and field values (not a real site): heath 5 ha usable, saltmarsh 3 ha, 10 m square plots.
+const plots = plotCollectionInvented([
+  { key: 'Coastal heath', code: 'HEA', primaries: 2, reserves: 1, mappedM2: 50_000, usableM2: 50_000 },
+  { key: 'Saltmarsh', code: 'SAL', primaries: 2, reserves: 1, mappedM2: 30_000, usableM2: 30_000 },
+]);
+const CSV = 'plot,height_cm,status\nHEA-01,12,done\nHEA-02,16,done\nSAL-01,5,done\nSAL-02,9,done\n';
+// Stratified mean by hand (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5: ȳ_st = Σ W_h ȳ_h): W = 5/8, 3/8; means 14, 7.
+const MEAN = (5 / 8) * 14 + (3 / 8) * 7;
+
+function plannerWithPlots() {
+  const store = plannerStoreCreate(designSettingsDefault({ seed: 3 }));
+  stratumPartAdd(store, 'Heath', square);
+  store.setState({ result: plots });
+  return store;
+}
+
+function resultsWorked() {
+  const results = resultsStoreCreate();
+  resultsLoad(results, 'heights.csv', CSV, plots);
+  resultsMappingSet(results, { statusColumn: null }, plots);
+  recaptureGridSet(results, 'grid-1', { marked: '30', caught: '25', recaptured: '10' });
+  return results;
+}
+
+describe('results in the plan file and the browser copy', () => {
+  it('saves the Results step in the plan file and gives the same estimate on open', () => {
+    const planner = plannerWithPlots();
+    const results = resultsWorked();
+    expect(results.getState().report?.mean).toBeCloseTo(MEAN, 12);
+    const text = JSON.stringify(planFileFromState(planner.getState(), '2026-12-01T00:00:00.000Z', resultsSnapshotTake(results.getState())));
+    const plan = planFileParse(text, 'site.stratplot.json');
+    expect(plan.results?.csvText).toBe(CSV);
+    const otherPlanner = plannerStoreCreate(designSettingsDefault());
+    const otherResults = resultsStoreCreate();
+    planFileApply(otherPlanner, plan, designSettingsDefault(), true, otherResults);
+    const s = otherResults.getState();
+    // The status column the user unset stays unset: it is read as one more variable.
+    expect(s.mapping).toMatchObject({ idColumn: 'plot', statusColumn: null, replacedByColumn: null });
+    expect(Object.keys(s.mapping?.kinds ?? {})).toEqual(['height_cm', 'status']);
+    expect(s.grids[0]).toMatchObject({ marked: '30', caught: '25', recaptured: '10' });
+    expect(s.report?.mean).toBeCloseTo(MEAN, 12);
+  });
+
+  it('opens a plan saved without results and empties the Results step for it', () => {
+    const planner = plannerWithPlots();
+    const text = JSON.stringify(planFileFromState(planner.getState(), '2026-12-01T00:00:00.000Z'));
+    expect(JSON.parse(text)).not.toHaveProperty('results');
+    const plan = planFileParse(text, 'old.stratplot.json');
+    expect(plan.results).toBeUndefined();
+    const results = resultsWorked();
+    planFileApply(plannerStoreCreate(designSettingsDefault()), plan, designSettingsDefault(), true, results);
+    expect(results.getState().table).toBeNull();
+    expect(results.getState().grids[0].marked).toBe('');
+  });
+
+  it('keeps a change made only in the Results step in the browser copy and restores it on reload', async () => {
+    const storage = memoryStorage();
+    const planner = plannerWithPlots();
+    const results = resultsStoreCreate();
+    const { stop } = autosaveStart(planner, storage, 5, undefined, results);
+    resultsLoad(results, 'heights.csv', CSV, plots);
+    await new Promise((r) => setTimeout(r, 20));
+    recaptureGridSet(results, 'grid-1', { name: 'East grid' });
+    await stop();
+    const freshPlanner = plannerStoreCreate(designSettingsDefault());
+    const freshResults = resultsStoreCreate();
+    expect(await autosaveRestore(freshPlanner, storage, designSettingsDefault(), freshResults)).toBe(true);
+    expect(freshResults.getState().fileName).toBe('heights.csv');
+    expect(freshResults.getState().grids[0].name).toBe('East grid');
+    expect(freshResults.getState().mapping?.statusColumn).toBe('status');
+    expect(freshResults.getState().report?.mean).toBeCloseTo(MEAN, 12);
+  });
+
+  it('names the file when its results member is damaged', () => {
+    const planner = plannerWithPlots();
+    const plan = { ...planFileFromState(planner.getState(), ''), results: { csvText: 'plot\n', grids: {} } };
+    expect(() => planFileParse(JSON.stringify(plan), 'e.json')).toThrow('e.json: results.grids must be a list');
   });
 });

@@ -1,11 +1,16 @@
-import type { DesignSettings, PlanFile } from '../core/designTypes';
+import type { DesignSettings, PlanFile, ResultsSnapshot } from '../core/designTypes';
 import { InputError } from '../core/InputError';
 import type { Site } from '../core/types';
 import type { PlannerState, PlannerStore } from './plannerStore';
+import type { ResultsStore } from './resultsStore';
+import { resultsReset, resultsSnapshotIsEmpty, resultsSnapshotParse, resultsSnapshotRestore } from './resultsSnapshot';
 
-/** The plan file for what the planner holds now (see ARCHITECTURE.md, "The plan file"). */
-export function planFileFromState(state: PlannerState, savedAt: string): PlanFile {
-  return {
+/**
+ * The plan file for what the planner holds now (see ARCHITECTURE.md, "The plan file").
+ * @param results the Results step's work; left out of the file when absent or empty
+ */
+export function planFileFromState(state: PlannerState, savedAt: string, results?: ResultsSnapshot | null): PlanFile {
+  const plan: PlanFile = {
     format: 'stratplot-plan',
     version: 1,
     savedAt,
@@ -14,6 +19,8 @@ export function planFileFromState(state: PlannerState, savedAt: string): PlanFil
     result: state.result,
     rejections: state.rejections,
   };
+  if (results && !resultsSnapshotIsEmpty(results)) plan.results = results;
+  return plan;
 }
 
 function isObject(v: unknown): v is Record<string, unknown> {
@@ -54,6 +61,7 @@ export function planFileParse(text: string, fileName: string): PlanFile {
   if (result !== null && (!isObject(result) || !Array.isArray(result.features))) throw new InputError(`${fileName}: "result" is not a plot collection`);
   const rejections = data.rejections ?? [];
   if (!Array.isArray(rejections)) throw new InputError(`${fileName}: "rejections" must be a list`);
+  const results = data.results === undefined || data.results === null ? undefined : resultsSnapshotParse(data.results, fileName);
   return {
     format: 'stratplot-plan',
     version: 1,
@@ -62,15 +70,17 @@ export function planFileParse(text: string, fileName: string): PlanFile {
     design: data.design as unknown as DesignSettings,
     result: result as PlanFile['result'],
     rejections: rejections as PlanFile['rejections'],
+    ...(results ? { results } : {}),
   };
 }
 
 /**
  * Puts a plan into the planner, replacing what was there. `saved` says whether the plan equals a
  * file on disk (opened from one) or is unsaved work (restored from autosave). The undo history
- * starts afresh: undo never crosses into another plan.
+ * starts afresh: undo never crosses into another plan. When `results` is given, the Results step
+ * takes the plan's results work (or starts empty when the plan has none).
  */
-export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: DesignSettings, saved: boolean): void {
+export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: DesignSettings, saved: boolean, results?: ResultsStore): void {
   const s = store.getState();
   const revision = s.revision + 1;
   store.setState({
@@ -85,6 +95,9 @@ export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: Des
     tool: 'none',
   });
   store.temporal.getState().clear();
+  if (!results) return;
+  if (plan.results) resultsSnapshotRestore(results, plan.results, plan.result);
+  else resultsReset(results);
 }
 
 /** True when the planner holds changes not yet written to a plan file. */

@@ -43,6 +43,8 @@ export interface ResultsColouring {
 
 export interface ResultsState {
   fileName: string | null;
+  /** The loaded file's text, kept so the plan file and the browser copy can read it again. */
+  sourceText: string | null;
   table: ResultsTable | null;
   /** Why the last file could not be read (the file is then not loaded). */
   loadError: string | null;
@@ -72,6 +74,7 @@ export type ResultsStore = StoreApi<ResultsState>;
 export function resultsStoreCreate(): ResultsStore {
   return createStore<ResultsState>()(() => ({
     fileName: null,
+    sourceText: null,
     table: null,
     loadError: null,
     mapping: null,
@@ -130,7 +133,8 @@ export function resultsLoad(store: ResultsStore, fileName: string, bytes: Uint8A
     kinds[c] = resultsKindGuess(c, table.rows.map((r) => r.cells[c] ?? ''));
   }
   const variable = Object.keys(kinds)[0] ?? null;
-  store.setState({ fileName, table, loadError: null, mapping: { idColumn, statusColumn, replacedByColumn, kinds }, variable });
+  const sourceText = typeof bytes === 'string' ? bytes : new TextDecoder().decode(bytes);
+  store.setState({ fileName, sourceText, table, loadError: null, mapping: { idColumn, statusColumn, replacedByColumn, kinds }, variable });
   resultsRecompute(store, collection);
 }
 
@@ -257,5 +261,5 @@ export function recaptureGridRemove(store: ResultsStore, id: string): void {
 
 /** Forgets the loaded file and everything worked out from it (the recapture forms stay). */
 export function resultsClear(store: ResultsStore): void {
-  store.setState({ fileName: null, table: null, loadError: null, mapping: null, variable: null, problems: [], report: null, estimateError: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null });
+  store.setState({ fileName: null, sourceText: null, table: null, loadError: null, mapping: null, variable: null, problems: [], report: null, estimateError: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null });
 }

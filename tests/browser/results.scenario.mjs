@@ -24,7 +24,7 @@ function inventedResults(plots) {
 
 /**
  * The Results step: a design is made, an invented results CSV (semicolons, decimal commas, BOM)
- * for its plots is loaded, and the stratified mean, the CSV download, the charts, the map
+ * for its plots is loaded, and the stratified mean, its return after a reload, the CSV download, the charts, the map
  * colouring, next season's "Use in design" and a recapture grid are checked.
  */
 export const RESULTS_SCENARIO = {
@@ -65,6 +65,34 @@ export const RESULTS_SCENARIO = {
     check(await page.getByRole('img', { name: 'Mean cover_pct by stratum with 95 % intervals' }).isVisible(), 'means chart has no accessible name');
     check(await page.getByRole('img', { name: 'Share of plots against share of area, by stratum' }).isVisible(), 'share chart has no accessible name');
     await shot('results-estimate');
+
+    // The browser copy keeps the Results step: after a reload the same file, mapping and estimate are back.
+    const shownText = await page.locator('td[data-cell="mean"]').textContent();
+    // Reload only once the browser copy (IndexedDB, idb-keyval's default store) holds the results.
+    const storedResults = () =>
+      page.evaluate(
+        () =>
+          new Promise((resolve) => {
+            const open = indexedDB.open('keyval-store');
+            open.onsuccess = () => {
+              const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
+              req.onsuccess = () => {
+                open.result.close();
+                resolve(typeof req.result === 'string' && req.result.includes('"results"') && req.result.includes('cover_pct'));
+              };
+              req.onerror = () => resolve(false);
+            };
+            open.onerror = () => resolve(false);
+          }),
+      );
+    for (let i = 0; i < 40 && !(await storedResults()); i++) await sleep(250);
+    check(await storedResults(), 'the results never reached the browser copy');
+    await page.reload();
+    await page.waitForFunction(() => window.__stratplotMap?.isStyleLoaded() && document.querySelector('table.ledger[data-measured="yes"]'), null, { timeout: 30_000 });
+    await page.getByRole('button', { name: /5\s*Results/ }).click();
+    await page.waitForSelector('table[aria-label="Estimate of cover_pct by stratum"]', { timeout: 10_000 });
+    const again = await page.locator('td[data-cell="mean"]').textContent();
+    check(again === shownText, `after a reload the mean shows ${again}, before it showed ${shownText}`);
 
     const download = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Download estimate (CSV)' }).click();
