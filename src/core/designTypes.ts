@@ -136,6 +136,7 @@ export interface RecaptureGridSaved {
   caught: string;
   recaptured: string;
   stripM: string;
+  /** How the grid's extent is given: its area, or stations in rows and columns. */
   by: 'stations' | 'area';
   areaHa: string;
   spacingM: string;

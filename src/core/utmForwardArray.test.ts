@@ -1,20 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { UTM_CROSS_CHECK } from './fixtures/utmCrossCheck';
 import { localFrameAt } from './localFrame';
 import { utmForwardArray } from './utmForwardArray';
 
-// WGS84 cross-check set from ../shared/REFERENCES.md §2 (proj4 2.22, an independent Krüger series
-// and GeographicLib GeoConvert agree to 1 mm).
-const CASES = [
-  [-33.8688, 151.2093, '56S', 334368.634, 6250948.345],
-  [-33.9249, 18.4241, '34S', 261881.599, 6243182.355],
-  [40.5, -73.5, '18N', 627103.087, 4484335.402],
-  [60.0, 5.0, '32N', 276979.926, 6658157.202],
-  [78.2, 15.6, '33N', 513696.945, 8680760.053],
-  [-1.2921, 36.8219, '37S', 257634.502, 9857079.966],
-  [51.5, -0.1, '30N', 701277.665, 5709417.125],
-  [45, 5.9999, '31N', 736438.145, 4987329.213],
-] as const;
+// WGS84 cross-check set (REFERENCES.md §2: proj4, a Krüger series and GeoConvert agree to 1 mm).
+const CASES = UTM_CROSS_CHECK;
 
 describe('utmForwardArray', () => {
   it.each(CASES)('puts %f, %f (zone %s) within 1 mm of the published easting and northing', (lat, lon, _zone, e, n) => {

@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection } from '../core/designTypes';
+import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core/designTypes';
 import { type EstimateReport, estimateFromResults } from '../core/estimateFromResults';
 import { isInputError } from '../core/InputError';
 import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/nextSeasonSampleSize';
@@ -17,21 +17,8 @@ export interface ResultsMapping {
   kinds: Record<string, ResultKind>;
 }
 
-/** A recapture grid as typed in the form (text, so half-typed numbers stay as they are). */
-export interface RecaptureGridForm {
-  id: string;
-  name: string;
-  marked: string;
-  caught: string;
-  recaptured: string;
-  stripM: string;
-  /** How the grid's extent is given: its area, or stations in rows and columns. */
-  by: 'stations' | 'area';
-  areaHa: string;
-  spacingM: string;
-  rows: string;
-  cols: string;
-}
+/** A recapture grid as typed in the form: the same record the plan file keeps. */
+export type RecaptureGridForm = RecaptureGridSaved;
 
 /** Plot colours for the map: one colour per measured plot and the value range of the ramp. */
 export interface ResultsColouring {

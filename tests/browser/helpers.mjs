@@ -62,3 +62,32 @@ export async function mappedHaOf(page, name) {
 export function check(ok, message) {
   if (!ok) throw new Error(message);
 }
+
+/**
+ * Waits until the planner's browser copy (IndexedDB, idb-keyval's default store) holds a saved
+ * plan containing every string in `needles`; returns false if it never does within ~10 s.
+ */
+export async function browserCopyWait(page, needles) {
+  const stored = () =>
+    page.evaluate(
+      (want) =>
+        new Promise((resolve) => {
+          const open = indexedDB.open('keyval-store');
+          open.onsuccess = () => {
+            const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
+            req.onsuccess = () => {
+              open.result.close();
+              resolve(typeof req.result === 'string' && want.every((w) => req.result.includes(w)));
+            };
+            req.onerror = () => resolve(false);
+          };
+          open.onerror = () => resolve(false);
+        }),
+      needles,
+    );
+  for (let i = 0; i < 40; i++) {
+    if (await stored()) return true;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return stored();
+}

@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { check, mapIdle, openPlanner, sourceData } from './helpers.mjs';
+import { browserCopyWait, check, mapIdle, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
@@ -68,25 +68,8 @@ export const RESULTS_SCENARIO = {
 
     // The browser copy keeps the Results step: after a reload the same file, mapping and estimate are back.
     const shownText = await page.locator('td[data-cell="mean"]').textContent();
-    // Reload only once the browser copy (IndexedDB, idb-keyval's default store) holds the results.
-    const storedResults = () =>
-      page.evaluate(
-        () =>
-          new Promise((resolve) => {
-            const open = indexedDB.open('keyval-store');
-            open.onsuccess = () => {
-              const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
-              req.onsuccess = () => {
-                open.result.close();
-                resolve(typeof req.result === 'string' && req.result.includes('"results"') && req.result.includes('cover_pct'));
-              };
-              req.onerror = () => resolve(false);
-            };
-            open.onerror = () => resolve(false);
-          }),
-      );
-    for (let i = 0; i < 40 && !(await storedResults()); i++) await sleep(250);
-    check(await storedResults(), 'the results never reached the browser copy');
+    // Reload only once the browser copy (IndexedDB) holds the results.
+    check(await browserCopyWait(page, ['"results"', 'cover_pct']), 'the results never reached the browser copy');
     await page.reload();
     await page.waitForFunction(() => window.__stratplotMap?.isStyleLoaded() && document.querySelector('table.ledger[data-measured="yes"]'), null, { timeout: 30_000 });
     await page.getByRole('button', { name: /5\s*Results/ }).click();

@@ -1,7 +1,7 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
-import { check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
+import { browserCopyWait, check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
@@ -267,25 +267,8 @@ export const SCENARIOS = [
       await page.waitForFunction(() => document.querySelector('.legend')?.textContent?.includes('Restored stratum'), null, { timeout: 5000 }).catch(async () => {
         throw new Error(`rename not applied; notice: ${await page.locator('.notice').textContent()}; tool: ${await page.locator('.tool-on').count()}`);
       });
-      // Wait until the browser copy (IndexedDB, idb-keyval's default store) holds the rename.
-      const storedRename = () =>
-        page.evaluate(
-          () =>
-            new Promise((resolve) => {
-              const open = indexedDB.open('keyval-store');
-              open.onsuccess = () => {
-                const req = open.result.transaction('keyval').objectStore('keyval').get('stratplot:working-plan');
-                req.onsuccess = () => {
-                  open.result.close();
-                  resolve(typeof req.result === 'string' && req.result.includes('Restored stratum'));
-                };
-                req.onerror = () => resolve(false);
-              };
-              open.onerror = () => resolve(false);
-            }),
-        );
-      for (let i = 0; i < 40 && !(await storedRename()); i++) await sleep(250);
-      check(await storedRename(), 'the rename never reached the browser copy');
+      // Wait until the browser copy (IndexedDB) holds the rename.
+      check(await browserCopyWait(page, ['Restored stratum']), 'the rename never reached the browser copy');
       await page.reload();
       await openPlanner(page, origin);
       const rows = await page.locator('table.ledger tbody tr[data-stratum]').count();
