@@ -11,9 +11,11 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const shots = join(root, 'test-artifacts', 'browser');
 mkdirSync(shots, { recursive: true });
 
-const ORIGIN = 'http://127.0.0.1:4173';
+// BROWSER_PORT lets several checkouts run their browser tests side by side.
+const PORT = Number(process.env.BROWSER_PORT ?? 4173);
+const ORIGIN = `http://127.0.0.1:${PORT}`;
 const { preview } = await import('vite');
-const server = await preview({ root, preview: { host: '127.0.0.1', port: 4173, strictPort: true }, logLevel: 'warn' });
+const server = await preview({ root, preview: { host: '127.0.0.1', port: PORT, strictPort: true }, logLevel: 'warn' });
 let browser;
 let passed = 0;
 let failed = 0;
