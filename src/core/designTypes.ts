@@ -1,6 +1,6 @@
 import type { FeatureCollection, Point } from 'geojson';
 import type { ResultKind } from './resultsCellParse';
-import type { ExclusionKind, Site } from './types';
+import type { ExclusionKind, Site, StratumPart } from './types';
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
 export type Footprint =
@@ -169,13 +169,21 @@ export interface PlanStratum {
   colour: string;
 }
 
+/** A mapped stratum feature as the plan file spells it: it names its stratum by id. */
+export interface PlanPart {
+  id: string;
+  stratum_id: string;
+  geometry: StratumPart['geometry'];
+  properties?: Record<string, unknown>;
+}
+
 /**
- * The plan file as written (version 2): the held plan with strata spelled as {@link PlanStratum}
- * (parts refer to the stratum `id`) and the result named as a plot file is, each plot and
- * allocation row also carrying its `stratum_id`. Design settings keyed by stratum use the id.
+ * The plan file as written (version 2): the held plan with strata spelled as {@link PlanStratum},
+ * parts as {@link PlanPart}, and the result named as a plot file is, each plot and allocation row
+ * also carrying its `stratum_id`. Design settings keyed by stratum (pilot SDs, costs) use the id.
  */
 export interface PlanFileDocument extends Omit<PlanFile, 'site'> {
-  site: Omit<Site, 'strata'> & { strata: PlanStratum[] };
+  site: Omit<Site, 'strata' | 'parts'> & { strata: PlanStratum[]; parts: PlanPart[] };
 }
 
 /** A recapture grid as the planner typed it: every number kept as text, half-typed ones too. */

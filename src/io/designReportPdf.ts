@@ -196,7 +196,8 @@ function drawCautionBox(pg: PdfPage, x: number, y: number, w: number, h: number)
   doc.text('Caution', x + 3, y + 6);
   doc.setFont(pg.font, 'normal');
   doc.setFontSize(8);
-  const lines: string[] = doc.splitTextToSize(FIELD_CAUTION.replace(/^Caution:\s*/, ''), w - 6);
+  const body = FIELD_CAUTION.replace(/^Caution:\s*/, '');
+  const lines: string[] = doc.splitTextToSize(body.charAt(0).toUpperCase() + body.slice(1), w - 6);
   lines.forEach((l, i) => {
     doc.text(l, x + 3, y + 11 + i * 3.6);
   });

@@ -1,7 +1,7 @@
 import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/designTypes';
 import { InputError } from '../core/InputError';
 import { plotCollectionById, plotCollectionNamed } from '../core/plotCollectionNamed';
-import type { Site, StratumInfo } from '../core/types';
+import type { Site, StratumInfo, StratumPart } from '../core/types';
 import { planFileMigrateV1 } from './planFileMigrate';
 import type { PlannerState, PlannerStore } from './plannerStore';
 import { plannerPlotsNamed } from './plotsNamed';
@@ -20,12 +20,16 @@ export function planFileOf(site: Site, design: DesignSettings): PlanFile {
  * @param results the Results step's work; left out of the file when absent or empty
  */
 export function planFileFromState(state: PlannerState, savedAt: string, results?: ResultsSnapshot | null): PlanFileDocument {
-  const { strata, ...site } = state.site;
+  const { strata, parts, ...site } = state.site;
   const plan: PlanFileDocument = {
     format: 'stratplot-plan',
     version: PLAN_FILE_VERSION,
     savedAt,
-    site: { ...site, strata: strata.map((s) => ({ id: s.key, name: s.label, code: s.code, colour: s.colour })) },
+    site: {
+      ...site,
+      strata: strata.map((s) => ({ id: s.key, name: s.label, code: s.code, colour: s.colour })),
+      parts: parts.map(({ stratum, ...p }) => ({ id: p.id, stratum_id: stratum, geometry: p.geometry, ...(p.properties ? { properties: p.properties } : {}) })),
+    },
     design: state.design,
     result: state.result ? plotCollectionNamed(state.result, strata, { ids: true }) : null,
   };
@@ -51,14 +55,17 @@ function siteCheck(site: unknown, fileName: string): Site {
   for (const key of ['strata', 'parts', 'exclusions', 'access'] as const) {
     if (!Array.isArray(site[key])) throw new InputError(`${fileName}: site.${key} must be a list`);
   }
-  (site.parts as unknown[]).forEach((p, i) => {
-    if (!isObject(p) || typeof p.stratum !== 'string' || !isObject(p.geometry)) {
-      throw new InputError(`${fileName}: site.parts[${i}] needs a stratum name and a geometry`);
+  const parts = (site.parts as unknown[]).map((p, i): StratumPart => {
+    if (!isObject(p) || typeof p.stratum_id !== 'string' || !isObject(p.geometry)) {
+      throw new InputError(`${fileName}: site.parts[${i}] needs a stratum_id and a geometry`);
     }
     const type = (p.geometry as { type?: unknown }).type;
     if (type !== 'Polygon' && type !== 'MultiPolygon') throw new InputError(`${fileName}: site.parts[${i}] geometry is ${String(type)}, not a polygon`);
+    const part: StratumPart = { id: String(p.id ?? ''), stratum: p.stratum_id, geometry: p.geometry as unknown as StratumPart['geometry'] };
+    if (isObject(p.properties)) part.properties = p.properties;
+    return part;
   });
-  return { ...(site as unknown as Site), strata: strataRead(site.strata as unknown[], fileName) };
+  return { ...(site as unknown as Site), strata: strataRead(site.strata as unknown[], fileName), parts };
 }
 
 /**

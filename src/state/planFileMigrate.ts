@@ -10,7 +10,7 @@ function isObject(v: unknown): v is Record<string, unknown> {
 /**
  * Plan-file JSON of version 1 (strata as key/label, field decisions kept twice: a `rejections`
  * list beside the plots' statuses) brought to version 2: strata as { id, name, code, colour },
- * the result named as a plot file with `stratum_id` on every plot and allocation row, and each
+ * parts naming their stratum by `stratum_id`, the result named as a plot file with `stratum_id` on every plot and allocation row, and each
  * rejection's time written onto its plot (`rejected_at`) so the plots' field state is the one
  * record; where the list knew a decision the plots did not, the plots take it. Pure; returns
  * new objects. Throws InputError naming the file for a list or plot collection of the wrong shape.
@@ -49,11 +49,17 @@ export function planFileMigrateV1(data: Record<string, unknown>, fileName: strin
     });
     result = plotCollectionNamed({ ...plots, features }, infos, { ids: true });
   }
+  const partsIn = Array.isArray(site.parts) ? site.parts : [];
+  const parts = partsIn.map((p, i) => {
+    if (!isObject(p) || typeof p.stratum !== 'string') throw new InputError(`${fileName}: site.parts[${i}] needs a stratum name and a geometry`);
+    const { stratum, ...rest } = p;
+    return { ...rest, stratum_id: stratum };
+  });
   const { rejections: _dropped, ...rest } = data;
   return {
     ...rest,
     version: PLAN_FILE_VERSION,
-    site: { ...site, strata: infos.map((s) => ({ id: s.key, name: s.label, code: s.code, colour: s.colour })) },
+    site: { ...site, strata: infos.map((s) => ({ id: s.key, name: s.label, code: s.code, colour: s.colour })), parts },
     result,
   };
 }
