@@ -1,4 +1,5 @@
 import type { AllocationRow, PlotCollection, PlotProperties } from './designTypes';
+import { stratumNamesQuoted } from './stratumNamesInText';
 import type { StratumInfo } from './types';
 
 /** A stratum id and its current name and code. */
@@ -19,9 +20,7 @@ function stratumFinder(strata: readonly StratumInfo[]): (stratum: string, code?:
   };
 }
 
-function renameQuoted(text: string, names: ReadonlyMap<string, string>): string {
-  return text.replace(/"([^"]*)"/g, (whole, inner: string) => (names.has(inner) ? `"${names.get(inner)}"` : whole));
-}
+const renameQuoted = stratumNamesQuoted;
 
 function renameKeys(record: Record<string, number>, names: ReadonlyMap<string, string>): Record<string, number> {
   return Object.fromEntries(Object.entries(record ?? {}).map(([k, v]) => [names.get(k) ?? k, v]));
