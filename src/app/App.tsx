@@ -22,7 +22,7 @@ export function App() {
     strata: usePlanner((s) => s.site.parts.length > 0),
     exclusions: usePlanner((s) => s.site.exclusions.length > 0),
     design: usePlanner((s) => s.result !== null),
-    plots: usePlanner((s) => s.rejections.length > 0),
+    plots: usePlanner((s) => s.result?.features.some((f) => f.properties.status === 'rejected') ?? false),
   };
   return (
     <div className="planner">

@@ -1,6 +1,6 @@
 import { useId, useState } from 'react';
 import type { PlanFile } from '../core/designTypes';
-import { planFileApply, planFileFromState, planFileParse, planHasUnsavedWork } from '../state/planFile';
+import { planFileApply, planFileFromState, planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
 import { resultsSnapshotTake } from '../state/resultsSnapshot';
 import { ConfirmDialog } from './ConfirmDialog';
 import { demoDesign, demoSiteLoad } from './demoSite';
@@ -44,7 +44,7 @@ export function FileBar() {
 
   const demo = async () => {
     const { site, baseline } = await demoSiteLoad();
-    offer({ format: 'stratplot-plan', version: 1, savedAt: '', site, design: demoDesign(baseline), result: null, rejections: [] }, 'The invented demo site');
+    offer(planFileOf(site, demoDesign(baseline)), 'The invented demo site');
   };
 
   return (

@@ -1,5 +1,6 @@
 import { useEffect, useState } from 'react';
 import { type LocalFrame, localFrameAt } from '../core/localFrame';
+import { stratumNamesInText } from '../core/stratumNamesInText';
 import { mapWhenReady } from './map/mapHandle';
 import { plannerStore } from './plannerStoreInstance';
 import { usePlanner } from './usePlanner';
@@ -19,6 +20,7 @@ function utmText(lon: number, lat: number): string {
 export function StatusLine() {
   const [cursor, setCursor] = useState<string>('Move the pointer over the map for coordinates');
   const notice = usePlanner((s) => s.notice);
+  const strata = usePlanner((s) => s.site.strata);
   useEffect(
     () =>
       mapWhenReady((map) => {
@@ -38,7 +40,7 @@ export function StatusLine() {
         {notice ? (
           <>
             {notice.tone === 'error' ? <strong>Problem: </strong> : null}
-            {notice.text}
+            {stratumNamesInText(notice.text, strata)}
             <button type="button" className="link" aria-label="Dismiss message" onClick={() => plannerStore.setState({ notice: null })}>
               dismiss
             </button>

@@ -1,6 +1,6 @@
 import { get, set } from 'idb-keyval';
 import { autosaveRestore, autosaveStart } from '../state/autosave';
-import { planFileApply } from '../state/planFile';
+import { planFileApply, planFileOf } from '../state/planFile';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { plannerStore } from './plannerStoreInstance';
 import { resultsStore } from './results/resultsStoreInstance';
@@ -18,7 +18,7 @@ export async function bootPlanner(): Promise<void> {
   if (!restored) {
     const { site, baseline } = await demoSiteLoad();
     const design = demoDesign(baseline);
-    planFileApply(plannerStore, { format: 'stratplot-plan', version: 1, savedAt: '', site, design, result: null, rejections: [] }, design, true);
+    planFileApply(plannerStore, planFileOf(site, design), design, true);
   } else {
     plannerStore.setState({ notice: { tone: 'info', text: 'Your work was restored from this browser’s copy.' } });
   }

@@ -4,6 +4,8 @@ import { estimateCommand } from './commands/estimate';
 import { exportCommand } from './commands/export';
 import { planCommand } from './commands/plan';
 import { recaptureCommand } from './commands/recapture';
+import { rejectCommand } from './commands/reject';
+import { restoreCommand } from './commands/restore';
 import { trapsCommand } from './commands/traps';
 
 /** Every `stratplot` command by name; each lives in its own file under ./commands/. */
@@ -13,5 +15,7 @@ export const COMMANDS: Record<string, Command> = {
   export: exportCommand,
   plan: planCommand,
   recapture: recaptureCommand,
+  reject: rejectCommand,
+  restore: restoreCommand,
   traps: trapsCommand,
 };

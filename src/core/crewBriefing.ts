@@ -30,6 +30,8 @@ export interface CrewBriefingOptions {
   thresholds?: Partial<SafetyThresholds>;
   /** Declination text for the compass section, e.g. "11.6° E (WMM-2025, 2026.20)". */
   declinationText?: string;
+  /** Field decisions already recorded (see plotRejectionLines): printed first, as plots not to visit. */
+  fieldDecisions?: readonly string[];
 }
 
 /** The statement printed on every briefing (our wording). */
@@ -39,15 +41,21 @@ export const BRIEFING_GOVERNING_STATEMENT =
   'differ from anything printed here, follow them.';
 
 /**
- * Crew briefing for a site: usual cautions for cliffs and water, remote and lone work, weather and
- * tides, communication, the kinds of excluded ground mapped, blanks for emergency contacts and
- * check-in time, and the governing statement.
+ * Crew briefing for a site: the rejected plots not to visit (when given), usual cautions for
+ * cliffs and water, remote and lone work, weather and tides, communication, the kinds of excluded
+ * ground mapped, blanks for emergency contacts and check-in time, and the governing statement.
  * Cautions are common practice, no source; they defer to local codes and the employer's safety plan.
  */
 export function crewBriefing(site: Pick<Site, 'name' | 'exclusions' | 'access'>, options: CrewBriefingOptions = {}): CrewBriefing {
   const t = { ...DEFAULT_SAFETY_THRESHOLDS, ...options.thresholds };
   const kinds = [...new Set(site.exclusions.map((e) => e.kind))] as ExclusionKind[];
   const sections: BriefingSection[] = [];
+  if (options.fieldDecisions?.length) {
+    sections.push({
+      heading: 'Rejected plots: do not visit',
+      lines: [...options.fieldDecisions, 'Visit the promoted reserves in their place; they are marked on the map and in their plot blocks.'],
+    });
+  }
   sections.push({
     heading: 'Before you leave',
     lines: [

@@ -1,6 +1,6 @@
 import type { FeatureCollection, Point } from 'geojson';
 import type { ResultKind } from './resultsCellParse';
-import type { ExclusionKind, Site } from './types';
+import type { ExclusionKind, Site, StratumPart } from './types';
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
 export type Footprint =
@@ -57,10 +57,25 @@ export interface AllocationRow {
 
 export type PlotRole = 'primary' | 'reserve';
 
+/**
+ * A plot's stored field status: as designed, rejected by the crew, or a reserve promoted in a
+ * rejected plot's place. With `reject_reason`, `rejected_at` and `replaces` it is the plot's
+ * field state, the one record every screen and file reads (through `plotFieldState`).
+ */
+export type PlotStatus = 'planned' | 'rejected' | 'promoted';
+
 /** Properties of one plot, as written to plot files (snake_case is the file format). */
 export interface PlotProperties {
   plot_id: string;
+  /**
+   * The plot's stratum: its stable id (`StratumInfo.key`) while the planner holds the design, its
+   * current name in every file written (see `plotCollectionNamed`).
+   */
   stratum: string;
+  /** The stratum's current code, in files written. */
+  stratum_code?: string;
+  /** The stratum's stable id, in plan files only (where `stratum` carries the name). */
+  stratum_id?: string;
   role: PlotRole;
   rank: number;
   lon: number;
@@ -75,10 +90,18 @@ export interface PlotProperties {
   /** Transect designs only. */
   transect?: number;
   chainage_m?: number;
-  /** Field status, set after a crew reports back. */
-  status?: 'planned' | 'rejected' | 'promoted';
+  /**
+   * In files written: the field state as a symbol key (primary, reserve, promoted, rejected) and
+   * as a sentence for the crew. Worked out from the fields below on every write, never read back.
+   */
+  field_state?: 'primary' | 'reserve' | 'promoted' | 'rejected';
+  field_note?: string;
+  /** Field state (see {@link PlotStatus}): set when a crew reports back. */
+  status?: PlotStatus;
   reject_reason?: string;
-  /** The plot id a promoted reserve replaces. */
+  /** When the plot was rejected, ISO 8601 (absent in files written before it was recorded). */
+  rejected_at?: string;
+  /** The plot id a promoted reserve replaces (kept when that reserve is itself rejected). */
   replaces?: string;
   notes?: string;
   /** Navigation added for field kits: the access point measured from, geodesic distance, bearings. */
@@ -106,26 +129,61 @@ export interface DesignSummary {
 /** A plot file: GeoJSON points plus the design that made them. */
 export type PlotCollection = FeatureCollection<Point, PlotProperties> & { design: DesignSummary };
 
-/** Field decisions kept in the plan: plots a crew could not reach and what replaced them. */
+/**
+ * A field decision as read from the plots' field state (never stored on its own): a plot a crew
+ * could not sample and what replaced it.
+ */
 export interface FieldRejection {
   plot_id: string;
   reason: string;
   /** Reserve promoted in its place, or null when the stratum had none left. */
   replacement: string | null;
-  at: string;
+  /** ISO 8601, or null when the file did not record the time. */
+  at: string | null;
 }
 
-/** The plan file: everything needed to reproduce and continue a design. */
+/** The plan-file version this program writes; older versions are migrated on open (planFileMigrate). */
+export const PLAN_FILE_VERSION = 2;
+
+/**
+ * The plan as the planner holds it: everything needed to reproduce and continue a design. Field
+ * decisions live on the plots of `result` (their field state); see ARCHITECTURE.md for how the
+ * file spells it (stratum ids and names, plots named as in plot files).
+ */
 export interface PlanFile {
   format: 'stratplot-plan';
-  version: 1;
+  version: typeof PLAN_FILE_VERSION;
   savedAt: string;
   site: Site;
   design: DesignSettings;
   result: PlotCollection | null;
-  rejections: FieldRejection[];
   /** The Results step's work (absent in plans saved before it was kept, or with nothing entered). */
   results?: ResultsSnapshot;
+}
+
+/** A stratum as the plan file spells it: its stable id, current name, code and colour. */
+export interface PlanStratum {
+  id: string;
+  name: string;
+  code: string;
+  colour: string;
+}
+
+/** A mapped stratum feature as the plan file spells it: it names its stratum by id. */
+export interface PlanPart {
+  id: string;
+  stratum_id: string;
+  geometry: StratumPart['geometry'];
+  properties?: Record<string, unknown>;
+}
+
+/**
+ * The plan file as written (version 2): the held plan with strata spelled as {@link PlanStratum},
+ * parts as {@link PlanPart}, and the result named as a plot file is, each plot and allocation row
+ * also carrying its `stratum_id`. Design settings keyed by stratum (pilot SDs, costs) use the id.
+ */
+export interface PlanFileDocument extends Omit<PlanFile, 'site'> {
+  site: Omit<Site, 'strata' | 'parts'> & { strata: PlanStratum[]; parts: PlanPart[] };
 }
 
 /** A recapture grid as the planner typed it: every number kept as text, half-typed ones too. */

@@ -12,19 +12,22 @@ export interface RejectionOutcome {
 /**
  * Records that a crew could not sample primary plot `plotId` and promotes, in its place, the unused
  * reserve of the same stratum with the lowest rank — strictly in rank order, so the choice is never
- * the crew's. The rejected plot gets status 'rejected' and the reason; the reserve gets status
- * 'promoted' and `replaces`. A promoted reserve that is later rejected is replaced the same way.
+ * the crew's. The rejected plot gets status 'rejected', the reason and the time (`rejected_at`);
+ * the reserve gets status 'promoted' and `replaces`. A promoted reserve that is later rejected is
+ * replaced the same way (and keeps `replaces`, so a restore can give it back its place).
+ * {@link plotsRestore} undoes it exactly.
  * With no reserve left, `rejection.replacement` is null and the message says the stratum is short.
  * Pure: returns a new collection and leaves the given one as it was.
  * Source of the rule: replacement of non-response units by pre-ordered reserves taken in sequence
  * (common practice in probability field surveys, no single source).
  * @param atIso when the decision was made, ISO 8601
  * Throws InputError when the id is unknown, names a reserve that was never promoted, or a plot
- * already rejected, or the reason is empty.
+ * already rejected, or the reason is empty, or the time is not a date.
  */
 export function plotsRejectAndPromote(collection: PlotCollection, plotId: string, reason: string, atIso: string): RejectionOutcome {
   const why = reason.trim();
   if (!why) throw new InputError(`give a reason for rejecting plot ${plotId}`);
+  if (Number.isNaN(new Date(atIso).getTime())) throw new InputError(`the time of the rejection of plot ${plotId} is not a date: "${atIso}"`);
   const index = collection.features.findIndex((f) => f.properties.plot_id === plotId);
   if (index < 0) throw new InputError(`no plot "${plotId}" in this plot file`);
   const target = collection.features[index].properties;
@@ -39,7 +42,7 @@ export function plotsRejectAndPromote(collection: PlotCollection, plotId: string
     if (best < 0 || p.rank < collection.features[best].properties.rank) best = i;
   });
   const features = collection.features.map((f, i) => {
-    if (i === index) return { ...f, properties: { ...f.properties, status: 'rejected' as const, reject_reason: why } };
+    if (i === index) return { ...f, properties: { ...f.properties, status: 'rejected' as const, reject_reason: why, rejected_at: atIso } };
     if (i === best) return { ...f, properties: { ...f.properties, status: 'promoted' as const, replaces: plotId } };
     return f;
   });

@@ -1,4 +1,5 @@
 import type { PlotCollection, PlotProperties } from './designTypes';
+import { plotFieldStates } from './plotFieldState';
 import { type DecimalMark, type ResultKind, resultsCellNumber, resultsCellPresence } from './resultsCellParse';
 import type { Problem } from './types';
 
@@ -92,12 +93,12 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
   const replacedBy = new Map<string, string>();
   const measured = new Set<string>();
 
-  for (const f of plots.features) {
-    const p = f.properties;
-    if (p.status === 'rejected') rejected.add(p.plot_id);
-    if (p.status === 'promoted' && p.replaces) {
-      replacement.set(p.replaces, { by: p.plot_id, row: null });
-      replacedBy.set(p.plot_id, p.replaces);
+  // Decisions already recorded on the plots (the plan's field state) count as if the file gave them.
+  for (const [id, s] of plotFieldStates(plots.features.map((f) => f.properties))) {
+    if (s.key === 'rejected') rejected.add(id);
+    if (s.key === 'promoted') {
+      replacement.set(s.replaces, { by: id, row: null });
+      replacedBy.set(id, s.replaces);
     }
   }
 

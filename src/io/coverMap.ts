@@ -4,7 +4,8 @@ import { type LocalFrame, localFrameAt } from '../core/localFrame';
 import { siteLocalFrame } from '../core/siteLocalFrame';
 import type { Exclusion, LonLat, Site } from '../core/types';
 import { drawGridTicks, drawLegend, drawNorthArrow, drawScaleBar, niceStepM, type PageBox, trueNorthFromGridDeg } from './coverMapFurniture';
-import { drawBuffers, drawExclusion, fillGrey, haloText, strokeRing, type XYRing } from './coverMapSymbols';
+import { plotFieldStates } from '../core/plotFieldState';
+import { drawBuffers, drawExclusion, drawPlotSymbol, fillGrey, haloText, strokeRing, type XYRing } from './coverMapSymbols';
 
 export type { PageBox };
 
@@ -19,17 +20,18 @@ export interface CoverMapLayout {
   trueNorthDeg: number;
 }
 
-const LEGEND_H = 16;
+const LEGEND_H = 20;
 const TICK_MARGIN = 5;
 
 /**
  * Draws the site map into a PDF box with vector drawing, readable in black and white: strata
  * outlines with their codes, exclusions by line style and hatching (cliff hachures, water
  * horizontal hatch, private land diagonal hatch and dash-dot edge, hazard triangles), safety
- * buffers outlined in grey, primary plots filled and reserves open, each labelled, access points as squares,
+ * buffers outlined in grey, plots in the shared symbol code of their field state (primary,
+ * reserve, promoted, rejected struck through), each labelled, access points as squares,
  * a scale bar, a true-north arrow, UTM grid ticks at round metres, and a legend strip below.
  * Positions are projected to the site's UTM zone (north up = grid north).
- * @param box where to draw, mm; the legend strip takes the bottom 16 mm.
+ * @param box where to draw, mm; the legend strip takes the bottom 20 mm.
  * @param font family registered by pdfFontRegister.
  */
 export function coverMapDraw(
@@ -128,11 +130,13 @@ export function coverMapDraw(
 
   doc.setLineWidth(0.25);
   const placed: PageBox[] = [];
-  for (const { p, at } of plotXY) {
+  const states = plotFieldStates(plots.map((f) => f.properties));
+  // Rejected plots first, so an active plot nearby is never hidden under one.
+  const drawOrder = [...plotXY].sort((a, b) => Number(states.get(b.p.plot_id)?.key === 'rejected') - Number(states.get(a.p.plot_id)?.key === 'rejected'));
+  for (const { p, at } of drawOrder) {
     const [x, y] = [px(at[0]), py(at[1])];
-    fillGrey(doc, p.role === 'reserve' ? 255 : 0);
-    doc.circle(x, y, 0.85, 'FD');
-    placed.push({ x: x - 0.9, y: y - 0.9, w: 1.8, h: 1.8 });
+    drawPlotSymbol(doc, states.get(p.plot_id)?.key ?? (p.role === 'reserve' ? 'reserve' : 'primary'), x, y, 1.2);
+    placed.push({ x: x - 1.1, y: y - 1.1, w: 2.2, h: 2.2 });
   }
   doc.setFontSize(6.5);
   for (const { a, at } of accessXY) {

@@ -1,6 +1,8 @@
 import type { jsPDF } from 'jspdf';
 import type { LocalFrame } from '../core/localFrame';
-import { fillGrey, hatch } from './coverMapSymbols';
+import { PLOT_FIELD_STATE_KEYS } from '../core/plotFieldState';
+import { PLOT_SYMBOLS } from '../core/plotSymbols';
+import { drawPlotSymbol, fillGrey, hatch } from './coverMapSymbols';
 
 /** A rectangle on the page, millimetres from the top-left corner. */
 export interface PageBox {
@@ -114,9 +116,12 @@ export function drawLegend(doc: jsPDF, b: PageBox, font: string, frame: LocalFra
   const col = b.w / 4;
   const row = (i: number) => b.y + 3.5 + Math.floor(i / 4) * 4;
   const colX = (i: number) => b.x + (i % 4) * col;
+  const plotItems: [string, (x: number, y: number) => void][] = PLOT_FIELD_STATE_KEYS.map((k) => [
+    PLOT_SYMBOLS[k].short,
+    (x: number, y: number) => drawPlotSymbol(doc, k, x + 2, y - 0.8, 1.2),
+  ]);
   const items: [string, (x: number, y: number) => void][] = [
-    ['Primary plot', (x, y) => { fillGrey(doc, 0); doc.circle(x + 2, y - 0.8, 0.85, 'FD'); }],
-    ['Reserve plot (use in rank order)', (x, y) => { fillGrey(doc, 255); doc.circle(x + 2, y - 0.8, 0.85, 'FD'); }],
+    ...plotItems,
     ['Access point', (x, y) => { fillGrey(doc, 0); doc.rect(x + 0.9, y - 1.9, 2.2, 2.2, 'F'); }],
     ['Stratum boundary (code)', (x, y) => { doc.setLineWidth(0.35); doc.line(x, y - 0.8, x + 4, y - 0.8); }],
     ['Cliff edge (ticks)', (x, y) => { doc.setLineWidth(0.6); doc.line(x, y - 0.3, x + 4, y - 0.3); doc.setLineWidth(0.25); for (let t = 0.3; t < 4; t += 1.2) doc.line(x + t, y - 0.3, x + t, y - 1.5); }],
@@ -132,7 +137,7 @@ export function drawLegend(doc: jsPDF, b: PageBox, font: string, frame: LocalFra
   });
   doc.text(
     `Grid: UTM ${frame.utmZone} (EPSG:${frame.epsg}), WGS84, ticks every ${gridStepM} m. Arrow shows true north.`,
-    colX(9),
-    row(9),
+    colX(0),
+    row(Math.ceil(items.length / 4) * 4),
   );
 }

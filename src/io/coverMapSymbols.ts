@@ -1,4 +1,6 @@
 import type { jsPDF } from 'jspdf';
+import type { PlotFieldStateKey } from '../core/plotFieldState';
+import { PLOT_SYMBOL_MEASURES, PLOT_SYMBOLS } from '../core/plotSymbols';
 import type { Exclusion, LonLat } from '../core/types';
 
 /** A ring or path in page millimetres. */
@@ -161,4 +163,53 @@ export function hachures(doc: jsPDF, r: XYRing): void {
     }
     carry = t - len;
   }
+}
+
+function fillHex(doc: jsPDF, hex: string): void {
+  doc.setFillColor(Number.parseInt(hex.slice(1, 3), 16), Number.parseInt(hex.slice(3, 5), 16), Number.parseInt(hex.slice(5, 7), 16));
+}
+
+/**
+ * Draws a plot symbol of the shared code (core/plotSymbols) centred on (x, y) with radius `rMm`,
+ * with the measures the raster icons use: disc or diamond, solid or open, white centre dot or a
+ * cross for a rejected plot, and a white halo.
+ */
+export function drawPlotSymbol(doc: jsPDF, key: PlotFieldStateKey, x: number, y: number, rMm: number): void {
+  const s = PLOT_SYMBOLS[key];
+  const m = PLOT_SYMBOL_MEASURES;
+  const outer = (s.shape === 'disc' ? m.discR : m.diamondR) * rMm;
+  const shape = (size: number) => {
+    if (s.shape === 'disc') {
+      doc.circle(x, y, size, 'F');
+      return;
+    }
+    // A diamond whose sides are `size` from the centre: its corners are √2 times farther.
+    const c = size * Math.SQRT2;
+    doc.moveTo(x, y - c);
+    doc.lineTo(x + c, y);
+    doc.lineTo(x, y + c);
+    doc.lineTo(x - c, y);
+    doc.close();
+    doc.fill();
+  };
+  fillGrey(doc, 255);
+  shape(outer + m.haloW * rMm);
+  fillHex(doc, s.ink);
+  shape(outer);
+  if (s.solid) fillHex(doc, s.fill);
+  else fillGrey(doc, 255);
+  shape(outer - m.bandW * rMm);
+  if (s.centreDot) {
+    fillGrey(doc, 255);
+    doc.circle(x, y, m.dotR * rMm, 'F');
+  }
+  if (s.struck) {
+    const a = outer * 0.75 * Math.SQRT1_2;
+    doc.setDrawColor(Number.parseInt(s.ink.slice(1, 3), 16), Number.parseInt(s.ink.slice(3, 5), 16), Number.parseInt(s.ink.slice(5, 7), 16));
+    doc.setLineWidth(m.crossW * rMm);
+    doc.line(x - a, y - a, x + a, y + a);
+    doc.line(x - a, y + a, x + a, y - a);
+    doc.setDrawColor(0);
+  }
+  fillGrey(doc, 0);
 }

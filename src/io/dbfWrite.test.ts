@@ -1,12 +1,35 @@
 import { describe, expect, it } from 'vitest';
 import { dbfRead } from './dbfRead';
-import { dbfFieldNames, dbfWrite } from './dbfWrite';
+import { plotCollectionForField } from '../core/plotCollectionForField';
+import { plotCollectionNamed } from '../core/plotCollectionNamed';
+import { plotsAnnotate } from '../core/plotsAnnotate';
+import { plotsRejectAndPromote } from '../core/plotsRejectAndPromote';
+import { siteLayers } from './siteLayers';
+import { DBF_SHORT_NAMES, dbfFieldNames, dbfWrite } from './dbfWrite';
+import { fieldKitPlots, fieldKitSite } from './fixtures/fieldKitSample';
 
 describe('dbfWrite and dbfRead', () => {
   it('keeps field names within the 10-character dBASE limit, unique, with short names for plot fields', () => {
     const names = dbfFieldNames(['nearest_exclusion_m', 'nearest_exclusion_kind', 'very_long_name_one', 'very_long_name_two', 'plot_id', '2nd']);
     expect([...names.values()]).toEqual(['near_ex_m', 'near_ex_kd', 'very_long_', 'very_long2', 'plot_id', 'f2nd']);
     for (const n of names.values()) expect(n.length).toBeLessThanOrEqual(10);
+  });
+
+  it('gives every long property of our plot and site layers a deliberate short name, never a blind cut', () => {
+    const site = fieldKitSite();
+    const plots = fieldKitPlots(site);
+    const first = plots.features[0].properties.plot_id;
+    const rejected = plotsRejectAndPromote(plots, first, 'Under water', '2026-12-01T09:00:00Z').collection;
+    const field = plotCollectionForField(plotsAnnotate(plotCollectionNamed(rejected, site.strata), site, { surveyDate: new Date('2026-12-01T00:00:00Z') }));
+    const keys = new Set(siteLayers(field, site).flatMap((l) => l.features.features.flatMap((f) => Object.keys(f.properties ?? {}))));
+    const long = [...keys].filter((k) => k.length > 10);
+    expect(long.length).toBeGreaterThan(5);
+    for (const k of long) expect(DBF_SHORT_NAMES[k], k).toBeDefined();
+    const names = dbfFieldNames([...keys]);
+    expect([...names.values()]).not.toContain('access_poi');
+    expect([...names.values()]).not.toContain('declinatio');
+    expect(names.get('access_point')).toBe('access_pt');
+    expect(names.get('declination_deg')).toBe('decl_deg');
   });
 
   it('writes the dBASE III header layout: version 3, record count, header and record lengths', () => {

@@ -4,21 +4,31 @@ type Cell = string | number | boolean | null | undefined;
 
 const MAX_TEXT_BYTES = 254;
 
-/** Short names of our own for the long plot-file properties, readable in a GIS attribute table. */
-const SHORT_NAMES: Record<string, string> = {
+/**
+ * Short names of our own for every plot-file and site-layer property longer than the 10
+ * characters a dBASE field name holds, readable in a GIS attribute table; the shapefile zip's
+ * CAUTION.txt lists them with the full names.
+ */
+export const DBF_SHORT_NAMES: Readonly<Record<string, string>> = {
+  stratum_code: 'strat_code',
+  field_state: 'fld_state',
   nearest_exclusion_m: 'near_ex_m',
   nearest_exclusion_kind: 'near_ex_kd',
   design_density_per_ha: 'dens_ha',
+  access_point: 'access_pt',
   bearing_true_deg: 'brg_true',
   bearing_mag_deg: 'brg_mag',
+  declination_deg: 'decl_deg',
   reject_reason: 'rej_reason',
+  rejected_at: 'rej_at',
   exclusion_id: 'excl_id',
 };
 
 /**
  * DBF column names (≤ 10 bytes, ASCII letters, digits and _) for property keys, unique and
- * stable: known plot properties get our short names (nearest_exclusion_m → near_ex_m), other
- * long keys are cut to 10 characters, and clashes get a numeric tail ("field_name", "field_nam2").
+ * stable: our own long properties get the short names of {@link DBF_SHORT_NAMES}
+ * (nearest_exclusion_m → near_ex_m); long keys of the user's own data are cut to 10 characters,
+ * and clashes get a numeric tail ("field_name", "field_nam2").
  * dBASE III PLUS field names are limited to 10 characters.
  */
 export function dbfFieldNames(keys: string[]): Map<string, string> {
@@ -26,7 +36,7 @@ export function dbfFieldNames(keys: string[]): Map<string, string> {
   const used = new Set<string>();
   for (const key of keys) {
     if (out.has(key)) continue;
-    const base = SHORT_NAMES[key] ?? (key.replace(/[^A-Za-z0-9_]/g, '_').replace(/^([^A-Za-z])/, 'f$1').slice(0, 10) || 'field');
+    const base = DBF_SHORT_NAMES[key] ?? (key.replace(/[^A-Za-z0-9_]/g, '_').replace(/^([^A-Za-z])/, 'f$1').slice(0, 10) || 'field');
     let name = base;
     for (let i = 2; used.has(name.toLowerCase()); i++) name = base.slice(0, 10 - String(i).length) + i;
     used.add(name.toLowerCase());

@@ -5,6 +5,9 @@ import { join } from 'node:path';
 import type { Feature, FeatureCollection } from 'geojson';
 import { GPX_XSD } from '../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
+import { FIELD_CAUTION } from '../core/fieldCaution';
+import { plotCollectionForField } from '../core/plotCollectionForField';
+import { plotCollectionNamed } from '../core/plotCollectionNamed';
 import type { Site } from '../core/types';
 import { designOutputBytes } from './designOutput';
 import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samplePlots, withoutNulls } from './fixtures/ioSamples';
@@ -48,8 +51,10 @@ const PLOT_LAYER: Record<string, string | undefined> = { zip: 'plots', kml: 'plo
 describe('designOutputBytes', () => {
   for (const ext of ['geojson', 'json', 'gpx', 'kml', 'kmz', 'csv', 'zip', 'gpkg']) {
     it(`writes .${ext} that parseFeatureFile reads back with the same plots`, async () => {
-      const plots = samplePlots();
-      const bytes = await designOutputBytes(`out.${ext}`, plots, sampleSite());
+      const site = sampleSite();
+      const bytes = await designOutputBytes(`out.${ext}`, samplePlots(), site);
+      // What every file carries: strata by current name and code, and each plot's field state spelled out.
+      const plots = plotCollectionForField(plotCollectionNamed(samplePlots(), site.strata));
       const back = await parseFeatureFile(`out.${ext}`, bytes, { layer: PLOT_LAYER[ext] });
       const read = back.features.filter((f) => typeof f.properties?.plot_id === 'string');
       expect(read).toHaveLength(plots.features.length);
@@ -58,6 +63,7 @@ describe('designOutputBytes', () => {
         const original = plots.features[i];
         expect(positionGapDeg(f, original)).toBeLessThanOrEqual(1e-7);
         const want = withoutNulls(original.properties as unknown as Record<string, unknown>);
+        if (ext === 'csv') want.caution = FIELD_CAUTION;
         const got = withoutNulls(f.properties);
         if (ext === 'zip') {
           // Shapefile field names are cut to 10 characters (dBASE limit).
@@ -81,12 +87,12 @@ describe('designOutputBytes', () => {
     }
   });
 
-  it('carries the safety note in the GPX metadata and the KML document', async () => {
+  it('carries the safety caution in the GPX metadata and the KML document', async () => {
     const gpx = new TextDecoder().decode(await designOutputBytes('out.gpx', samplePlots(), sampleSite()));
-    expect(gpx).toContain('<desc>Plot positions are a plan, not a guarantee of safe ground.');
+    expect(gpx).toContain(`<metadata><name>Invented test site</name><desc>${FIELD_CAUTION.replace(/'/g, '&apos;')}</desc></metadata>`);
     expect(xmllint(gpx)).toBe('valid');
     const kml = new TextDecoder().decode(await designOutputBytes('out.kml', samplePlots(), sampleSite()));
-    expect(kml).toContain('<description>Plot positions are a plan, not a guarantee of safe ground.');
+    expect(kml).toContain(`<description>${FIELD_CAUTION.replace(/'/g, '&apos;')}</description>`);
   });
 
   it('labels GPX waypoints of access points and tracks of exclusions for the crew', async () => {

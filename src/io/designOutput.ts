@@ -2,7 +2,11 @@ import type { Feature, FeatureCollection } from 'geojson';
 import { zipSync } from 'fflate';
 import type { SqlJsStatic } from 'sql.js';
 import type { PlotCollection, PlotProperties } from '../core/designTypes';
+import { FIELD_CAUTION } from '../core/fieldCaution';
 import { InputError, isInputError } from '../core/InputError';
+import { plotCollectionForField } from '../core/plotCollectionForField';
+import { plotCollectionNamed } from '../core/plotCollectionNamed';
+import { plotRejectionLines } from '../core/plotFieldState';
 import { type PlotsAnnotateOptions, plotsAnnotate } from '../core/plotsAnnotate';
 import type { Site } from '../core/types';
 import { designReportPdf } from './designReportPdf';
@@ -13,13 +17,9 @@ import { featuresToKml, featuresToKmz } from './featuresToKml';
 import { featuresToShapefileFiles } from './featuresToShapefileZip';
 import { fieldSheetsPdf } from './fieldSheetsPdf';
 import { plotsToCsv } from './plotsToCsv';
+import { isRejectedPlot, navigationDescription, plotGpxLabels } from './plotsToGpx';
+import { shapefileCautionText } from './shapefileCautionText';
 import { siteLayers } from './siteLayers';
-
-/** Caution carried in the GPX and KML files crews load on their devices (our wording). */
-export const FIELD_SAFETY_NOTE =
-  'Plot positions are a plan, not a guarantee of safe ground. Mapped buffers around cliffs, water and ' +
-  'hazards are a planning aid: follow local codes, the landholder\'s permission and your employer\'s ' +
-  'safety plan, and skip any plot that is unsafe on the day (use the next reserve in rank order).';
 
 /** File extensions {@link designOutputBytes} writes, with what each holds. */
 export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
@@ -61,18 +61,24 @@ function isAnnotated(collection: PlotCollection): boolean {
 
 function gpxLabels(f: Feature, index: number): GpxLabels {
   const p = (f.properties ?? {}) as Record<string, unknown>;
-  if (typeof p.plot_id === 'string' && (p.role === 'primary' || p.role === 'reserve')) {
-    const plot = p as unknown as PlotProperties;
-    const role = `${plot.role} ${plot.rank}`;
-    return { name: plot.plot_id, desc: plot.stratum, type: plot.role, cmt: plot.notes ? `${role}: ${plot.notes}` : role };
-  }
+  if (typeof p.plot_id === 'string' && (p.role === 'primary' || p.role === 'reserve')) return plotGpxLabels(p as unknown as PlotProperties);
   const text = (v: unknown) => (v === null || v === undefined || v === '' ? undefined : String(v));
   if (typeof p.access_id === 'string') return { name: String(p.name), desc: `access: ${p.kind}`, type: 'access', cmt: text(p.notes) };
   if (typeof p.exclusion_id === 'string') {
     return { name: text(p.name) ?? `${p.kind} ${p.exclusion_id}`, desc: `keep out: ${p.kind}, buffer ${p.buffer_m} m`, type: `exclusion-${p.kind}`, cmt: text(p.notes) };
   }
-  if (typeof p.part_id === 'string') return { name: String(p.label ?? p.stratum), desc: `stratum ${p.stratum}`, type: 'stratum' };
+  if (typeof p.part_id === 'string') return { name: String(p.stratum), desc: `stratum ${p.stratum}${p.code ? ` (${p.code})` : ''}`, type: 'stratum' };
   return { name: `feature ${index + 1}` };
+}
+
+function kmlDescription(collection: PlotCollection): string {
+  const lines = plotRejectionLines(collection);
+  return lines.length ? `${FIELD_CAUTION} Rejected plots (struck out on the map, do not visit): ${lines.join(' ')}` : FIELD_CAUTION;
+}
+
+function gpkgDescription(collection: PlotCollection): string {
+  const lines = plotRejectionLines(collection);
+  return lines.length ? `${FIELD_CAUTION} Field decisions: ${lines.join(' ')}` : FIELD_CAUTION;
 }
 
 function extensionOf(fileName: string): string {
@@ -85,6 +91,11 @@ function extensionOf(fileName: string): string {
  * {@link DESIGN_OUTPUT_FORMATS}). Plots always; with a site, also strata, exclusions (with their
  * buffers and notes) and access points in the formats that hold several layers (GPX, KML, KMZ,
  * shapefile zip, GeoPackage, PDF). GeoJSON and CSV hold the plot list only.
+ * Every file follows the plan: strata by their current names and codes (from the site, when
+ * given), every plot by its field state (`field_state`, `field_note`; rejected plots are left out
+ * of GPX and struck out elsewhere, with their reasons), and the safety caution (GPX and KML
+ * descriptions, a CSV column, a text file in the shapefile zip, the GeoPackage contents
+ * description, every PDF).
  * Throws InputError for an unsupported extension (listing the supported ones) and whatever the
  * chosen writer throws (e.g. a PDF of an empty plot list).
  */
@@ -104,11 +115,13 @@ export async function designOutputBytes(
 
 async function designOutputUnchecked(fileName: string, plots: PlotCollection, site: Site | undefined, options: DesignOutputOptions): Promise<Uint8Array> {
   const enc = new TextEncoder();
+  const named = site ? plotCollectionNamed(plots, site.strata) : plots;
   // Field files carry each plot's route and safety notes; the field sheets annotate for themselves.
-  const collection =
-    site && options.annotate !== false && options.pdf !== 'sheets' && !isAnnotated(plots)
-      ? plotsAnnotate(plots, site, { ...(options.annotate || {}), surveyDate: options.surveyDate })
-      : plots;
+  const annotated =
+    site && options.annotate !== false && options.pdf !== 'sheets' && !isAnnotated(named)
+      ? plotsAnnotate(named, site, { ...(options.annotate || {}), surveyDate: options.surveyDate })
+      : named;
+  const collection = plotCollectionForField(annotated);
   const layers = siteLayers(collection, site);
   const name = options.name ?? site?.name ?? 'stratplot design';
   const ext = extensionOf(fileName);
@@ -117,27 +130,29 @@ async function designOutputUnchecked(fileName: string, plots: PlotCollection, si
     case 'json':
       return enc.encode(featuresToGeoJson(collection));
     case 'csv':
-      return enc.encode(plotsToCsv(collection, { bom: options.bom }));
+      return enc.encode(plotsToCsv(collection, { bom: options.bom, caution: FIELD_CAUTION }));
     case 'gpx': {
-      const all: FeatureCollection = { type: 'FeatureCollection', features: layers.flatMap((l) => l.features.features) };
+      // A GPS must not lead a crew to a rejected plot: it is left out, and listed in the description.
+      const all: FeatureCollection = { type: 'FeatureCollection', features: layers.flatMap((l) => l.features.features).filter((f) => !isRejectedPlot(f)) };
       const version = collection.design?.software?.version;
       const creator = `stratplot${version ? ` ${version}` : ''}`;
-      return enc.encode(featuresToGpx(all, { name, description: FIELD_SAFETY_NOTE, creator, labels: gpxLabels }));
+      return enc.encode(featuresToGpx(all, { name, description: navigationDescription(collection), creator, labels: gpxLabels }));
     }
     case 'kml':
-      return enc.encode(featuresToKml(layers, { name, description: FIELD_SAFETY_NOTE }));
+      return enc.encode(featuresToKml(layers, { name, description: kmlDescription(collection) }));
     case 'kmz':
-      return featuresToKmz(layers, { name, description: FIELD_SAFETY_NOTE });
+      return featuresToKmz(layers, { name, description: kmlDescription(collection) });
     case 'zip': {
       const files: Record<string, Uint8Array> = {};
       for (const l of layers) Object.assign(files, featuresToShapefileFiles(l.features, { layerName: l.name }));
+      files['CAUTION.txt'] = enc.encode(shapefileCautionText(name, collection, layers));
       return zipSync(files, { level: 6, mtime: new Date('2000-01-01T00:00:00Z') });
     }
     case 'gpkg':
-      return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit });
+      return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit, description: gpkgDescription(collection) });
     case 'pdf':
       return options.pdf === 'sheets'
-        ? fieldSheetsPdf(collection, site ?? null, {
+        ? fieldSheetsPdf(named, site ?? null, {
             paper: options.paper ?? 'a4',
             surveyDate: options.surveyDate,
             siteName: site?.name,

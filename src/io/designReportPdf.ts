@@ -1,6 +1,10 @@
 import { autoTable } from 'jspdf-autotable';
 import type { DesignSettings, PlotCollection } from '../core/designTypes';
+import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../core/fieldCaution';
+import { footprintFormat } from '../core/footprintParse';
 import { InputError } from '../core/InputError';
+import { plotCollectionNamed } from '../core/plotCollectionNamed';
+import { plotFieldStates, plotRejectionLines } from '../core/plotFieldState';
 import type { Site } from '../core/types';
 import { coverMapDraw } from './coverMap';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
@@ -53,8 +57,13 @@ const SETTING_LABELS: [keyof DesignSettings, string][] = [
   ['seed', 'Random seed'],
 ];
 
-function settingText(value: unknown): string {
+function settingText(value: unknown, key?: keyof DesignSettings): string {
   if (value === null || value === undefined) return '—';
+  if (key === 'footprint') return footprintFormat(value as DesignSettings['footprint']);
+  if (key === 'targetHalfwidth') {
+    const t = value as NonNullable<DesignSettings['targetHalfwidth']>;
+    return t.relative ? `${+(t.value * 100).toFixed(4)} % of the pilot mean` : String(t.value);
+  }
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'number' || typeof value === 'string') return String(value);
   if (Array.isArray(value)) return value.length ? `${value.length} vertices` : '—';
@@ -84,18 +93,22 @@ export function reportTablesParse(estimates: unknown): ReportTable[] {
 }
 
 /**
- * The design report: site map, strata table (mapped and usable area, share, plots, reserves),
- * method and every setting, seed, plan-file SHA-256, software version, warnings, the statement of
- * what estimates cover, and any estimate tables.
+ * The design report: site map with the safety caution beside it on page 1, strata table by
+ * current names and codes (mapped and usable area, share, plots, reserves), method and every
+ * setting (the footprint written as the CLI takes it, e.g. square:20), seed, plan-file SHA-256,
+ * software version, the field decisions recorded (rejected plots with reason, time and
+ * replacement), warnings, the statement of what estimates cover, and any estimate tables. Every
+ * page carries the one-line caution in its footer.
  * @returns the PDF as bytes.
  * @throws InputError for an unknown paper, a hash that is not 64 hex digits, or malformed estimates.
  */
-export function designReportPdf(collection: PlotCollection, site: Site | null, options: DesignReportOptions): Uint8Array {
+export function designReportPdf(given: PlotCollection, site: Site | null, options: DesignReportOptions): Uint8Array {
   const hash = options.planFileSha256;
   if (hash !== undefined && !/^[0-9a-f]{64}$/i.test(hash)) {
     throw new InputError(`plan-file SHA-256 must be 64 hexadecimal digits, got "${hash.slice(0, 80)}"`);
   }
   const tables = reportTablesParse(options.estimates);
+  const collection = site ? plotCollectionNamed(given, site.strata) : given;
   const d = collection.design;
   const siteName = site?.name ?? 'Unnamed site';
   const pg = pdfPageStart(options.paper, options.fontBytes, `Design report — ${siteName}`);
@@ -104,13 +117,19 @@ export function designReportPdf(collection: PlotCollection, site: Site | null, o
   pdfText(pg, `Design report: ${siteName}`, { size: 16, bold: true, gapAfter: 1 });
   pdfText(pg, `${d.software.name} ${d.software.version} · ${when} · seed ${d.seed} · UTM ${d.crs.utm_zone} (EPSG:${d.crs.epsg})`, { size: 9, gapAfter: 2 });
   const mapH = Math.min(150, (pdfPageBottom(pg) - pg.y) * 0.62);
-  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: pg.pageW - 2 * pg.margin, h: mapH }, pg.font);
+  const cautionW = 44;
+  const mapW = pg.pageW - 2 * pg.margin - cautionW - 3;
+  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: mapW, h: mapH }, pg.font);
+  drawCautionBox(pg, pg.margin + mapW + 3, pg.y, cautionW, mapH);
   pg.y += mapH + 3;
 
   pdfHeading(pg, 'Strata and allocation', 30);
-  const labelOf = new Map((site?.strata ?? []).map((s) => [s.key, s.label]));
+  const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
   const ha = (m2: number) => (m2 / 10_000).toFixed(2);
-  const rows = d.allocation.map((r) => [labelOf.get(r.stratum) ?? r.stratum, ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—']);
+  const rows = d.allocation.map((r) => {
+    const code = codeOf.get(r.stratum);
+    return [code ? `${r.stratum} (${code})` : r.stratum, ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—'];
+  });
   const sum = (f: (r: (typeof d.allocation)[number]) => number) => d.allocation.reduce((s, r) => s + f(r), 0);
   table(pg, ['Stratum', 'Mapped ha', 'Usable ha', 'Share', 'Plots', 'Reserves', 'Capacity'], rows, [
     'Total', ha(sum((r) => r.mapped_m2)), ha(sum((r) => r.usable_m2)), `${(sum((r) => r.share) * 100).toFixed(1)} %`, sum((r) => r.plots), sum((r) => r.reserve), '',
@@ -118,15 +137,21 @@ export function designReportPdf(collection: PlotCollection, site: Site | null, o
   pdfText(pg, 'Areas are ellipsoidal (WGS84) areas of the mapped and usable ground; share is each stratum’s part of the basis named below.', { size: 7.5, gapAfter: 2 });
 
   pdfHeading(pg, 'Method and settings', 30);
-  table(pg, ['Setting', 'Value'], SETTING_LABELS.map(([k, label]) => [label, settingText(d.settings[k])]));
+  table(pg, ['Setting', 'Value'], SETTING_LABELS.map(([k, label]) => [label, settingText(d.settings[k], k)]));
   pdfHeading(pg, 'Reproducing this design', 25);
   table(pg, ['Item', 'Value'], [
     ['Random seed', String(d.seed)],
     ['Plan file SHA-256', hash ? hash.toLowerCase() : 'not given (save the plan file and print the report from it to record its hash)'],
     ['Software', `${d.software.name} ${d.software.version}`],
     ['Coordinate frame', `UTM ${d.crs.utm_zone}, EPSG:${d.crs.epsg}, WGS84`],
-    ['Plots in this file', `${collection.features.filter((f) => f.properties.role === 'primary').length} primary, ${collection.features.filter((f) => f.properties.role === 'reserve').length} reserve`],
+    ['Plots in this file', plotCountsText(collection)],
   ]);
+
+  pdfHeading(pg, 'Field decisions', 15);
+  const decisions = plotRejectionLines(collection);
+  if (decisions.length) for (const line of decisions) pdfText(pg, line, { size: 8.5, indent: 2, gapAfter: 0.5, bullet: true });
+  else pdfText(pg, 'None recorded: every primary plot is to be visited.', { size: 8.5 });
+  pg.y += 2;
 
   pdfHeading(pg, 'Warnings', 15);
   if (d.warnings.length) for (const w of d.warnings) pdfText(pg, w, { size: 8.5, indent: 2, gapAfter: 0.5, bullet: true });
@@ -148,8 +173,35 @@ export function designReportPdf(collection: PlotCollection, site: Site | null, o
     for (const n of t.notes ?? []) pdfText(pg, n, { size: 7.5, gapAfter: 0.5 });
     pg.y += 2;
   }
-  pdfPageFrames(pg, `${siteName} — design report`, when, `${d.software.name} ${d.software.version} · seed ${d.seed}${hash ? ` · plan ${hash.slice(0, 12).toLowerCase()}…` : ''}`);
+  pdfPageFrames(pg, `${siteName} — design report`, when, `${d.software.name} ${d.software.version} · seed ${d.seed}${hash ? ` · plan ${hash.slice(0, 12).toLowerCase()}…` : ''}`, FIELD_CAUTION_LINE);
   return pdfPageBytes(pg);
+}
+
+function plotCountsText(collection: PlotCollection): string {
+  const states = [...plotFieldStates(collection.features.map((f) => f.properties)).values()];
+  const n = (k: string) => states.filter((s) => s.key === k).length;
+  const parts = [`${n('primary')} primary`, `${n('reserve')} reserve${n('reserve') === 1 ? '' : 's'} waiting`];
+  if (n('promoted')) parts.push(`${n('promoted')} promoted reserve${n('promoted') === 1 ? '' : 's'}`);
+  if (n('rejected')) parts.push(`${n('rejected')} rejected`);
+  return parts.join(', ');
+}
+
+/** The caution, framed, in a column beside the page-1 map. */
+function drawCautionBox(pg: PdfPage, x: number, y: number, w: number, h: number): void {
+  const { doc } = pg;
+  doc.setLineWidth(0.6);
+  doc.setDrawColor(0);
+  doc.setFont(pg.font, 'bold');
+  doc.setFontSize(9);
+  doc.text('Caution', x + 3, y + 6);
+  doc.setFont(pg.font, 'normal');
+  doc.setFontSize(8);
+  const body = FIELD_CAUTION.replace(/^Caution:\s*/, '');
+  const lines: string[] = doc.splitTextToSize(body.charAt(0).toUpperCase() + body.slice(1), w - 6);
+  lines.forEach((l, i) => {
+    doc.text(l, x + 3, y + 11 + i * 3.6);
+  });
+  doc.rect(x, y, w, Math.min(h, 14 + lines.length * 3.6));
 }
 
 function table(pg: PdfPage, head: string[], body: (string | number)[][], foot?: (string | number)[]): void {

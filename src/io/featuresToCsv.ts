@@ -8,6 +8,8 @@ export interface CsvWriteOptions {
   bom?: boolean;
   /** Columns written first, in this order; every other property follows in first-seen order. */
   leading?: string[];
+  /** Columns written last, in this order. */
+  trailing?: string[];
 }
 
 function wktPositions(ps: Position[]): string {
@@ -46,7 +48,8 @@ export function featuresToCsv(fc: FeatureCollection, options: CsvWriteOptions = 
   const geometryCols = allPoints ? ['lon', 'lat'] : ['wkt'];
   for (const f of fc.features) for (const k of Object.keys(f.properties ?? {})) keys.add(k);
   for (const c of geometryCols) if (!keys.has(c)) keys.add(c);
-  const fields = [...keys];
+  const trailing = options.trailing ?? [];
+  const fields = [...[...keys].filter((k) => !trailing.includes(k)), ...trailing];
   const data = fc.features.map((f) => {
     const p = { ...(f.properties ?? {}) } as Record<string, unknown>;
     const g = f.geometry;

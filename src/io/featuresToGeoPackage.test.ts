@@ -61,6 +61,17 @@ describe('featuresToGeoPackage and parseGeoPackage', () => {
     db.close();
   });
 
+  it('describes every layer in gpkg_contents (the caution, in exports)', async () => {
+    const bytes = await featuresToGeoPackage(layers(), { description: 'Caution: a planning aid (invented text).' });
+    const SQL = await sqlJsLoad();
+    const db = new SQL.Database(bytes);
+    // GeoPackage 1.3 §1.1.3.1.1, gpkg_contents.description: "a human-readable description".
+    expect(db.exec('SELECT table_name, description FROM gpkg_contents ORDER BY table_name')[0].values).toEqual(
+      ['exclusions', 'plots', 'strata'].map((t) => [t, 'Caution: a planning aid (invented text).']),
+    );
+    db.close();
+  });
+
   it('round-trips every layer with the same coordinates, typed attributes and non-ASCII names', async () => {
     const bytes = await featuresToGeoPackage(layers());
     expect(await geoPackageLayers('site.gpkg', bytes)).toEqual(['exclusions', 'plots', 'strata']);

@@ -17,6 +17,8 @@ export interface GpkgWriteOptions {
   sqlJsInit?: () => Promise<SqlJsStatic>;
   /** Target CRS (default WGS84, srs_id 4326); needs its EPSG code and WKT definition. */
   crs?: { transform: CrsTransform; epsg: number; wkt: string; name: string };
+  /** Description of every layer in gpkg_contents (e.g. the safety caution); default empty. */
+  description?: string;
 }
 
 /** OGC WKT of WGS 84 as the GeoPackage standard's required gpkg_spatial_ref_sys row gives it (Table 6 / Annex). */
@@ -67,8 +69,9 @@ function cellValue(v: unknown, type: string): string | number | null {
  * "GPKG", user_version 10300, the required gpkg_spatial_ref_sys rows (-1, 0, 4326) plus the
  * target CRS, gpkg_contents with each layer's extent, gpkg_geometry_columns, and geometry
  * blobs per §2.1.3. Column types follow the values (INTEGER, REAL, BOOLEAN, TEXT; objects as JSON
- * text). No spatial index (the rtree extension is optional). Throws InputError for a duplicate
- * or empty layer name.
+ * text), and `description` in each layer's gpkg_contents row (§1.1.3.1.1: "a human-readable
+ * description", which QGIS and GDAL show as the layer's description). No spatial index (the rtree
+ * extension is optional). Throws InputError for a duplicate or empty layer name.
  */
 export async function featuresToGeoPackage(layers: GpkgLayer[] | FeatureCollection, options: GpkgWriteOptions = {}): Promise<Uint8Array> {
   const list = Array.isArray(layers) ? layers : [{ name: 'features', features: layers }];
@@ -129,8 +132,8 @@ export async function featuresToGeoPackage(layers: GpkgLayer[] | FeatureCollecti
       }
       insert.free();
       const extent = Number.isFinite(box[0]) ? box : [null, null, null, null];
-      db.run('INSERT INTO gpkg_contents (table_name, data_type, identifier, min_x, min_y, max_x, max_y, srs_id) VALUES (?, ?, ?, ?, ?, ?, ?, ?)', [
-        layer.name, 'features', layer.name, ...extent, srsId,
+      db.run('INSERT INTO gpkg_contents (table_name, data_type, identifier, description, min_x, min_y, max_x, max_y, srs_id) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)', [
+        layer.name, 'features', layer.name, options.description ?? '', ...extent, srsId,
       ]);
       db.run('INSERT INTO gpkg_geometry_columns VALUES (?, ?, ?, ?, 0, 0)', [layer.name, geomCol, geomType, srsId]);
     }

@@ -58,11 +58,21 @@ describe('featuresToKml', () => {
     expect(top.indexOf('Schema')).toBeLessThan(top.indexOf('Folder'));
   });
 
-  it('styles primaries and reserves differently, with our own colours', () => {
+  it('styles the four field states by the shared symbol code, and names reserves as such', () => {
     const text = featuresToKml(layers());
-    expect(text).toContain('<Style id="sp-plot-primary"><IconStyle><color>ff8c6e0f</color>');
-    expect(text).toContain('<Style id="sp-plot-reserve"><IconStyle><color>ff1b62b8</color>');
+    // KML colours are aabbggrr (OGC KML 2.2, kml:colorType): #1d2a2e → ff2e2a1d, #ee3377 → ff7733ee.
+    expect(text).toContain('<Style id="sp-plot-primary"><IconStyle><color>ff2e2a1d</color>');
+    expect(text).toContain('<Style id="sp-plot-reserve"><IconStyle><color>ffffffff</color>');
+    expect(text).toContain('<Style id="sp-plot-promoted"><IconStyle><color>ff7733ee</color>');
+    expect(text).toContain('<Style id="sp-plot-rejected"><IconStyle><color>ff6d6d6d</color>');
+    expect(text).toContain('<Placemark><name>P005 (reserve)</name>');
     expect(text).toContain('<styleUrl>#sp-plot-reserve</styleUrl>');
+  });
+
+  it('colours exclusions by kind as the planner does', () => {
+    const text = featuresToKml(layers());
+    // Cliff #D55E00 → ff005ed5 (line colour) in aabbggrr.
+    expect(text).toMatch(/<Style id="sp-excl-cliff"><IconStyle><color>ff005ed5<\/color>/);
   });
 
   it('round-trips plots, strata and exclusions with typed attributes and non-ASCII names through KML', async () => {
@@ -82,10 +92,10 @@ describe('featuresToKml', () => {
     expect((await parseKml('site.kml', bytes)).features).toHaveLength(11);
   });
 
-  it('packs KMZ with doc.kml and our two plot icons, and reads it back the same', async () => {
+  it('packs KMZ with doc.kml and the four plot icons, and reads it back the same', async () => {
     const kmz = featuresToKmz(layers(), { name: 'Invented site' });
     const files = unzipSync(kmz);
-    expect(Object.keys(files).sort()).toEqual(['doc.kml', 'files/plot-primary.png', 'files/plot-reserve.png']);
+    expect(Object.keys(files).sort()).toEqual(['doc.kml', 'files/plot-primary.png', 'files/plot-promoted.png', 'files/plot-rejected.png', 'files/plot-reserve.png']);
     // PNG signature (PNG specification §5.2).
     expect([...files['files/plot-primary.png'].subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     const back = await parseKml('site.kmz', kmz, { layer: 'Plots' });

@@ -1,7 +1,11 @@
 import type { Feature, FeatureCollection, Geometry, Position } from 'geojson';
 import { zipSync } from 'fflate';
+import { EXCLUSION_COLOURS } from '../core/exclusionColours';
 import { InputError } from '../core/InputError';
-import { PLOT_COLOURS, plotIconPng } from './plotIcons';
+import { PLOT_FIELD_STATE_KEYS, type PlotFieldStateKey } from '../core/plotFieldState';
+import { PLOT_SYMBOLS } from '../core/plotSymbols';
+import type { ExclusionKind } from '../core/types';
+import { plotIconPng } from './plotIcons';
 import { xmlDecimal, xmlText } from './xmlText';
 
 /** One folder of a KML document. */
@@ -16,15 +20,14 @@ export interface KmlWriteOptions {
   name?: string;
   /** Document description (e.g. the safety note). */
   description?: string;
-  /** Icon hrefs for primary and reserve plots (set by the KMZ writer to its embedded icons). */
-  iconHref?: { primary: string; reserve: string };
+  /** Icon hrefs for the plot field states (set by the KMZ writer to its embedded icons). */
+  iconHref?: Record<PlotFieldStateKey, string>;
 }
 
 /** Name of the typed field list every stratplot KML carries; the reader uses it to keep only our fields. */
 export const KML_SCHEMA_ID = 'stratplot-fields';
 
 const AREA_DEFAULT = '#4f7a55';
-const EXCLUSION = '#a23b2a';
 const LINE_DEFAULT = '#3d4852';
 
 /** KML colour aabbggrr from #rrggbb and an alpha byte (OGC KML 2.2, kml:colorType). */
@@ -37,15 +40,29 @@ function isHexColour(v: unknown): v is string {
   return typeof v === 'string' && /^#[0-9a-fA-F]{6}$/.test(v);
 }
 
+/** The field state a plot feature is styled by: its `field_state`, else its status and role. */
+function plotStateOf(p: Record<string, unknown>): PlotFieldStateKey | null {
+  if (p.role !== 'primary' && p.role !== 'reserve') return null;
+  if (typeof p.field_state === 'string' && (PLOT_FIELD_STATE_KEYS as readonly string[]).includes(p.field_state)) return p.field_state as PlotFieldStateKey;
+  if (p.status === 'rejected') return 'rejected';
+  if (p.status === 'promoted') return 'promoted';
+  return p.role;
+}
+
+function exclusionColour(kind: unknown): string {
+  return EXCLUSION_COLOURS[kind as ExclusionKind] ?? EXCLUSION_COLOURS.other;
+}
+
 function styleOf(f: Feature): { id: string; xml: string } {
   const p = f.properties ?? {};
   const type = f.geometry?.type ?? 'Point';
-  if (p.role === 'primary' || p.role === 'reserve') return { id: `sp-plot-${p.role}`, xml: '' };
+  const state = plotStateOf(p);
+  if (state) return { id: `sp-plot-${state}`, xml: '' };
   const isExclusion = typeof p.kind === 'string' && typeof p.buffer_m !== 'undefined';
-  const colour = isExclusion ? EXCLUSION : isHexColour(p.colour) ? p.colour : isHexColour(p.color) ? p.color : null;
+  const colour = isExclusion ? exclusionColour(p.kind) : isHexColour(p.colour) ? p.colour : isHexColour(p.color) ? p.color : null;
   const area = type === 'Polygon' || type === 'MultiPolygon';
   const base = colour ?? (area ? AREA_DEFAULT : LINE_DEFAULT);
-  const id = `sp-${isExclusion ? 'excl' : area ? 'area' : 'line'}-${base.slice(1).toLowerCase()}`;
+  const id = isExclusion ? `sp-excl-${String(p.kind)}` : `sp-${area ? 'area' : 'line'}-${base.slice(1).toLowerCase()}`;
   const width = isExclusion ? 3 : 2;
   const xml =
     `<Style id="${id}"><IconStyle><color>${kmlColour(base, 0xff)}</color><scale>0.9</scale></IconStyle>` +
@@ -54,14 +71,16 @@ function styleOf(f: Feature): { id: string; xml: string } {
   return { id, xml };
 }
 
+// Without embedded icons a KML viewer tints its own marker: use the symbol's main colour.
 function plotStyles(iconHref?: KmlWriteOptions['iconHref']): string {
-  return (['primary', 'reserve'] as const)
-    .map((role) => {
-      const icon = iconHref ? `<Icon><href>${xmlText(iconHref[role])}</href></Icon>` : '';
-      const c = kmlColour(PLOT_COLOURS[role], 0xff);
-      return `<Style id="sp-plot-${role}"><IconStyle><color>${iconHref ? 'ffffffff' : c}</color><scale>${role === 'primary' ? 1 : 0.8}</scale>${icon}</IconStyle><LabelStyle><color>${c}</color><scale>0.8</scale></LabelStyle></Style>`;
-    })
-    .join('\n');
+  return PLOT_FIELD_STATE_KEYS.map((key) => {
+    const sym = PLOT_SYMBOLS[key];
+    const icon = iconHref ? `<Icon><href>${xmlText(iconHref[key])}</href></Icon>` : '';
+    // Solid symbols tint by their fill, open ones white (reserve) or by their ink (rejected, grey).
+    const tint = kmlColour(sym.solid ? sym.fill : key === 'reserve' ? '#ffffff' : sym.ink, 0xff);
+    const scale = key === 'primary' || key === 'promoted' ? 1 : 0.8;
+    return `<Style id="sp-plot-${key}"><IconStyle><color>${iconHref ? 'ffffffff' : tint}</color><scale>${scale}</scale>${icon}</IconStyle><LabelStyle><color>${kmlColour(sym.solid ? sym.fill : sym.ink, 0xff)}</color><scale>0.8</scale></LabelStyle></Style>`;
+  }).join('\n');
 }
 
 function coords(ps: Position[], where: string): string {
@@ -120,15 +139,30 @@ function fieldTypes(layers: KmlLayer[]): Map<string, 'double' | 'string'> {
 
 function labelOf(f: Feature, index: number): string {
   const p = f.properties ?? {};
+  const state = plotStateOf(p);
+  if (state && typeof p.plot_id === 'string') {
+    // The name is what a phone lists: say which plots are not to be visited as they are.
+    if (state === 'rejected') return `${p.plot_id} REJECTED`;
+    if (state === 'promoted') return typeof p.replaces === 'string' ? `${p.plot_id} (replaces ${p.replaces})` : `${p.plot_id} (promoted)`;
+    if (state === 'reserve') return `${p.plot_id} (reserve)`;
+    return p.plot_id;
+  }
   const v = p.plot_id ?? p.name ?? p.label ?? p.stratum ?? p.kind ?? f.id ?? `feature ${index + 1}`;
   return String(v);
+}
+
+function descriptionOf(p: Record<string, unknown>): string {
+  const parts = [p.field_note, p.notes].filter((v): v is string => typeof v === 'string' && v.trim() !== '');
+  return parts.join(' ');
 }
 
 /**
  * A KML 2.2 document (namespace http://www.opengis.net/kml/2.2) with one Folder per layer. Every
  * property is written as typed SchemaData under one Schema, so numbers come back as numbers;
- * plots get our own primary/reserve styles, strata their `colour` (or a default), exclusions a
- * warning red. Rings are closed (≥ 4 positions), coordinates are lon,lat[,alt] tuples, and child
+ * plots get the style of their field state (the shared symbol code of core/plotSymbols: primary,
+ * reserve, promoted, rejected), a name that says a plot is rejected, a reserve or replaces
+ * another, and their `field_note` and notes as description; strata their `colour` (or a
+ * default); exclusions the planner's colour of their kind. Rings are closed (≥ 4 positions), coordinates are lon,lat[,alt] tuples, and child
  * elements follow the order of the OGC KML 2.2 schema (OGC 07-147r2). Throws InputError naming the
  * layer and feature for a ring with fewer than 3 distinct positions or a non-WGS84 position.
  */
@@ -146,8 +180,8 @@ export function featuresToKml(layers: KmlLayer[] | FeatureCollection, options: K
         .map(([k, v]) => `<SimpleData name="${xmlText(k)}">${xmlText(typeof v === 'object' ? JSON.stringify(v) : v)}</SimpleData>`)
         .join('');
       const geometry = f.geometry ? geometryXml(f.geometry, where) : '';
-      const p = f.properties ?? {};
-      const description = p.notes ? `<description>${xmlText(p.notes)}</description>` : '';
+      const text = descriptionOf(f.properties ?? {});
+      const description = text ? `<description>${xmlText(text)}</description>` : '';
       return (
         `    <Placemark><name>${xmlText(labelOf(f, i))}</name>${description}<styleUrl>#${style.id}</styleUrl>` +
         `<ExtendedData><SchemaData schemaUrl="#${KML_SCHEMA_ID}">${data}</SchemaData></ExtendedData>${geometry}</Placemark>`
@@ -172,14 +206,9 @@ export function featuresToKml(layers: KmlLayer[] | FeatureCollection, options: K
  * {@link featuresToKml}. Source: OGC KML 2.2 (OGC 07-147r2) §6.2 KMZ packaging.
  */
 export function featuresToKmz(layers: KmlLayer[] | FeatureCollection, options: KmlWriteOptions = {}): Uint8Array {
-  const iconHref = { primary: 'files/plot-primary.png', reserve: 'files/plot-reserve.png' };
+  const iconHref = Object.fromEntries(PLOT_FIELD_STATE_KEYS.map((k) => [k, `files/plot-${k}.png`])) as Record<PlotFieldStateKey, string>;
   const kml = featuresToKml(layers, { ...options, iconHref });
-  return zipSync(
-    {
-      'doc.kml': new TextEncoder().encode(kml),
-      [iconHref.primary]: plotIconPng('primary'),
-      [iconHref.reserve]: plotIconPng('reserve'),
-    },
-    { level: 6, mtime: new Date('2000-01-01T00:00:00Z') },
-  );
+  const files: Record<string, Uint8Array> = { 'doc.kml': new TextEncoder().encode(kml) };
+  for (const k of PLOT_FIELD_STATE_KEYS) files[iconHref[k]] = plotIconPng(k);
+  return zipSync(files, { level: 6, mtime: new Date('2000-01-01T00:00:00Z') });
 }

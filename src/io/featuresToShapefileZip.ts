@@ -2,7 +2,7 @@ import type { Feature, FeatureCollection, Position } from 'geojson';
 import { zipSync } from 'fflate';
 import { InputError } from '../core/InputError';
 import type { CrsTransform } from './crsResolve';
-import { dbfWrite } from './dbfWrite';
+import { dbfFieldNames, dbfWrite } from './dbfWrite';
 import { SHP_MULTIPOINT, SHP_POINT, SHP_POLYGON, SHP_POLYLINE, shpParts, shpWriteLayer } from './shpWrite';
 
 /** ESRI WKT of WGS84 geographic coordinates, as .prj files beside WGS84 shapefiles carry it. */
@@ -39,11 +39,38 @@ function propertyKeys(features: Feature[]): string[] {
  * layer. A shapefile holds one shape type, so a collection mixing points, lines and polygons
  * becomes one layer per type ("name_points", "name_lines", "name_polygons"); a single type gives
  * one layer named `layerName`. Rings are written shells clockwise, holes counter-clockwise (ESRI
- * Shapefile Technical Description, July 1998). Field names are cut to 10 characters by
- * `dbfFieldNames`. Throws InputError for a GeometryCollection (no shapefile type holds one).
+ * Shapefile Technical Description, July 1998). Field names are shortened to 10 characters by
+ * `dbfFieldNames` (see {@link shapefileFieldNames}). Throws InputError for a GeometryCollection
+ * (no shapefile type holds one).
  */
 export function featuresToShapefileZip(fc: FeatureCollection, options: ShapefileWriteOptions = {}): Uint8Array {
   return zipSync(featuresToShapefileFiles(fc, options), { level: 6, mtime: options.date ?? new Date('2000-01-01T00:00:00Z') });
+}
+
+function layerBase(name: string, groupCount: number, type: number): string {
+  return groupCount === 1 ? name : `${name}_${KIND_SUFFIX[type]}`;
+}
+
+/**
+ * The field names each .dbf of {@link featuresToShapefileFiles} uses, by file base name: every
+ * property key with the (at most 10-character) name it is written under.
+ */
+export function shapefileFieldNames(fc: FeatureCollection, layerName = 'features'): { file: string; names: Map<string, string> }[] {
+  const name = layerName.replace(/[\\/:*?"<>|]/g, '_');
+  const byType = new Map<number, Feature[]>();
+  for (const f of fc.features) {
+    const type = f.geometry?.type === 'GeometryCollection' ? null : shpParts(f.geometry)?.type;
+    if (type === null) continue;
+    const key = type ?? -1;
+    byType.set(key, [...(byType.get(key) ?? []), f]);
+  }
+  // Features without geometry join the first typed layer, as featuresToShapefileFiles does.
+  const nulls = byType.get(-1) ?? [];
+  byType.delete(-1);
+  if (byType.size === 0) byType.set(SHP_POINT, []);
+  const first = byType.keys().next().value!;
+  byType.set(first, [...byType.get(first)!, ...nulls]);
+  return [...byType].map(([type, features]) => ({ file: layerBase(name, byType.size, type), names: dbfFieldNames(propertyKeys(features)) }));
 }
 
 /**
@@ -82,7 +109,7 @@ export function featuresToShapefileFiles(fc: FeatureCollection, options: Shapefi
   const files: Record<string, Uint8Array> = {};
   const enc = new TextEncoder();
   for (const [type, g] of groups) {
-    const base = groups.size === 1 ? name : `${name}_${KIND_SUFFIX[type]}`;
+    const base = layerBase(name, groups.size, type);
     const { shp, shx } = shpWriteLayer(type, g.parts);
     let keys = propertyKeys(g.features);
     let rows = g.features.map((f) => (f.properties ?? {}) as Record<string, unknown>);

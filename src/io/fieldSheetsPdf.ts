@@ -1,6 +1,9 @@
 import { crewBriefing } from '../core/crewBriefing';
 import type { PlotCollection, PlotProperties } from '../core/designTypes';
+import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../core/fieldCaution';
 import { InputError } from '../core/InputError';
+import { plotCollectionNamed } from '../core/plotCollectionNamed';
+import { type PlotFieldState, fieldTimeText, plotFieldStates, plotFieldStateText, plotRejectionLines } from '../core/plotFieldState';
 import { magneticDeclination } from '../core/magneticDeclination';
 import { NOTES_SEPARATOR, plotsAnnotate } from '../core/plotsAnnotate';
 import { walkingOrder } from '../core/walkingOrder';
@@ -27,15 +30,21 @@ export interface FieldSheetsOptions {
 const RECORD_FIELDS = ['Date, time', 'Observer(s)', 'Reached? yes / no, why not', 'Marker left / found', 'Total cover %', 'Photo numbers, directions'];
 
 /**
- * Printable field sheets: a cover map, the crew briefing, then one block per plot with its id,
- * role and rank, stratum, coordinates (decimal degrees, degrees and minutes, UTM, MGRS), the walk
- * from the access point (geodesic distance, true and magnetic bearing with the model), safety
- * notes, and blank recording fields. Black-and-white readable, A4 or Letter.
+ * Printable field sheets: a cover map, the crew briefing (rejected plots first), the walking order
+ * over the active plots (primaries not rejected and promoted reserves), then one block per plot
+ * with its field state, stratum name and code, coordinates (decimal degrees, degrees and minutes,
+ * UTM, MGRS), the walk from the access point (geodesic distance, true and magnetic bearing with
+ * the model), safety notes, and blank recording fields. A promoted reserve prints as an active plot
+ * that replaces the rejected one; a rejected plot prints struck out with its reason, time and
+ * replacement and no recording fields. Every page carries the one-line caution in its footer.
+ * Black-and-white readable, A4 or Letter. Stratum names are the plots' own (name them first, see
+ * plotCollectionNamed).
  * @param site the mapped site for the map, navigation and notes; null prints plots and briefing only.
  * @returns the PDF file as bytes.
  * @throws InputError for an unknown paper or access point, or a collection without plots.
  */
-export function fieldSheetsPdf(collection: PlotCollection, site: Site | null, options: FieldSheetsOptions): Uint8Array {
+export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options: FieldSheetsOptions): Uint8Array {
+  const collection = site ? plotCollectionNamed(given, site.strata) : given;
   if (!collection.features.length) throw new InputError('the plot collection has no plots to print field sheets for');
   const date = options.surveyDate ?? new Date();
   const siteName = options.siteName ?? site?.name ?? 'Unnamed site';
@@ -43,15 +52,23 @@ export function fieldSheetsPdf(collection: PlotCollection, site: Site | null, op
   const plots = (annotated ?? collection).features.map((f) => f.properties);
   const pg = pdfPageStart(options.paper, options.fontBytes, `Field sheets — ${siteName}`);
   const dateText = date.toISOString().slice(0, 10);
-  const labelOf = new Map((site?.strata ?? []).map((s) => [s.key, s.label]));
+  const states = plotFieldStates(plots);
+  const stateOf = (p: PlotProperties) => states.get(p.plot_id)!;
+  const count = (k: PlotFieldState['key']) => plots.filter((p) => stateOf(p).key === k).length;
+  const decisions = plotRejectionLines(collection);
 
   pdfText(pg, `Field sheets: ${siteName}`, { size: 16, bold: true, gapAfter: 1 });
-  const primary = plots.filter((p) => p.role === 'primary').length;
-  pdfText(pg, `Survey date ${dateText} · ${primary} primary plots, ${plots.length - primary} reserves · design seed ${collection.design.seed}`, { size: 9, gapAfter: 2 });
-  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: pg.pageW - 2 * pg.margin, h: pdfPageBottom(pg) - pg.y - 18 }, pg.font);
-  pg.y = pdfPageBottom(pg) - 16;
-  pdfText(pg, 'Reserves replace a primary plot that cannot be reached safely: take the reserve of the same stratum with the lowest rank not yet used, and record why.', { size: 8 });
-  pdfText(pg, 'Read the crew briefing before going out. Cliffs, water, hazards and private land are marked, but the map is not a safety assessment: local regulations, landholder permission and your employer’s safety plan govern.', { size: 8 });
+  const promoted = count('promoted');
+  pdfText(
+    pg,
+    `Survey date ${dateText} · ${count('primary') + promoted} plots to visit (${count('primary')} primary${promoted ? `, ${promoted} promoted reserve${promoted > 1 ? 's' : ''}` : ''}) · ${count('reserve')} reserves waiting${count('rejected') ? ` · ${count('rejected')} rejected` : ''} · design seed ${collection.design.seed}`,
+    { size: 9, gapAfter: 2 },
+  );
+  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: pg.pageW - 2 * pg.margin, h: pdfPageBottom(pg) - pg.y - 22 }, pg.font);
+  pg.y = pdfPageBottom(pg) - 20;
+  if (decisions.length) pdfText(pg, `Do not visit: ${decisions.join(' ')}`, { size: 8, bold: true });
+  pdfText(pg, 'Reserves replace a plot that cannot be reached safely: take the reserve of the same stratum with the lowest rank not yet used, and record why.', { size: 8 });
+  pdfText(pg, FIELD_CAUTION, { size: 8 });
 
   pdfPageAdd(pg);
   const access = site?.access ?? [];
@@ -59,28 +76,45 @@ export function fieldSheetsPdf(collection: PlotCollection, site: Site | null, op
   const decl = declAt ? magneticDeclination([declAt.lat, declAt.lon], 0, date) : null;
   const briefing = crewBriefing(
     { name: siteName, exclusions: site?.exclusions ?? [], access },
-    { surveyDate: date, declinationText: decl ? `${declinationText(decl.declinationDeg)} at ${declAt!.name} (${decl.model}, epoch ${decl.epoch.toFixed(1)}, for ${decl.decimalYear.toFixed(2)})` : undefined },
+    {
+      surveyDate: date,
+      declinationText: decl ? `${declinationText(decl.declinationDeg)} at ${declAt!.name} (${decl.model}, epoch ${decl.epoch.toFixed(1)}, for ${decl.decimalYear.toFixed(2)})` : undefined,
+      fieldDecisions: decisions,
+    },
   );
   drawBriefing(pg, briefing, decl?.warning ?? null);
-  if (declAt) drawWalkingOrder(pg, plots, declAt, decl?.declinationDeg ?? 0, options.dayBudgetM);
+  if (declAt) drawWalkingOrder(pg, plots.filter((p) => stateOf(p).active), count('promoted') > 0, declAt, decl?.declinationDeg ?? 0, options.dayBudgetM);
 
   pdfPageAdd(pg);
   const sorted = [...plots].sort((a, b) => a.stratum.localeCompare(b.stratum) || (a.role === b.role ? a.rank - b.rank : a.role === 'primary' ? -1 : 1));
   const accessNames = new Map(access.map((a) => [a.id, `${a.name} (${a.id})`]));
-  for (const p of sorted) drawPlotBlock(pg, p, labelOf.get(p.stratum) ?? p.stratum, accessNames.get(p.access_point ?? '') ?? p.access_point ?? '');
-  pdfPageFrames(pg, `${siteName} — field sheets`, `Survey date ${dateText}`, `stratplot ${collection.design.software.version} · seed ${collection.design.seed} · UTM ${collection.design.crs.utm_zone} (EPSG:${collection.design.crs.epsg})`);
+  const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
+  for (const p of sorted) {
+    const code = p.stratum_code ?? codeOf.get(p.stratum);
+    const stratum = code ? `${p.stratum} (${code})` : p.stratum;
+    const state = stateOf(p);
+    if (state.key === 'rejected') drawRejectedBlock(pg, p, state, stratum);
+    else drawPlotBlock(pg, p, state, stratum, accessNames.get(p.access_point ?? '') ?? p.access_point ?? '', states);
+  }
+  pdfPageFrames(
+    pg,
+    `${siteName} — field sheets`,
+    `Survey date ${dateText}`,
+    `stratplot ${collection.design.software.version} · seed ${collection.design.seed} · UTM ${collection.design.crs.utm_zone} (EPSG:${collection.design.crs.epsg})`,
+    FIELD_CAUTION_LINE,
+  );
   return pdfPageBytes(pg);
 }
 
-function drawWalkingOrder(pg: PdfPage, plots: PlotProperties[], start: { id: string; name: string; lon: number; lat: number }, declinationDeg: number, dayBudgetM: number | undefined): void {
-  const primary = plots.filter((p) => p.role === 'primary').map((p) => ({ id: p.plot_id, lon: p.lon, lat: p.lat }));
-  if (!primary.length) return;
-  const tour = walkingOrder({ id: start.id, lon: start.lon, lat: start.lat }, primary, { declinationDeg, dayBudgetM });
+function drawWalkingOrder(pg: PdfPage, active: PlotProperties[], withPromoted: boolean, start: { id: string; name: string; lon: number; lat: number }, declinationDeg: number, dayBudgetM: number | undefined): void {
+  const stops = active.map((p) => ({ id: p.plot_id, lon: p.lon, lat: p.lat }));
+  if (!stops.length) return;
+  const tour = walkingOrder({ id: start.id, lon: start.lon, lat: start.lat }, stops, { declinationDeg, dayBudgetM });
   pdfPageAdd(pg);
   pdfText(pg, `Suggested walking order from ${start.name} (${start.id})`, { size: 13, bold: true, gapAfter: 1 });
   pdfText(
     pg,
-    `Primary plots only, ${(tour.days.reduce((t, d) => t + d.distanceM, 0) / 1000).toFixed(2)} km of straight legs in ${tour.days.length} day(s), there and back (nearest neighbour, then 2-opt). ` +
+    `Plots to visit only (${withPromoted ? 'primaries not rejected and promoted reserves' : 'primary plots'}; rejected plots and waiting reserves are left out), ${(tour.days.reduce((t, d) => t + d.distanceM, 0) / 1000).toFixed(2)} km of straight legs in ${tour.days.length} day(s), there and back (nearest neighbour, then 2-opt). ` +
       'Straight legs are not routes: check every leg against the map and the notes, and go around water, cliffs and private land.',
     { size: 8.5, gapAfter: 2 },
   );
@@ -140,7 +174,53 @@ function drawBriefing(pg: PdfPage, b: ReturnType<typeof crewBriefing>, modelWarn
   pg.y += h + 2;
 }
 
-function drawPlotBlock(pg: PdfPage, p: PlotProperties, stratumLabel: string, accessName: string): void {
+function stateHeading(p: PlotProperties, state: PlotFieldState, states: ReadonlyMap<string, PlotFieldState>): string {
+  if (state.key === 'primary') return `Primary plot, rank ${p.rank}`;
+  if (state.key === 'promoted') {
+    const gone = states.get(state.replaces);
+    return `PROMOTED RESERVE, rank ${p.rank}: sample it, replaces ${state.replaces}${gone?.key === 'rejected' ? ` (${gone.reason})` : ''}`;
+  }
+  return `RESERVE, rank ${p.rank}, waiting: use only to replace a rejected plot`;
+}
+
+/** A rejected plot: struck out, with why, when and what replaced it, and no recording fields. */
+function drawRejectedBlock(pg: PdfPage, p: PlotProperties, state: Extract<PlotFieldState, { key: 'rejected' }>, stratum: string): void {
+  const { doc } = pg;
+  const w = pg.pageW - 2 * pg.margin;
+  doc.setFont(pg.font, 'normal');
+  doc.setFontSize(8.5);
+  const note = plotFieldStateText(p, state).note;
+  const lines: string[] = doc.splitTextToSize(note, w - 6);
+  const height = 9 + 3 + lines.length * 4 + 5 + 5;
+  pdfPageEnsure(pg, height);
+  const top = pg.y;
+  doc.setLineWidth(0.5);
+  doc.setLineDashPattern([1.2, 0.8], 0);
+  doc.rect(pg.margin, top, w, height - 3);
+  doc.setLineDashPattern([], 0);
+  fillGrey(doc, 225);
+  doc.rect(pg.margin, top, w, 9, 'F');
+  doc.setFont(pg.font, 'bold');
+  doc.setFontSize(14);
+  doc.text(p.plot_id, pg.margin + 2.5, top + 6.5);
+  // Struck out: a rule through the id, so nobody mistakes it for a plot to visit.
+  doc.setLineWidth(0.6);
+  doc.line(pg.margin + 1.5, top + 5, pg.margin + 3.5 + doc.getTextWidth(p.plot_id), top + 5);
+  doc.setFontSize(9);
+  doc.text(`REJECTED: do not visit${state.atIso ? ` · ${fieldTimeText(state.atIso)}` : ''} · ${stratum}`, pg.margin + w - 2.5, top + 6.2, { align: 'right' });
+  doc.setFont(pg.font, 'normal');
+  doc.setFontSize(8.5);
+  let y = top + 13;
+  for (const line of lines) {
+    doc.text(line, pg.margin + 3, y);
+    y += 4;
+  }
+  doc.setFontSize(7);
+  doc.text(`Position, for reference only: ${decimalDegreesText(p.lon, p.lat)} · MGRS ${mgrsSpacedText(p.mgrs)}`, pg.margin + 3, y + 1);
+  pg.y = top + height;
+}
+
+function drawPlotBlock(pg: PdfPage, p: PlotProperties, state: PlotFieldState, stratumLabel: string, accessName: string, states: ReadonlyMap<string, PlotFieldState>): void {
   const { doc } = pg;
   const w = pg.pageW - 2 * pg.margin;
   doc.setFont(pg.font, 'normal');
@@ -151,17 +231,22 @@ function drawPlotBlock(pg: PdfPage, p: PlotProperties, stratumLabel: string, acc
   const height = 12 + 23.5 + 4 + notes.length * 3.3 + Math.ceil(RECORD_FIELDS.length / 2) * 6 + 18;
   pdfPageEnsure(pg, height);
   const top = pg.y;
+  const active = state.active;
   doc.setLineWidth(0.5);
   doc.rect(pg.margin, top, w, height - 3);
-  fillGrey(doc, p.role === 'primary' ? 0 : 255);
-  doc.rect(pg.margin, top, w, 9, p.role === 'primary' ? 'F' : 'S');
-  doc.setTextColor(p.role === 'primary' ? 255 : 0);
+  fillGrey(doc, active ? 0 : 255);
+  doc.rect(pg.margin, top, w, 9, active ? 'F' : 'S');
+  doc.setTextColor(active ? 255 : 0);
   doc.setFont(pg.font, 'bold');
   doc.setFontSize(14);
   doc.text(p.plot_id, pg.margin + 2.5, top + 6.5);
+  const idW = doc.getTextWidth(p.plot_id);
   doc.setFontSize(9);
-  const role = p.role === 'primary' ? `Primary plot, rank ${p.rank}` : `RESERVE, rank ${p.rank} — use only to replace a primary plot`;
-  doc.text(`${role} · ${stratumLabel}`, pg.margin + w - 2.5, top + 6.2, { align: 'right' });
+  const heading = `${stateHeading(p, state, states)} · ${stratumLabel}`;
+  let size = 9;
+  // Long headings (a promoted reserve names what it replaces and why) shrink rather than run over the id.
+  while (size > 6 && doc.getTextWidth(heading) > w - idW - 10) doc.setFontSize((size -= 0.5));
+  doc.text(heading, pg.margin + w - 2.5, top + 6.2, { align: 'right' });
   doc.setTextColor(0);
 
   const colW = w / 2;

@@ -144,7 +144,7 @@ describe.skipIf(!HAS_GDAL)('formats against GDAL/OGR', () => {
       { name: 'Strata', features: sampleFeatures(-3.2, 55.95) },
     ]));
     const kmlPlots = ogrToGeoJson(join(d, 'site.kml'), 'Plots');
-    expect(kmlPlots.features.map((f) => f.properties?.Name)).toEqual(['P001', 'P002', 'P003', 'P004', 'P005', 'P006']);
+    expect(kmlPlots.features.map((f) => f.properties?.Name)).toEqual(['P001', 'P002', 'P003', 'P004', 'P005 (reserve)', 'P006 (reserve)']);
     expect(ogrToGeoJson(join(d, 'site.kml'), 'Strata').features).toHaveLength(3);
     writeFileSync(join(d, 'site.gpx'), featuresToGpx({ type: 'FeatureCollection', features: [...samplePlots().features, ...sampleExclusions(-3.2, 55.95).features] }));
     const wpts = ogrToGeoJson(join(d, 'site.gpx'), 'waypoints');

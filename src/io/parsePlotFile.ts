@@ -1,9 +1,13 @@
 import type { PlotCollection } from '../core/designTypes';
 import { InputError } from '../core/InputError';
+import { PLOT_DERIVED_FIELDS } from '../core/plotCollectionForField';
 
 /**
  * Reads a plot file as `stratplot plan` writes it: a GeoJSON FeatureCollection of points whose
- * properties carry plot_id, stratum, role and rank, with the design summary in `design`.
+ * properties carry plot_id, stratum, role and rank, with the design summary in `design`. The
+ * plots' field state (status, reject_reason, rejected_at, replaces) is kept as it is; the fields
+ * worked out from it for people (field_state, field_note) are dropped, so a copy never drives
+ * anything: writers work them out again.
  * @throws InputError naming the file (and feature index) when the text is not JSON, not a
  *   FeatureCollection, has no design summary with an allocation table and footprint, or a feature
  *   lacks plot_id, stratum, role (primary|reserve) or rank
@@ -39,6 +43,10 @@ export function parsePlotFile(fileName: string, bytes: Uint8Array | string): Plo
       throw new InputError(`${fileName}: feature ${i} (${p.plot_id}) has role ${JSON.stringify(p.role)}; expected primary or reserve`);
     }
     if (typeof p.rank !== 'number') throw new InputError(`${fileName}: feature ${i} (${p.plot_id}) has no rank`);
+    if (p.status !== undefined && p.status !== 'planned' && p.status !== 'rejected' && p.status !== 'promoted') {
+      throw new InputError(`${fileName}: feature ${i} (${p.plot_id}) has status ${JSON.stringify(p.status)}; expected planned, rejected or promoted`);
+    }
+    for (const k of PLOT_DERIVED_FIELDS) delete p[k];
   });
   return fc as PlotCollection;
 }

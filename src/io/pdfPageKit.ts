@@ -79,8 +79,11 @@ export function pdfHeading(pg: PdfPage, text: string, keepMm = 20): void {
   pg.y += 2.5;
 }
 
-/** Writes the running header and "page i of n" footer on every page; call once at the end. */
-export function pdfPageFrames(pg: PdfPage, left: string, right: string, footer: string): void {
+/**
+ * Writes the running header and "page i of n" footer on every page; call once at the end. With
+ * `caution`, every page also carries that one line above the footer (a torn-off page keeps it).
+ */
+export function pdfPageFrames(pg: PdfPage, left: string, right: string, footer: string, caution?: string): void {
   const { doc } = pg;
   const n = doc.getNumberOfPages();
   for (let i = 1; i <= n; i++) {
@@ -93,7 +96,14 @@ export function pdfPageFrames(pg: PdfPage, left: string, right: string, footer: 
     doc.setLineWidth(0.2);
     doc.line(pg.margin, pg.margin + 4.5, pg.pageW - pg.margin, pg.margin + 4.5);
     const fy = pg.pageH - pg.margin;
-    doc.line(pg.margin, fy - 4, pg.pageW - pg.margin, fy - 4);
+    doc.line(pg.margin, fy - (caution ? 6.8 : 4), pg.pageW - pg.margin, fy - (caution ? 6.8 : 4));
+    if (caution) {
+      doc.setFont(pg.font, 'bold');
+      doc.setFontSize(6.5);
+      doc.text(caution, pg.margin, fy - 4, { maxWidth: pg.pageW - 2 * pg.margin });
+      doc.setFont(pg.font, 'normal');
+      doc.setFontSize(7.5);
+    }
     doc.text(footer, pg.margin, fy - 0.8);
     doc.text(`Page ${i} of ${n}`, pg.pageW - pg.margin, fy - 0.8, { align: 'right' });
   }

@@ -1,52 +1,51 @@
+import type { PlotFieldStateKey } from '../core/plotFieldState';
+import { PLOT_SYMBOLS, plotSymbolCover } from '../core/plotSymbols';
 import { pngEncodeRgba } from './pngEncodeRgba';
-
-/** Plot marker colours of our own choosing (#rrggbb): deep teal for primaries, burnt amber for reserves. */
-export const PLOT_COLOURS = { primary: '#0f6e8c', reserve: '#b8621b' } as const;
 
 function hex(c: string): [number, number, number] {
   return [Number.parseInt(c.slice(1, 3), 16), Number.parseInt(c.slice(3, 5), 16), Number.parseInt(c.slice(5, 7), 16)];
 }
 
 /**
- * 32×32 PNG markers for plots: a primary is a solid disc with a white centre dot, a reserve a
- * hollow diamond, so the two differ in shape as well as colour (readable in black and white
- * and by colour-blind crews). Edges are anti-aliased by 4×4 supersampling.
+ * A plot marker of the shared symbol code (core/plotSymbols) as straight RGBA pixels, `size`
+ * square: primary a solid disc with a white centre dot, reserve an open diamond, promoted reserve
+ * a solid magenta diamond with a white dot, rejected an open grey disc struck through, each with
+ * a thin white halo for imagery. Edges are anti-aliased by 4×4 supersampling. The planner's map
+ * and key draw these pixels, the KMZ embeds them as PNG.
  */
-export function plotIconPng(role: 'primary' | 'reserve'): Uint8Array {
-  const size = 32;
-  const [r, g, b] = hex(PLOT_COLOURS[role]);
+export function plotIconRgba(key: PlotFieldStateKey, size = 32): Uint8Array {
+  const sym = PLOT_SYMBOLS[key];
+  const colours = { fill: hex(sym.fill), ink: hex(sym.ink), white: [255, 255, 255] as [number, number, number] };
   const rgba = new Uint8Array(size * size * 4);
-  const c = (size - 1) / 2;
-  const inside = (x: number, y: number): 'ink' | 'white' | null => {
-    const dx = x - c;
-    const dy = y - c;
-    if (role === 'primary') {
-      const d = Math.hypot(dx, dy);
-      if (d <= 3.5) return 'white';
-      return d <= 13 ? 'ink' : null;
-    }
-    const m = Math.abs(dx) + Math.abs(dy);
-    return m <= 15 && m >= 9 ? 'ink' : null;
-  };
+  const c = size / 2;
+  const unit = size / 2;
   for (let y = 0; y < size; y++) {
     for (let x = 0; x < size; x++) {
-      let ink = 0;
-      let white = 0;
+      const sum = [0, 0, 0];
+      let hits = 0;
       for (let sy = 0; sy < 4; sy++) {
         for (let sx = 0; sx < 4; sx++) {
-          const hit = inside(x - 0.375 + sx * 0.25, y - 0.375 + sy * 0.25);
-          if (hit === 'ink') ink++;
-          else if (hit === 'white') white++;
+          const part = plotSymbolCover(sym, (x + 0.125 + sx * 0.25 - c) / unit, (y + 0.125 + sy * 0.25 - c) / unit);
+          if (!part) continue;
+          const rgb = colours[part];
+          sum[0] += rgb[0];
+          sum[1] += rgb[1];
+          sum[2] += rgb[2];
+          hits++;
         }
       }
-      const cover = (ink + white) / 16;
-      const w = white / Math.max(1, ink + white);
       const at = (y * size + x) * 4;
-      rgba[at] = Math.round(r + (255 - r) * w);
-      rgba[at + 1] = Math.round(g + (255 - g) * w);
-      rgba[at + 2] = Math.round(b + (255 - b) * w);
-      rgba[at + 3] = Math.round(255 * cover);
+      if (hits === 0) continue;
+      rgba[at] = Math.round(sum[0] / hits);
+      rgba[at + 1] = Math.round(sum[1] / hits);
+      rgba[at + 2] = Math.round(sum[2] / hits);
+      rgba[at + 3] = Math.round((255 * hits) / 16);
     }
   }
-  return pngEncodeRgba(size, size, rgba);
+  return rgba;
+}
+
+/** The marker of {@link plotIconRgba} as a PNG file (32×32), for KMZ icons. */
+export function plotIconPng(key: PlotFieldStateKey, size = 32): Uint8Array {
+  return pngEncodeRgba(size, size, plotIconRgba(key, size));
 }

@@ -18,13 +18,29 @@ describe('plotsToCsv', () => {
   it('neutralises text cells that start like formulas (=, +, -, @, tab, CR) while numbers stay numbers', () => {
     const text = plotsToCsv(samplePlots());
     const rows = text.split('\r\n');
-    expect(rows[1]).toBe(`P001,Forêt humide,primary,1,37.7749,-122.4194,10N,551234.5,4180123.25,10SEG5123480123,42.5,cliff,"'=HYPERLINK(""http://example.invalid"")",0.125,250.5,0,-13.5`);
+    // The sample plots carry no stratum code or field state of their own: those cells are empty.
+    expect(rows[1]).toBe(`P001,Forêt humide,,primary,1,,,37.7749,-122.4194,10N,551234.5,4180123.25,10SEG5123480123,42.5,cliff,"'=HYPERLINK(""http://example.invalid"")",0.125,250.5,0,-13.5`);
     const parsed = Papa.parse<string[]>(text, { skipEmptyLines: true }).data;
-    const notes = parsed.slice(1).map((r) => r[12]);
+    const notes = parsed.slice(1).map((r) => r[15]);
     expect(notes).toEqual([`'=HYPERLINK("http://example.invalid")`, "'+1 steep", "'-2 m drop", "'@crew", "'\tindented", "'\rreturn"]);
     // A negative longitude is a bare number, never quoted or prefixed.
-    expect(parsed.slice(1).every((r) => /^-\d+\.\d+$/.test(r[5]))).toBe(true);
+    expect(parsed.slice(1).every((r) => /^-\d+\.\d+$/.test(r[8]))).toBe(true);
     expect(rows[3]).toContain(',,,'); // null nearest exclusion distance and kind are empty cells
+  });
+
+  it('carries the caution in a last column on every row, which spreadsheets and point readers still read', async () => {
+    const caution = 'Caution: a planning aid only (invented wording for the test).';
+    const text = plotsToCsv(samplePlots(), { caution });
+    // papaparse 5 (a reference CSV reader) with a header row, as spreadsheets read it: row 1 is the header.
+    const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.meta.fields?.at(-1)).toBe('caution');
+    expect(parsed.meta.fields?.[0]).toBe('plot_id');
+    expect(parsed.data.map((r) => r.caution)).toEqual(Array(6).fill(caution));
+    // The app's own point reader (what phone exports go back through) still finds lat/lon.
+    const back = await parsePointCsv('plots.csv', enc(text));
+    expect(back.features).toHaveLength(6);
+    expect(back.features[0].properties?.caution).toBe(caution);
   });
 
   it('adds a UTF-8 byte-order mark only when asked', () => {

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import type { FeatureCollection } from 'geojson';
 import { GPX_XSD } from '../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
+import { plotCollectionForField } from '../core/plotCollectionForField';
 import { featuresToGpx } from './featuresToGpx';
 import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samplePlots } from './fixtures/ioSamples';
 import { parseGpx } from './parseGpx';
@@ -30,20 +31,21 @@ describe('plotsToGpx', () => {
     expect(xmllint(plotsToGpx(samplePlots()))).toBe('valid');
   });
 
-  it('labels each waypoint with plot id, stratum, role and rank, and the notes', async () => {
+  it('labels each waypoint with plot id, field state, what to do, stratum and rank, and the notes', async () => {
     const text = plotsToGpx(samplePlots());
-    expect(text).toContain('<name>P001</name><cmt>primary 1: =HYPERLINK(&quot;http://example.invalid&quot;)</cmt><desc>Forêt humide</desc><type>primary</type>');
-    expect(text).toContain('<name>P002</name><cmt>primary 2: +1 steep</cmt><desc>Ngā otaota</desc><type>primary</type>');
-    expect(text).toContain('<name>P005</name><cmt>reserve 1: &#9;indented</cmt><desc>Ngā otaota</desc><type>reserve</type>');
+    expect(text).toContain('<name>P001</name><cmt>primary 1: =HYPERLINK(&quot;http://example.invalid&quot;)</cmt><desc>Primary plot, rank 1: sample it. Stratum: Forêt humide.</desc><type>primary</type>');
+    expect(text).toContain('<name>P002</name><cmt>primary 2: +1 steep</cmt><desc>Primary plot, rank 2: sample it. Stratum: Ngā otaota.</desc><type>primary</type>');
+    expect(text).toContain('<name>P005</name><cmt>reserve 1: &#9;indented</cmt><desc>Reserve, rank 1, waiting: use it only to replace a rejected plot of its stratum, in rank order. Stratum: Ngā otaota.</desc><type>reserve</type>');
   });
 
   it('reads back the same coordinates and every plot attribute, notes with tab and CR included', async () => {
     const plots = samplePlots();
     const back = await parseGpx('plots.gpx', new TextEncoder().encode(plotsToGpx(plots)));
     expect(back.features).toHaveLength(plots.features.length);
+    const field = plotCollectionForField(plots);
     back.features.forEach((f, i) => {
       expect(positionGapDeg(f, plots.features[i])).toBeLessThanOrEqual(1e-7);
-      expect(f.properties).toEqual(plots.features[i].properties);
+      expect(f.properties).toEqual(field.features[i].properties);
     });
     expect(back.features[5].properties?.notes).toBe('\rreturn');
   });

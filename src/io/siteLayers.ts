@@ -10,8 +10,8 @@ export interface NamedLayer {
 
 /**
  * The layers of a design export in a fixed order: plots, then (with a site) strata parts with
- * their stratum's label, code and colour, exclusions with kind, buffer and notes, and access
- * points. Empty site layers are left out.
+ * their stratum's current name (`stratum`), code and colour, exclusions with kind, buffer and
+ * notes, and access points. Empty site layers are left out.
  */
 export function siteLayers(collection: PlotCollection, site?: Site | null): NamedLayer[] {
   const layers: NamedLayer[] = [{ name: 'plots', features: { type: 'FeatureCollection', features: collection.features } }];
@@ -24,7 +24,7 @@ export function siteLayers(collection: PlotCollection, site?: Site | null): Name
       return {
         type: 'Feature',
         geometry: p.geometry,
-        properties: { part_id: p.id, stratum: p.stratum, label: s?.label ?? p.stratum, code: s?.code ?? null, colour: s?.colour ?? null },
+        properties: { part_id: p.id, stratum: s?.label ?? p.stratum, code: s?.code ?? null, colour: s?.colour ?? null },
       };
     }),
   };

@@ -1,4 +1,4 @@
-import type { DesignSettings, PlanFile } from '../core/designTypes';
+import type { DesignSettings, PlanFileDocument } from '../core/designTypes';
 import { InputError } from '../core/InputError';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
@@ -16,7 +16,7 @@ export const AUTOSAVE_KEY = 'stratplot:working-plan';
 
 /** What is kept: the plan plus whether it had been written to a file. */
 interface AutosaveRecord {
-  plan: PlanFile;
+  plan: PlanFileDocument;
   saved: boolean;
 }
 
@@ -43,7 +43,7 @@ export function autosaveStart(
     writing = writing.then(() => storage.set(AUTOSAVE_KEY, JSON.stringify(record))).catch((e) => onError?.(e));
   };
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.rejections === prev.rejections && s.savedRevision === prev.savedRevision) return;
+    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.savedRevision === prev.savedRevision) return;
     if (timer === null) timer = setTimeout(write, delayMs);
   });
   const unsubscribeResults = results?.subscribe((s, prev) => {

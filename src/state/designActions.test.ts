@@ -4,7 +4,9 @@ import { designSettingsDefault } from '../core/designSettingsDefault';
 import { designResultSet, designSettingsSet } from './designActions';
 import { historyUndo } from './historyActions';
 import { plannerStoreCreate } from './plannerStore';
+import { plotRejections } from '../core/plotFieldState';
 import { plotReject } from './plotReject';
+import { plotRestore } from './plotRestore';
 import { stratumPartAdd } from './strataActions';
 
 const box = (w: number, s: number, e: number, n: number) => ({
@@ -50,7 +52,21 @@ describe('design and field decisions in the planner store', () => {
     const after = new Map(store.getState().result!.features.map((f) => [f.properties.plot_id, f.properties]));
     expect(after.get(victim.plot_id)?.status).toBe('rejected');
     expect(after.get(reserve.plot_id)).toMatchObject({ status: 'promoted', replaces: victim.plot_id });
-    expect(store.getState().rejections).toEqual([{ plot_id: victim.plot_id, reason: 'Under water', replacement: reserve.plot_id, at: '2026-12-01T09:00:00Z' }]);
+    // The decision lives on the plots alone; the list of decisions is read from them.
+    expect(plotRejections(store.getState().result!)).toEqual([{ plot_id: victim.plot_id, reason: 'Under water', replacement: reserve.plot_id, at: '2026-12-01T09:00:00Z' }]);
+    expect(store.getState()).not.toHaveProperty('rejections');
+  });
+
+  it('restores a rejected plot: it is to be visited again and its reserve waits again, as before the rejection', () => {
+    const store = designedStore();
+    const before = store.getState().result!;
+    const victim = before.features.find((f) => f.properties.role === 'primary')!.properties.plot_id;
+    const promoted = plotReject(store, victim, 'Entry refused by the landholder', '2026-12-01T09:00:00Z');
+    expect(plotRestore(store, victim)).toBe(promoted);
+    expect(store.getState().result).toEqual(before);
+    expect(JSON.stringify(store.getState().result)).toBe(JSON.stringify(before));
+    expect(store.getState().notice?.text).toMatch(new RegExp(`${victim} restored`));
+    expect(() => plotRestore(store, victim)).toThrow(`plot ${victim} is not rejected, so there is nothing to restore`);
   });
 
   it('marks the design stale when the map changes after it was made', () => {

@@ -27,14 +27,14 @@ export function designSeedFresh(): number {
   return a[0];
 }
 
-/** Stores a finished design; earlier field decisions belong to the earlier design and are dropped. */
+/** Stores a finished design; earlier field decisions belong to the earlier design's plots and go with them. */
 export function designResultSet(store: PlannerStore, result: PlotCollection): void {
   const s = store.getState();
-  store.setState({ result, resultStale: false, rejections: [], job: null, revision: s.revision + 1 });
+  store.setState({ result, resultStale: false, job: null, revision: s.revision + 1 });
 }
 
 /** Clears the design result and its field decisions. */
 export function designResultClear(store: PlannerStore): void {
   const s = store.getState();
-  store.setState({ result: null, resultStale: false, rejections: [], revision: s.revision + 1 });
+  store.setState({ result: null, resultStale: false, revision: s.revision + 1 });
 }

@@ -35,8 +35,8 @@ describe('plan files', () => {
   it('names the file and the problem when a plan cannot be read', () => {
     expect(() => planFileParse('{"format":', 'a.json')).toThrow(/^a\.json: not valid JSON/);
     expect(() => planFileParse('{"type":"FeatureCollection"}', 'b.json')).toThrow('b.json: not a stratplot plan file');
-    expect(() => planFileParse('{"format":"stratplot-plan","version":2}', 'c.json')).toThrow('c.json: plan version 2 is not one this program reads');
-    const badPart = { format: 'stratplot-plan', version: 1, site: { strata: [], parts: [{ stratum: 'A', geometry: { type: 'Point', coordinates: [0, 0] } }], exclusions: [], access: [] }, design: {} };
+    expect(() => planFileParse('{"format":"stratplot-plan","version":3}', 'c.json')).toThrow('c.json: plan version 3 is not one this program reads (it reads versions 1 to 2)');
+    const badPart = { format: 'stratplot-plan', version: 2, site: { strata: [], parts: [{ stratum_id: 'A', geometry: { type: 'Point', coordinates: [0, 0] } }], exclusions: [], access: [] }, design: {} };
     expect(() => planFileParse(JSON.stringify(badPart), 'd.json')).toThrow('d.json: site.parts[0] geometry is Point, not a polygon');
   });
 

@@ -1,23 +1,37 @@
-import type { DesignSettings, PlanFile, ResultsSnapshot } from '../core/designTypes';
+import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/designTypes';
 import { InputError } from '../core/InputError';
-import type { Site } from '../core/types';
+import { plotCollectionById, plotCollectionNamed } from '../core/plotCollectionNamed';
+import type { Site, StratumInfo, StratumPart } from '../core/types';
+import { planFileMigrateV1 } from './planFileMigrate';
 import type { PlannerState, PlannerStore } from './plannerStore';
+import { plannerPlotsNamed } from './plotsNamed';
 import type { ResultsStore } from './resultsStore';
 import { resultsReset, resultsSnapshotIsEmpty, resultsSnapshotParse, resultsSnapshotRestore } from './resultsSnapshot';
 
+/** A plan holding a site and design settings and nothing else yet (no design, no results). */
+export function planFileOf(site: Site, design: DesignSettings): PlanFile {
+  return { format: 'stratplot-plan', version: PLAN_FILE_VERSION, savedAt: '', site, design, result: null };
+}
+
 /**
- * The plan file for what the planner holds now (see ARCHITECTURE.md, "The plan file").
+ * The plan file for what the planner holds now (see ARCHITECTURE.md, "The plan file"): strata by
+ * stable id with their current names and codes, the result named as a plot file (plus each plot's
+ * `stratum_id`), its plots carrying their field state. Write it with JSON.stringify.
  * @param results the Results step's work; left out of the file when absent or empty
  */
-export function planFileFromState(state: PlannerState, savedAt: string, results?: ResultsSnapshot | null): PlanFile {
-  const plan: PlanFile = {
+export function planFileFromState(state: PlannerState, savedAt: string, results?: ResultsSnapshot | null): PlanFileDocument {
+  const { strata, parts, ...site } = state.site;
+  const plan: PlanFileDocument = {
     format: 'stratplot-plan',
-    version: 1,
+    version: PLAN_FILE_VERSION,
     savedAt,
-    site: state.site,
+    site: {
+      ...site,
+      strata: strata.map((s) => ({ id: s.key, name: s.label, code: s.code, colour: s.colour })),
+      parts: parts.map(({ stratum, ...p }) => ({ id: p.id, stratum_id: stratum, geometry: p.geometry, ...(p.properties ? { properties: p.properties } : {}) })),
+    },
     design: state.design,
-    result: state.result,
-    rejections: state.rejections,
+    result: state.result ? plotCollectionNamed(state.result, strata, { ids: true }) : null,
   };
   if (results && !resultsSnapshotIsEmpty(results)) plan.results = results;
   return plan;
@@ -27,23 +41,37 @@ function isObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
 
+function strataRead(strata: unknown[], fileName: string): StratumInfo[] {
+  return strata.map((s, i) => {
+    if (!isObject(s) || typeof s.id !== 'string' || s.id === '') throw new InputError(`${fileName}: site.strata[${i}] has no id`);
+    const name = typeof s.name === 'string' && s.name.trim() ? s.name : s.id;
+    if (typeof s.code !== 'string' || !s.code) throw new InputError(`${fileName}: site.strata[${i}] ("${name}") has no code`);
+    return { key: s.id, label: name, code: s.code, colour: typeof s.colour === 'string' ? s.colour : '#777777' };
+  });
+}
+
 function siteCheck(site: unknown, fileName: string): Site {
   if (!isObject(site)) throw new InputError(`${fileName}: "site" is missing or not an object`);
   for (const key of ['strata', 'parts', 'exclusions', 'access'] as const) {
     if (!Array.isArray(site[key])) throw new InputError(`${fileName}: site.${key} must be a list`);
   }
-  (site.parts as unknown[]).forEach((p, i) => {
-    if (!isObject(p) || typeof p.stratum !== 'string' || !isObject(p.geometry)) {
-      throw new InputError(`${fileName}: site.parts[${i}] needs a stratum name and a geometry`);
+  const parts = (site.parts as unknown[]).map((p, i): StratumPart => {
+    if (!isObject(p) || typeof p.stratum_id !== 'string' || !isObject(p.geometry)) {
+      throw new InputError(`${fileName}: site.parts[${i}] needs a stratum_id and a geometry`);
     }
     const type = (p.geometry as { type?: unknown }).type;
     if (type !== 'Polygon' && type !== 'MultiPolygon') throw new InputError(`${fileName}: site.parts[${i}] geometry is ${String(type)}, not a polygon`);
+    const part: StratumPart = { id: String(p.id ?? ''), stratum: p.stratum_id, geometry: p.geometry as unknown as StratumPart['geometry'] };
+    if (isObject(p.properties)) part.properties = p.properties;
+    return part;
   });
-  return site as unknown as Site;
+  return { ...(site as unknown as Site), strata: strataRead(site.strata as unknown[], fileName), parts };
 }
 
 /**
- * Reads a plan file's text. Throws InputError naming the file when it is not JSON, not a
+ * Reads a plan file's text into the plan the planner holds. Version 1 files (saved before strata
+ * had separate ids and names and before field decisions lived on the plots alone) are migrated
+ * first (planFileMigrateV1). Throws InputError naming the file when it is not JSON, not a
  * stratplot plan, of a newer version than this program reads, or missing its site or design.
  */
 export function planFileParse(text: string, fileName: string): PlanFile {
@@ -54,22 +82,23 @@ export function planFileParse(text: string, fileName: string): PlanFile {
     throw new InputError(`${fileName}: not valid JSON (${(e as Error).message})`);
   }
   if (!isObject(data) || data.format !== 'stratplot-plan') throw new InputError(`${fileName}: not a stratplot plan file (no "format": "stratplot-plan")`);
-  if (data.version !== 1) throw new InputError(`${fileName}: plan version ${String(data.version)} is not one this program reads (it reads version 1)`);
+  if (data.version === 1) data = planFileMigrateV1(data, fileName);
+  if (!isObject(data) || data.version !== PLAN_FILE_VERSION) {
+    const v = isObject(data) ? data.version : undefined;
+    throw new InputError(`${fileName}: plan version ${String(v)} is not one this program reads (it reads versions 1 to ${PLAN_FILE_VERSION})`);
+  }
   const site = siteCheck(data.site, fileName);
   if (!isObject(data.design)) throw new InputError(`${fileName}: "design" settings are missing`);
   const result = data.result ?? null;
   if (result !== null && (!isObject(result) || !Array.isArray(result.features))) throw new InputError(`${fileName}: "result" is not a plot collection`);
-  const rejections = data.rejections ?? [];
-  if (!Array.isArray(rejections)) throw new InputError(`${fileName}: "rejections" must be a list`);
   const results = data.results === undefined || data.results === null ? undefined : resultsSnapshotParse(data.results, fileName);
   return {
     format: 'stratplot-plan',
-    version: 1,
+    version: PLAN_FILE_VERSION,
     savedAt: typeof data.savedAt === 'string' ? data.savedAt : '',
     site,
     design: data.design as unknown as DesignSettings,
-    result: result as PlanFile['result'],
-    rejections: rejections as PlanFile['rejections'],
+    result: result === null ? null : plotCollectionById(result as unknown as NonNullable<PlanFile['result']>),
     ...(results ? { results } : {}),
   };
 }
@@ -88,7 +117,6 @@ export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: Des
     design: { ...defaults, ...plan.design },
     result: plan.result,
     resultStale: false,
-    rejections: plan.rejections,
     revision,
     savedRevision: saved ? revision : s.savedRevision,
     selection: null,
@@ -96,7 +124,7 @@ export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: Des
   });
   store.temporal.getState().clear();
   if (!results) return;
-  if (plan.results) resultsSnapshotRestore(results, plan.results, plan.result);
+  if (plan.results) resultsSnapshotRestore(results, plan.results, plannerPlotsNamed(store.getState()));
   else resultsReset(results);
 }
 

@@ -1,6 +1,6 @@
 import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, FieldRejection, PlotCollection } from '../core/designTypes';
+import type { DesignSettings, PlotCollection } from '../core/designTypes';
 import type { Site } from '../core/types';
 import type { SiteAnalysis } from '../worker/siteAnalyse';
 
@@ -31,10 +31,10 @@ export interface Notice {
 export interface PlannerState {
   site: Site;
   design: DesignSettings;
+  /** The design; its plots carry their field state (rejections and promotions live there only). */
   result: PlotCollection | null;
   /** True once the site has changed after the result was made. */
   resultStale: boolean;
-  rejections: FieldRejection[];
   /** Attribute chosen to group imported polygons into strata. */
   strataField: string;
   /** Bumps on every change worth saving. */
@@ -78,7 +78,6 @@ export function plannerStoreCreate(design: DesignSettings, site: Site = siteEmpt
         design,
         result: null,
         resultStale: false,
-        rejections: [],
         strataField: 'stratum',
         revision: 0,
         savedRevision: 0,

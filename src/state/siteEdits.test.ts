@@ -84,6 +84,10 @@ describe('site edits in the planner store', () => {
     stratumPartAdd(store, 'Scrub', box(150.001, -35, 150.002, -34.999));
     expect(() => stratumRecolour(store, 'Heath', 'red')).toThrow('stratum "Heath": colour "red" is not #rrggbb');
     expect(() => stratumRecode(store, 'Scrub', 'hea')).toThrow('code HEA is already used by stratum "Heath"');
+    // Files name strata by name, so two strata never go by one name (nor one by another's id).
+    expect(() => stratumRename(store, 'Scrub', 'Heath')).toThrow('another stratum is already called "Heath"; choose a name of its own');
+    stratumRename(store, 'Heath', 'Low heath');
+    expect(() => stratumRename(store, 'Scrub', 'Heath')).toThrow('another stratum is already called "Heath"');
     const id = exclusionAdd(store, 'cliff', { type: 'LineString', coordinates: [[150, -35], [150.001, -35]] });
     expect(store.getState().site.exclusions[0].bufferM).toBe(15);
     expect(() => exclusionUpdate(store, id, { bufferM: -1 })).toThrow(`exclusion ${id}: buffer must be a number of metres, 0 or more`);

@@ -38,10 +38,16 @@ function stratumPatch(store: PlannerStore, key: string, patch: Partial<StratumIn
   });
 }
 
-/** Changes the label a stratum is shown with (the key that groups its features stays). */
+/**
+ * Changes the name a stratum is shown with everywhere (map, tables, every file written, the plan
+ * file); its stable id (the key its features and plots refer to) stays. Throws InputError for a
+ * blank name or one another stratum goes by (as its name or id), since files name strata by it.
+ */
 export function stratumRename(store: PlannerStore, key: string, label: string): void {
   const clean = label.trim();
   if (!clean) throw new InputError(`stratum "${key}": the name cannot be blank`);
+  const other = store.getState().site.strata.find((s) => s.key !== key && (s.label === clean || s.key === clean));
+  if (other) throw new InputError(`another stratum is already called "${clean}"; choose a name of its own`);
   stratumPatch(store, key, { label: clean });
 }
 

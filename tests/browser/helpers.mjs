@@ -91,3 +91,22 @@ export async function browserCopyWait(page, needles) {
   }
   return stored();
 }
+
+/**
+ * Draws a small square stratum with the "Draw stratum" tool (or the tool whose button name
+ * matches `tool`), clear of the key, the zoom buttons, the scale and the credit.
+ */
+export async function drawSquare(page, tool = /^Draw stratum/) {
+  const b = await page.evaluate(() => window.__stratplotMap.getBounds().toArray());
+  const [w, s] = b[0];
+  const [e, n] = b[1];
+  const x0 = w + (e - w) * 0.55;
+  const x1 = w + (e - w) * 0.63;
+  const y0 = s + (n - s) * 0.1;
+  const y1 = s + (n - s) * 0.18;
+  await page.getByRole('button', { name: tool }).click();
+  for (const [x, y] of [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]) {
+    await clickLngLat(page, x, y);
+    await new Promise((r) => setTimeout(r, 160));
+  }
+}

@@ -1,7 +1,8 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
-import { browserCopyWait, check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
+import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
+import { browserCopyWait, check, clickLngLat, drawSquare, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
@@ -25,22 +26,6 @@ function importFile(nameA = 'Imported heath (invented)', nameB = 'Imported scrub
       ),
     },
   };
-}
-
-async function drawSquare(page) {
-  const b = await page.evaluate(() => window.__stratplotMap.getBounds().toArray());
-  const [w, s] = b[0];
-  const [e, n] = b[1];
-  // Clear of the key (top left), the zoom buttons (top right), the scale and the credit (bottom).
-  const x0 = w + (e - w) * 0.55;
-  const x1 = w + (e - w) * 0.63;
-  const y0 = s + (n - s) * 0.1;
-  const y1 = s + (n - s) * 0.18;
-  await page.getByRole('button', { name: /^Draw stratum/ }).click();
-  for (const [x, y] of [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]) {
-    await clickLngLat(page, x, y);
-    await sleep(160);
-  }
 }
 
 export const SCENARIOS = [
@@ -312,4 +297,5 @@ export const SCENARIOS = [
   },
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
+  FIELD_STATE_SCENARIO,
 ];

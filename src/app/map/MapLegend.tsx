@@ -1,6 +1,7 @@
 import { EXCLUSION_KINDS } from '../../core/types';
 import { usePlanner } from '../usePlanner';
-import { EXCLUSION_COLOURS, INK } from './palette';
+import { EXCLUSION_COLOURS } from './palette';
+import { PlotSymbolKey } from './PlotSymbolKey';
 
 /** The key to the map: strata by colour, code and name; exclusion kinds by colour and hatch; plot symbols. */
 export function MapLegend() {
@@ -27,22 +28,7 @@ export function MapLegend() {
           </li>
         ))}
       </ul>
-      {hasPlots ? (
-        <ul aria-label="Plots">
-          <li>
-            <span className="dot" style={{ background: INK }} /> primary plot
-          </li>
-          <li>
-            <span className="dot dot-ring" /> reserve
-          </li>
-          <li>
-            <span className="dot" style={{ background: '#f2b134' }} /> promoted reserve
-          </li>
-          <li>
-            <span className="dot" style={{ background: '#b9b9b9' }} /> rejected
-          </li>
-        </ul>
-      ) : null}
+      {hasPlots ? <PlotSymbolKey compact /> : null}
     </details>
   );
 }

@@ -1,7 +1,8 @@
 import { Map as MapLibreMap, NavigationControl, Popup, ScaleControl, setWorkerUrl } from 'maplibre-gl';
 import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
 import { useEffect, useRef } from 'react';
-import type { PlotProperties } from '../../core/designTypes';
+import { plotFieldStates } from '../../core/plotFieldState';
+import type { PlannerState } from '../../state/plannerStore';
 import { DEMO_SITE_NAME } from '../demoSite';
 import { DEMO_IMAGE_NAME, imageryLoadDemo } from '../imageryLoad';
 import { imageryRemove } from './imageryControl';
@@ -48,6 +49,21 @@ export function MapView() {
     map.addControl(new ScaleControl({ unit: 'metric', maxWidth: 140 }), 'bottom-left');
     map.addControl(new NavigationControl({ showCompass: false }), 'top-right');
     const popup = new Popup({ closeButton: true, maxWidth: '300px' });
+    // The plot whose popup is open: its content follows the plan (a rejection, a restore, a rename).
+    let popupPlot: string | null = null;
+    popup.on('close', () => {
+      popupPlot = null;
+    });
+    const popupShow = (s: PlannerState, plotId: string): boolean => {
+      const plot = s.result?.features.find((f) => f.properties.plot_id === plotId);
+      if (!plot) return false;
+      const p = plot.properties;
+      const stratum = s.site.strata.find((x) => x.key === p.stratum);
+      const label = stratum ? `${stratum.label} (${stratum.code})` : p.stratum;
+      const state = plotFieldStates(s.result!.features.map((f) => f.properties)).get(p.plot_id);
+      popup.setDOMContent(plotPopupContent(p, label, state));
+      return true;
+    };
     const cleanups: (() => void)[] = [];
     labelImagesInstall(map);
     map.on('load', () => {
@@ -62,6 +78,7 @@ export function MapView() {
       cleanups.push(
         plannerStore.subscribe((s, prev) => {
           if (s.focus && s.focus !== prev.focus) map.fitBounds(s.focus.bbox, { padding: 60, maxZoom: 18, duration: 400 });
+          if (popupPlot && (s.result !== prev.result || s.site.strata !== prev.site.strata) && !popupShow(s, popupPlot)) popup.remove();
         }),
       );
       map.on('click', (e) => {
@@ -78,10 +95,11 @@ export function MapView() {
           const s = plannerStore.getState();
           const plot = s.result?.features.find((f) => f.properties.plot_id === hit.properties.plot_id);
           if (!plot) return;
-          const p: PlotProperties = plot.properties;
-          const label = s.site.strata.find((x) => x.key === p.stratum)?.label ?? p.stratum;
+          const p = plot.properties;
           plannerStore.setState({ selection: { kind: 'plot', id: p.plot_id } });
-          popup.setLngLat([p.lon, p.lat]).setDOMContent(plotPopupContent(p, label)).addTo(map);
+          popupShow(s, p.plot_id);
+          popup.setLngLat([p.lon, p.lat]).addTo(map);
+          popupPlot = p.plot_id;
           return;
         }
         popup.remove();

@@ -1,16 +1,4 @@
-/**
- * Colours of exclusion kinds after the Okabe–Ito palette (Okabe & Ito 2008, "Color Universal
- * Design"; private land and hazards darkened for contrast on imagery), chosen to stay apart under
- * colour-vision deficiency; every kind also has its own
- * hatch and a text label, so colour never carries meaning alone.
- */
-export const EXCLUSION_COLOURS: Record<string, string> = {
-  cliff: '#D55E00',
-  water: '#0072B2',
-  private: '#8C4F9F',
-  hazard: '#B07800',
-  other: '#555555',
-};
+export { EXCLUSION_COLOURS } from '../../core/exclusionColours';
 
-/** Ink of plots and access points. */
-export const INK = '#1d2a2e';
+/** Ink of plots and access points (the primary plot colour of the shared symbol code). */
+export { PLOT_INK as INK } from '../../core/plotSymbols';

@@ -31,6 +31,15 @@ describe('the plot popup', () => {
     expect(text).toContain('42 m (cliff)');
   });
 
+  it('says a rejected plot is rejected, with the reason, and names what replaces it', () => {
+    const rejected: PlotProperties = { ...plot, status: 'rejected', reject_reason: 'Unsafe to reach', rejected_at: '2026-12-01T09:30:00Z' };
+    const node = plotPopupContent(rejected, 'Coastal heath (HEA)', { key: 'rejected', active: false, reason: 'Unsafe to reach', atIso: '2026-12-01T09:30:00Z', replacedBy: 'HEA-R1', standIn: 'HEA-R1', replaces: null });
+    expect(node.dataset.state).toBe('rejected');
+    expect(node.querySelector('h3')?.textContent).toBe('HEA-01 (rejected)');
+    expect(node.textContent).toContain('REJECTED 2026-12-01 09:30 UTC: Unsafe to reach. Do not visit; replaced by HEA-R1.');
+    expect(node.textContent).not.toContain('primary');
+  });
+
   it('keeps markup in notes as text, never as elements', () => {
     const node = plotPopupContent(plot, '<b>bold</b>');
     expect(node.querySelector('img, b')).toBeNull();

@@ -2,6 +2,7 @@ import type { GeoJSONSource, Map as MapLibreMap } from 'maplibre-gl';
 import type { FeatureCollection } from 'geojson';
 import { EXCLUSION_COLOURS, INK } from './palette';
 import { LABEL_PREFIX } from './labelImages';
+import { plotSymbolImageName, plotSymbolImagesInstall } from './plotSymbolImages';
 
 /** Source ids of the planner's own map data. */
 export const SOURCES = ['sp-strata', 'sp-buffers', 'sp-exclusions', 'sp-access', 'sp-plots', 'sp-footprints', 'sp-selection', 'sp-baseline'] as const;
@@ -12,6 +13,7 @@ const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
 
 /** Adds the planner's sources and layers above whatever base style is loaded. */
 export function siteLayersAdd(map: MapLibreMap): void {
+  plotSymbolImagesInstall(map);
   for (const id of SOURCES) {
     map.addSource(id, { type: 'geojson', data: EMPTY, promoteId: id === 'sp-plots' || id === 'sp-footprints' ? 'plot_id' : 'id' });
   }
@@ -57,15 +59,16 @@ export function siteLayersAdd(map: MapLibreMap): void {
     source: 'sp-access',
     paint: { 'circle-radius': 7, 'circle-color': '#ffffff', 'circle-stroke-color': INK, 'circle-stroke-width': 2.5 },
   });
+  // The shared plot symbols (core/plotSymbols), rejected plots under the others.
   map.addLayer({
     id: 'sp-plots',
-    type: 'circle',
+    type: 'symbol',
     source: 'sp-plots',
-    paint: {
-      'circle-radius': ['match', ['get', 'state'], 'reserve', 4.5, 'rejected', 4, 5.5],
-      'circle-color': ['match', ['get', 'state'], 'reserve', '#ffffff', 'rejected', '#b9b9b9', 'promoted', '#f2b134', INK],
-      'circle-stroke-color': ['match', ['get', 'state'], 'rejected', '#6d6d6d', INK],
-      'circle-stroke-width': ['match', ['get', 'state'], 'reserve', 2, 1.2],
+    layout: {
+      'icon-image': ['match', ['get', 'state'], 'reserve', plotSymbolImageName('reserve'), 'promoted', plotSymbolImageName('promoted'), 'rejected', plotSymbolImageName('rejected'), plotSymbolImageName('primary')],
+      'icon-allow-overlap': true,
+      'icon-ignore-placement': true,
+      'symbol-sort-key': ['match', ['get', 'state'], 'rejected', 0, 'reserve', 1, 2],
     },
   });
   map.addLayer({
@@ -93,7 +96,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
     source: 'sp-plots',
     minzoom: 15,
     layout: {
-      'icon-image': ['concat', LABEL_PREFIX, ['get', 'plot_id'], ['match', ['get', 'state'], 'rejected', ' ✕ rejected', 'promoted', ' ▲ promoted', '']],
+      'icon-image': ['concat', LABEL_PREFIX, ['get', 'plot_id'], ['match', ['get', 'state'], 'rejected', ' rejected', 'promoted', ['concat', ' replaces ', ['get', 'replaces']], '']],
       'icon-anchor': 'left',
       'icon-offset': [7, 0],
     },

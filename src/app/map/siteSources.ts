@@ -1,6 +1,7 @@
 import type { Feature, FeatureCollection, Polygon } from 'geojson';
 import type { Footprint, PlotCollection } from '../../core/designTypes';
 import { type LocalFrame, localFrameAt } from '../../core/localFrame';
+import { plotFieldStates } from '../../core/plotFieldState';
 import type { Site } from '../../core/types';
 
 const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
@@ -37,15 +38,17 @@ export function accessSource(site: Site): FeatureCollection {
   };
 }
 
-/** Plots as points; `state` folds role and field status into one styling key. */
+/** Plots as points; `state` is the plot's field state (plotFieldStates), the key of its symbol. */
 export function plotsSource(result: PlotCollection | null): FeatureCollection {
   if (!result) return EMPTY;
+  const states = plotFieldStates(result.features.map((f) => f.properties));
   return {
     type: 'FeatureCollection',
     features: result.features.map((f) => {
       const p = f.properties;
-      const state = p.status === 'rejected' ? 'rejected' : p.status === 'promoted' ? 'promoted' : p.role;
-      return { type: 'Feature', geometry: f.geometry, properties: { plot_id: p.plot_id, stratum: p.stratum, role: p.role, rank: p.rank, state } };
+      const s = states.get(p.plot_id)!;
+      const replaces = s.key === 'promoted' ? s.replaces : '';
+      return { type: 'Feature', geometry: f.geometry, properties: { plot_id: p.plot_id, stratum: p.stratum, role: p.role, rank: p.rank, state: s.key, replaces } };
     }),
   };
 }

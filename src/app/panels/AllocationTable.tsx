@@ -1,13 +1,15 @@
+import { plannerPlotsNamed } from '../../state/plotsNamed';
 import { fmtHa, fmtPct } from '../format';
 import { usePlanner } from '../usePlanner';
 
-/** The allocation of the last design: per stratum area, share, plots, reserves and capacity, with its warnings. */
+/**
+ * The allocation of the last design: per stratum (by its current name) area, share, plots,
+ * reserves and capacity, with its warnings.
+ */
 export function AllocationTable() {
-  const result = usePlanner((s) => s.result);
+  const result = usePlanner(plannerPlotsNamed);
   const stale = usePlanner((s) => s.resultStale);
-  const strata = usePlanner((s) => s.site.strata);
   if (!result) return <p className="fine">No design yet: the allocation appears here once one is made.</p>;
-  const label = new Map(strata.map((s) => [s.key, s.label]));
   const rows = result.design.allocation;
   return (
     <div className="allocation">
@@ -30,7 +32,7 @@ export function AllocationTable() {
             const short = r.capacity !== null && r.capacity < r.plots + r.reserve;
             return (
               <tr key={r.stratum} className={short ? 'row-warn' : undefined}>
-                <td>{label.get(r.stratum) ?? r.stratum}</td>
+                <td>{r.stratum}</td>
                 <td className="num">{fmtHa(r.mapped_m2)}</td>
                 <td className="num">{fmtHa(r.usable_m2)}</td>
                 <td className="num">{fmtPct(r.share)}</td>

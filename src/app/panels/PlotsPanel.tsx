@@ -1,7 +1,10 @@
 import { Fragment, useMemo, useState } from 'react';
 import type { PlotProperties } from '../../core/designTypes';
+import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/plotFieldState';
+import { plotRestore } from '../../state/plotRestore';
+import { PlotSymbolKey } from '../map/PlotSymbolKey';
 import { plannerStore } from '../plannerStoreInstance';
-import { usePlanner } from '../usePlanner';
+import { attempt, usePlanner } from '../usePlanner';
 import { ExportBox } from './ExportBox';
 import { RejectForm } from './RejectForm';
 
@@ -15,8 +18,10 @@ const COLUMNS: [SortKey, string][] = [
   ['nearest_exclusion_m', 'To excl. m'],
 ];
 
-function statusOf(p: PlotProperties): string {
-  return p.status === 'rejected' ? 'rejected' : p.status === 'promoted' ? `promoted ← ${p.replaces ?? '?'}` : 'planned';
+function statusOf(p: PlotProperties, s: PlotFieldState | undefined): string {
+  if (!s) return 'planned';
+  if (s.key === 'rejected') return `rejected: ${s.reason}`;
+  return plotFieldStateText(p, s).short;
 }
 
 function zoomTo(p: PlotProperties): void {
@@ -27,9 +32,10 @@ function zoomTo(p: PlotProperties): void {
 /** Step 4: the plot roster — every plot with its role and status; zoom to it, reject it, export the lot. */
 export function PlotsPanel() {
   const result = usePlanner((s) => s.result);
-  const rejections = usePlanner((s) => s.rejections);
   const strata = usePlanner((s) => s.site.strata);
-  const code = useMemo(() => new Map(strata.map((s) => [s.key, s.code])), [strata]);
+  const stratumOf = useMemo(() => new Map(strata.map((s) => [s.key, s])), [strata]);
+  const states = useMemo(() => plotFieldStates(result?.features.map((f) => f.properties) ?? []), [result]);
+  const rejections = useMemo(() => (result ? plotRejections(result) : []), [result]);
   const selected = usePlanner((s) => (s.selection?.kind === 'plot' ? s.selection.id : null));
   const [sort, setSort] = useState<{ key: SortKey; up: boolean }>({ key: 'plot_id', up: true });
   const [filter, setFilter] = useState('');
@@ -41,18 +47,19 @@ export function PlotsPanel() {
     const kept = all.filter((p) => {
       if (role === 'primary' && p.role !== 'primary') return false;
       if (role === 'reserve' && p.role !== 'reserve') return false;
-      if (role === 'active' && !((p.role === 'primary' && p.status !== 'rejected') || p.status === 'promoted')) return false;
-      return !q || p.plot_id.toLowerCase().includes(q) || p.stratum.toLowerCase().includes(q);
+      if (role === 'active' && !states.get(p.plot_id)?.active) return false;
+      const s = stratumOf.get(p.stratum);
+      return !q || p.plot_id.toLowerCase().includes(q) || (s?.label ?? p.stratum).toLowerCase().includes(q) || (s?.code ?? '').toLowerCase().includes(q);
     });
     const k = sort.key;
-    const val = (p: PlotProperties) => (k === 'status' ? statusOf(p) : (p[k] ?? Infinity));
+    const val = (p: PlotProperties) => (k === 'status' ? statusOf(p, states.get(p.plot_id)) : k === 'stratum' ? (stratumOf.get(p.stratum)?.label ?? p.stratum) : (p[k] ?? Infinity));
     return kept.sort((a, b) => {
       const x = val(a);
       const y = val(b);
       const c = typeof x === 'number' && typeof y === 'number' ? x - y : String(x).localeCompare(String(y), 'en', { numeric: true });
       return sort.up ? c : -c;
     });
-  }, [result, filter, role, sort]);
+  }, [result, filter, role, sort, states, stratumOf]);
 
   if (!result) {
     return (
@@ -70,8 +77,10 @@ export function PlotsPanel() {
         <span className="step-no">4</span> Plots
       </h2>
       <p className="lead">
-        {result.features.filter((f) => f.properties.role === 'primary').length} primaries and {result.features.filter((f) => f.properties.role === 'reserve').length} reserves. Filled dots are primaries, rings are reserves; promoted reserves are gold, rejected plots grey.
+        {result.features.filter((f) => f.properties.role === 'primary').length} primaries and {result.features.filter((f) => f.properties.role === 'reserve').length} reserves
+        {rejections.length ? `; ${rejections.length} rejected` : ''}. The map, the exports and the field sheets draw every plot by its field state:
       </p>
+      <PlotSymbolKey />
       <div className="filter-row">
         <input type="search" aria-label="Filter plots by id or stratum" placeholder="Filter by id or stratum" value={filter} onChange={(e) => setFilter(e.currentTarget.value)} />
         <select aria-label="Which plots to list" value={role} onChange={(e) => setRole(e.currentTarget.value as typeof role)}>
@@ -99,22 +108,32 @@ export function PlotsPanel() {
           </tr>
         </thead>
         <tbody>
-          {rows.map((p) => (
+          {rows.map((p) => {
+            const state = states.get(p.plot_id);
+            const stratum = stratumOf.get(p.stratum);
+            return (
             <Fragment key={p.plot_id}>
-              <tr data-plot={p.plot_id} data-status={p.status ?? 'planned'} className={selected === p.plot_id ? 'row-on' : undefined}>
+              <tr data-plot={p.plot_id} data-status={p.status ?? 'planned'} data-state={state?.key} className={[selected === p.plot_id ? 'row-on' : '', state?.key === 'rejected' ? 'row-rejected' : ''].join(' ').trim() || undefined}>
                 <td className="mono">{p.plot_id}</td>
-                <td title={p.stratum}>{code.get(p.stratum) ?? p.stratum}</td>
+                <td title={stratum ? `${stratum.label} (${stratum.code})` : p.stratum}>{stratum?.code ?? p.stratum}</td>
                 <td>{p.role}</td>
                 <td className="num">{p.rank}</td>
-                <td className="plot-status">{statusOf(p)}</td>
+                <td className="plot-status" title={state ? plotFieldStateText(p, state).note : undefined}>
+                  {statusOf(p, state)}
+                </td>
                 <td className="num">{p.nearest_exclusion_m === null ? '–' : p.nearest_exclusion_m.toFixed(0)}</td>
                 <td className="actions">
                   <button type="button" aria-label={`Zoom to plot ${p.plot_id}`} onClick={() => zoomTo(p)}>
                     Zoom
                   </button>
-                  {(p.role === 'primary' && p.status !== 'rejected') || p.status === 'promoted' ? (
+                  {state?.active ? (
                     <button type="button" aria-label={`Reject plot ${p.plot_id}`} onClick={() => setRejecting(p.plot_id)}>
                       Reject…
+                    </button>
+                  ) : null}
+                  {state?.key === 'rejected' ? (
+                    <button type="button" aria-label={`Restore plot ${p.plot_id}`} title="Undo this rejection: the plot is to be visited again and its replacement goes back to waiting" onClick={() => attempt(() => plotRestore(plannerStore, p.plot_id))}>
+                      Restore
                     </button>
                   ) : null}
                 </td>
@@ -127,7 +146,8 @@ export function PlotsPanel() {
                 </tr>
               ) : null}
             </Fragment>
-          ))}
+            );
+          })}
         </tbody>
       </table>
       </div>
@@ -137,7 +157,11 @@ export function PlotsPanel() {
           <ul className="plain-list decisions">
             {rejections.map((r) => (
               <li key={`${r.plot_id}-${r.at}`}>
-                {r.plot_id} rejected: {r.reason} → {r.replacement ? `${r.replacement} promoted` : 'no reserve left'} <span className="fine">({r.at.slice(0, 16).replace('T', ' ')})</span>
+                {r.plot_id} rejected: {r.reason} → {r.replacement ? `${r.replacement} promoted` : 'no reserve left'}
+                {r.at ? <span className="fine"> ({fieldTimeText(r.at)})</span> : null}{' '}
+                <button type="button" className="link" aria-label={`Restore plot ${r.plot_id} from the field decisions`} onClick={() => attempt(() => plotRestore(plannerStore, r.plot_id))}>
+                  Restore
+                </button>
               </li>
             ))}
           </ul>

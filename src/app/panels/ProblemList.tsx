@@ -1,3 +1,4 @@
+import { stratumNamesInText } from '../../core/stratumNamesInText';
 import type { Problem } from '../../core/types';
 import { plannerStore } from '../plannerStoreInstance';
 import { usePlanner } from '../usePlanner';
@@ -8,6 +9,7 @@ const NONE: Problem[] = [];
 export function ProblemList() {
   const problems = usePlanner((s) => s.analysis?.problems ?? NONE);
   const parts = usePlanner((s) => s.site.parts);
+  const strata = usePlanner((s) => s.site.strata);
   if (problems.length === 0) return <p className="fine">Checks: no problems found in the mapped strata.</p>;
   return (
     <div className="problems">
@@ -19,7 +21,7 @@ export function ProblemList() {
           return (
             // biome-ignore lint/suspicious/noArrayIndexKey: problems have no id of their own and the list is rebuilt whole.
             <li key={i} className={p.severity === 'error' ? 'problem' : 'caution-text'}>
-              <span className="sev">{p.severity === 'error' ? 'Error' : 'Warning'}:</span> {p.message}
+              <span className="sev">{p.severity === 'error' ? 'Error' : 'Warning'}:</span> {stratumNamesInText(p.message, strata)}
               {at ? (
                 <button
                   type="button"

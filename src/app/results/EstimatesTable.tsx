@@ -81,7 +81,7 @@ export function EstimatesTable({ report }: { report: EstimateReport }) {
       ) : null}
       {report.collapsed.length ? <p className="fine">Collapsed: {report.collapsed.join('; ')}.</p> : null}
       <details className="results-formulas">
-        <summary>Formulas used (Cochran, Sampling Techniques, 3rd ed. 1977, §5.4 and §5A; section numbers from memory)</summary>
+        <summary>Formulas used (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5)</summary>
         <ul>
           {report.formulas.map((f) => (
             <li key={f}>{f}</li>

@@ -14,7 +14,7 @@ export interface StratumMeanBar {
 
 /**
  * Per-stratum means with 95 % intervals: ȳ_h ± t(0.975, n_h − 1) × SE_h, SE_h with the stratum's
- * finite-population correction (Cochran 1977 §5.3, section number from memory), clipped to the
+ * finite-population correction (Cochran 1977, ch. 5), clipped to the
  * values the kind can take (0–100 for cover, 0–1 for presence, ≥ 0 for counts).
  */
 export function stratumMeanBars(report: EstimateReport): StratumMeanBar[] {

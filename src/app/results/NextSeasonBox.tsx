@@ -85,7 +85,7 @@ export function NextSeasonBox({ collection, onUseInDesign }: { collection: PlotC
             </tfoot>
           </table>
           <p className="fine">
-            Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes use z = 1.96 (Cochran 1977 §5.9–5.10, section numbers from memory).
+            Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes use z = 1.96 (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5).
           </p>
           <ul className="fine">
             {next.notes.map((n) => (

@@ -4,6 +4,7 @@ import { createRoot, type Root } from 'react-dom/client';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { DesignSettings } from '../../core/designTypes';
 import { plotCollectionInvented } from '../../core/plotCollectionInvented';
+import { plannerPlotsNamed } from '../../state/plotsNamed';
 import { recaptureGridSet, resultsClear, resultsLoad, resultsOptionsSet } from '../../state/resultsStore';
 import { ResultsPanel } from './ResultsPanel';
 import { resultsStore } from './resultsStoreInstance';
@@ -73,6 +74,25 @@ describe('ResultsPanel', () => {
     ]);
     expect(holder.querySelector('table[aria-label="Estimate of stems by stratum"]')).toBeNull();
     expect(holder.textContent).toContain('No estimate until the 1 error listed under Problems is fixed');
+  });
+
+  it('names a renamed stratum by its current name in the table, the chart and the problems, and cites without guessed sections', () => {
+    // The Results step is given the plots named as the planner shows them (plannerPlotsNamed).
+    const drawn = plotCollectionInvented([
+      { key: 'Coastal heath', code: 'HEA', primaries: 4, reserves: 1, mappedM2: 60_000, usableM2: 50_000 },
+      { key: 'Stratum 7', code: 'FAR', primaries: 3, reserves: 1, mappedM2: 40_000, usableM2: 30_000 },
+    ]);
+    const strata = [
+      { key: 'Coastal heath', label: 'Coastal heath', code: 'HEA', colour: '#cc6677' },
+      { key: 'Stratum 7', label: 'Farm paddock', code: 'FAR', colour: '#332288' },
+    ];
+    const named = plannerPlotsNamed({ result: drawn, site: { name: 'x', strata, parts: [], exclusions: [], access: [], boundary: null } })!;
+    act(() => root.render(<ResultsPanel collection={named} onUseInDesign={(p) => patches.push(p)} />));
+    act(() => resultsLoad(resultsStore, 'field.csv', CSV.replace(/SAL-/g, 'FAR-').replace('FAR-03;2;10;yes\n', ''), named));
+    expect(holder.textContent).toContain('Farm paddock');
+    expect(holder.textContent).not.toContain('Stratum 7');
+    expect(holder.textContent).toContain('primary FAR-03 has no row and no replacement (stratum "Farm paddock" is short by one plot)');
+    expect(holder.textContent).not.toMatch(/from memory|§/);
   });
 
   it('works out a recapture grid as it is typed', () => {

@@ -2,6 +2,7 @@ import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { InputError } from '../../core/InputError';
+import { plotRejections } from '../../core/plotFieldState';
 import type { Site } from '../../core/types';
 import { designOutputBytes } from '../../io/designOutput';
 import { parsePlotFile } from '../../io/parsePlotFile';
@@ -26,7 +27,10 @@ const FORMATS: Record<string, { ext: string; pdf?: 'report' | 'sheets'; what: st
 const USAGE = `stratplot export <plots.geojson> --format F --out FILE [options]
 
 Writes a design's plots (primaries and ranked reserves) for the field: GPS units, phones,
-desktop GIS, print.
+desktop GIS, print. Every file follows the field state recorded in the plot file (stratplot
+reject / restore): a rejected plot is struck out with its reason (GPX leaves it out and lists it in
+the file's description), a promoted reserve shows as the plot that replaces it, and the walking
+order on the field sheets runs over the plots to visit only.
 
   --format F          ${Object.keys(FORMATS).join(' | ')}
 ${Object.entries(FORMATS)
@@ -134,7 +138,10 @@ export const exportCommand: Command = {
     });
     await writeFile(resolve(io.cwd, out), bytes);
     const primaries = collection.features.filter((f) => f.properties.role === 'primary').length;
-    io.out(`wrote ${out} (${formatName.toLowerCase()}): ${primaries} primary and ${collection.features.length - primaries} reserve plots${site ? `, site "${site.name}"` : ''}\n`);
+    const decisions = plotRejections(collection);
+    const promoted = collection.features.filter((f) => f.properties.status === 'promoted').length;
+    const field = decisions.length ? ` (field decisions: ${decisions.length} rejected, ${promoted} reserve${promoted === 1 ? '' : 's'} promoted)` : '';
+    io.out(`wrote ${out} (${formatName.toLowerCase()}): ${primaries} primary and ${collection.features.length - primaries} reserve plots${field}${site ? `, site "${site.name}"` : ''}\n`);
     return 0;
   },
 };

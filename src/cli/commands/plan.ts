@@ -6,6 +6,7 @@ import { designSettingsDefault } from '../../core/designSettingsDefault';
 import type { DesignSettings, PlotCollection } from '../../core/designTypes';
 import { footprintParse } from '../../core/footprintParse';
 import { InputError } from '../../core/InputError';
+import { plotCollectionNamed } from '../../core/plotCollectionNamed';
 import { rngSeedFromClock } from '../../core/rng';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
 import type { CliIo, Command } from '../command';
@@ -192,17 +193,19 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     redistributeShortfall: o.redistribute ?? false,
   });
   const collection = designRun(site, settings);
-  const geojson = JSON.stringify(collection);
+  // The plot file names strata as people read them (current name and code), as every export does.
+  const named = plotCollectionNamed(collection, site.strata);
+  const geojson = JSON.stringify(named);
   if (o.out) {
     const lower = o.out.toLowerCase();
     const bytes = lower.endsWith('.geojson') || lower.endsWith('.json') ? geojson : await designOutputBytes(basename(o.out), collection, site);
     await writeFile(resolve(io.cwd, o.out), bytes);
   }
-  if (o.json) io.out(`${JSON.stringify(collection.design)}\n`);
-  else if (o.out) io.out(summaryTable(collection));
+  if (o.json) io.out(`${JSON.stringify(named.design)}\n`);
+  else if (o.out) io.out(summaryTable(named));
   else io.out(`${geojson}\n`);
   if (o.json && !o.out) io.err('note: with --json and no --out, no plot file was written\n');
-  for (const w of collection.design.warnings) if (!o.json && !o.out) io.err(`warning: ${w}\n`);
+  for (const w of named.design.warnings) if (!o.json && !o.out) io.err(`warning: ${w}\n`);
   return 0;
 }
 
