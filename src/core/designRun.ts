@@ -12,7 +12,7 @@ import { InputError } from './InputError';
 import { placementConstraintsBuild } from './placementConstraints';
 import { plotIdsFor } from './plotIds';
 import { plotRecord } from './plotRecord';
-import { rngCreate } from './rng';
+import { rngStreams, rngVersionOf, rngVersionText } from './rngStreams';
 import { sampleSizeForTarget } from './sampleSizeForTarget';
 import { siteLocalFrame } from './siteLocalFrame';
 import type { Site } from './types';
@@ -128,9 +128,10 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   tick();
   progress(0.3, 'placing');
   const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
-  const rng = rngCreate(settings.seed);
+  const rngVersion = rngVersionOf(settings);
+  const streams = rngStreams(settings.seed, rngVersion);
   let ticks = 0;
-  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, rng, {
+  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, streams, {
     tick: () => {
       tick();
       if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
@@ -173,12 +174,18 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     capacity: placement.capacity[i],
   }));
   const statements = [...designStatements(settings, constraints.convergenceDeg), ...placement.statements, ...extraStatements];
+  statements.push(`Seed ${settings.seed}, ${rngVersionText(rngVersion)}.`);
+  if (rngVersion === 1) {
+    warnings.push(
+      'Made with random generator version 1, as plans saved before version 2 were: the plots are reproduced exactly, but designs from neighbouring seeds are correlated. Switch to version 2 for a new design.',
+    );
+  }
   progress(1, 'done');
   return {
     type: 'FeatureCollection',
     features,
     design: {
-      settings: { ...settings },
+      settings: { ...settings, rngVersion },
       seed: settings.seed,
       crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
       allocation: rows,

@@ -16,7 +16,7 @@ function wholeNonNegative(v: number, what: string): void {
  * Checks every design setting that does not depend on the map, so an impossible request fails
  * before any work with a message naming the setting: counts whole and ≥ 0, distances ≥ 0, known
  * allocation and placement methods, what each method needs (Neyman → SDs, relative target → pilot
- * mean, transect → baseline and intervals), and the seed.
+ * mean, transect → baseline and intervals), and the seed and random generator version.
  * Throws InputError for the first problem found.
  */
 export function designSettingsCheck(s: DesignSettings): void {
@@ -29,6 +29,9 @@ export function designSettingsCheck(s: DesignSettings): void {
   nonNegative(s.spacingM, 'minimum spacing (m)');
   nonNegative(s.edgeBufferM, 'edge buffer (m)');
   if (!Number.isFinite(s.seed)) throw new InputError(`seed must be a number, got ${s.seed}`);
+  if (s.rngVersion !== undefined && s.rngVersion !== 1 && s.rngVersion !== 2) {
+    throw new InputError(`random generator version must be 1 or 2, got ${String(s.rngVersion)}`);
+  }
   if (!Number.isFinite(s.gridAngleDeg)) throw new InputError(`grid angle must be a number of degrees, got ${s.gridAngleDeg}`);
   for (const [key, v] of Object.entries(s.sd)) nonNegative(v, `pilot standard deviation of stratum "${key}"`);
   for (const [key, v] of Object.entries(s.cost)) {

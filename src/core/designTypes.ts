@@ -1,5 +1,6 @@
 import type { FeatureCollection, Point } from 'geojson';
 import type { ResultKind } from './resultsCellParse';
+import type { RngVersion } from './rng';
 import type { ExclusionKind, Site } from './types';
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
@@ -39,6 +40,11 @@ export interface DesignSettings {
   transectIntervalM: number | null;
   quadratIntervalM: number | null;
   seed: number;
+  /**
+   * Which random streams turn the seed into plots (see `RngVersion`). Absent in plans and plot files
+   * saved before it was recorded: those were made with version 1, and are made again with it.
+   */
+  rngVersion?: RngVersion;
   /** When a stratum cannot hold its plots, move the shortfall to strata with room (proportionally). */
   redistributeShortfall?: boolean;
 }

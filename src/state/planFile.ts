@@ -43,8 +43,10 @@ function siteCheck(site: unknown, fileName: string): Site {
 }
 
 /**
- * Reads a plan file's text. Throws InputError naming the file when it is not JSON, not a
- * stratplot plan, of a newer version than this program reads, or missing its site or design.
+ * Reads a plan file's text. A plan saved before random generator versions were recorded gets
+ * version 1, the streams it was made with, so running its design again gives the same plots.
+ * Throws InputError naming the file when it is not JSON, not a stratplot plan, of a newer version
+ * than this program reads, or missing its site or design.
  */
 export function planFileParse(text: string, fileName: string): PlanFile {
   let data: unknown;
@@ -67,7 +69,7 @@ export function planFileParse(text: string, fileName: string): PlanFile {
     version: 1,
     savedAt: typeof data.savedAt === 'string' ? data.savedAt : '',
     site,
-    design: data.design as unknown as DesignSettings,
+    design: { ...(data.design as unknown as DesignSettings), rngVersion: (data.design.rngVersion as DesignSettings['rngVersion']) ?? 1 },
     result: result as PlanFile['result'],
     rejections: rejections as PlanFile['rejections'],
     ...(results ? { results } : {}),

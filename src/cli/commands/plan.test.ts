@@ -83,6 +83,19 @@ describe('stratplot plan', () => {
     expect(bad.err).toMatch(/--out x.xyz: unknown format; use one of .geojson/);
   });
 
+  it('says which random generator made the design, and makes version-1 designs on request', async () => {
+    const base = ['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '12', '--seed', '3', '--json'];
+    const now = JSON.parse((await cli(base)).out);
+    expect(now.settings.rngVersion).toBe(2);
+    expect(now.statements.join(' ')).toContain('Seed 3, random generator version 2');
+    const old = JSON.parse((await cli([...base, '--rng-version', '1'])).out);
+    expect(old.settings.rngVersion).toBe(1);
+    expect(old.warnings.join(' ')).toContain('random generator version 1');
+    const bad = await cli([...base, '--rng-version', '3']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toBe('stratplot plan: --rng-version needs 1 or 2, got "3"\n');
+  });
+
   it('refuses strata that cross themselves, naming the feature', async () => {
     const r = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--plots', '4', '--min-per-stratum', '0', '--seed', '1']);
     expect(r.code).toBe(2);

@@ -6,7 +6,8 @@ import { designSettingsDefault } from '../../core/designSettingsDefault';
 import type { DesignSettings, PlotCollection } from '../../core/designTypes';
 import { footprintParse } from '../../core/footprintParse';
 import { InputError } from '../../core/InputError';
-import { rngSeedFromClock } from '../../core/rng';
+import { RNG_VERSION_CURRENT, rngSeedFromClock } from '../../core/rng';
+import { rngVersionOf, rngVersionText } from '../../core/rngStreams';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOtherFile } from '../importFlags';
@@ -48,6 +49,8 @@ Placement:
   --transect-interval M     transect method: metres between transects
   --quadrat-interval M      transect method: metres between quadrats along a transect
   --seed S                  random seed (default: from the clock, printed to stderr)
+  --rng-version V           random generator version: 2 (default), or 1 to make again a design
+                            saved before version 2 (its plot file records no version)
 Output:
   --out FILE                write the design; the extension picks the format:
 ${Object.entries(DESIGN_OUTPUT_FORMATS)
@@ -72,6 +75,12 @@ function wholeOption(v: string | undefined, name: string): number | undefined {
   const x = numberOption(v, name);
   if (x !== undefined && !(Number.isInteger(x) && x >= 0)) throw new InputError(`${name} needs a whole number ≥ 0, got "${v}"`);
   return x;
+}
+
+function rngVersionOption(v: string | undefined): 1 | 2 {
+  if (v === undefined) return RNG_VERSION_CURRENT;
+  if (v === '1' || v === '2') return Number(v) as 1 | 2;
+  throw new InputError(`--rng-version needs 1 or 2, got "${v}"`);
 }
 
 /** Reads "KEY=V,KEY=V" (a key may hold spaces; the value follows the last "="). */
@@ -113,7 +122,12 @@ function summaryTable(c: PlotCollection): string {
   ]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
   const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
-  const lines = [fmt(head), ...rows.map(fmt), '', `CRS: WGS84 / UTM zone ${c.design.crs.utm_zone} (EPSG:${c.design.crs.epsg}); seed ${c.design.seed}`];
+  const lines = [
+    fmt(head),
+    ...rows.map(fmt),
+    '',
+    `CRS: WGS84 / UTM zone ${c.design.crs.utm_zone} (EPSG:${c.design.crs.epsg}); seed ${c.design.seed}, ${rngVersionText(rngVersionOf(c.design.settings))}`,
+  ];
   if (c.design.warnings.length) lines.push('', 'Warnings:', ...c.design.warnings.map((w) => `  - ${w}`));
   lines.push('', ...c.design.statements.map((s) => `* ${s}`), '');
   return lines.join('\n');
@@ -189,6 +203,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     transectIntervalM: numberOption(o['transect-interval'], '--transect-interval') ?? null,
     quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval') ?? null,
     seed,
+    rngVersion: rngVersionOption(o['rng-version']),
     redistributeShortfall: o.redistribute ?? false,
   });
   const collection = designRun(site, settings);
@@ -237,6 +252,7 @@ function parse(argv: string[]) {
       'quadrat-interval': { type: 'string' },
       redistribute: { type: 'boolean' },
       seed: { type: 'string' },
+      'rng-version': { type: 'string' },
       out: { type: 'string' },
       json: { type: 'boolean' },
       ...IMPORT_FLAG_SPECS,
