@@ -112,7 +112,7 @@ describe('resultsStore', () => {
     expect(s.loadError).toBe('broken.csv row 2: 3 fields, but the header has 2');
   });
 
-  it('collapses a one-plot stratum and lends its group’s SD to next season’s Neyman sizes', () => {
+  it('collapses a one-plot stratum for the variance and lends its group’s pooled SD to next season’s Neyman sizes', () => {
     const store = resultsStoreCreate();
     const csv = 'plot_id,height\nHEA-01,12\nHEA-02,15\nHEA-03,14\nHEA-04,18\nSAL-01,5\nSAL-02,7\nSAL-03,6\nDUN-01,30\n';
     resultsLoad(store, 'h.csv', csv, small);
@@ -120,7 +120,7 @@ describe('resultsStore', () => {
     expect(store.getState().nextError).toContain('Dune');
     resultsOptionsSet(store, { collapse: true, target: { value: 1, relative: false } }, small);
     const s = store.getState();
-    expect(s.report?.collapsed).toEqual(['Dune (n = 1) merged with Saltmarsh']);
+    expect(s.report?.collapsed).toEqual(['Saltmarsh (n = 3) + Dune (n = 1)']);
     expect(s.report?.se).not.toBeNull();
     // Saltmarsh + Dune pooled: 5, 7, 6, 30 → sample SD by hand √(((−7)² + (−5)² + (−6)² + 18²)/3) = √(434/3).
     expect(s.nextSd.Dune).toBeCloseTo(Math.sqrt(434 / 3), 12);

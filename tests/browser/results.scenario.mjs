@@ -124,9 +124,14 @@ export const RESULTS_SCENARIO = {
       await page.setInputFiles('input[data-import="results"]', { name: 'invented-results-short.csv', mimeType: 'text/csv', buffer: Buffer.from(shortCsv) });
       await page.waitForSelector(`tr[data-stratum="${lone[0].stratum}"] .results-flag`);
       check((await page.locator('td[data-cell="se"]').textContent()) === '–', 'an SE is shown although a stratum has one plot');
-      await page.getByLabel('Collapse strata with fewer than 2 plots for the variance').check();
+      const meanBefore = await page.locator('td[data-cell="mean"]').textContent();
+      await page.getByLabel('Collapse strata with one plot for the variance (the mean keeps every stratum)').check();
       await page.waitForFunction(() => document.querySelector('td[data-cell="se"]')?.textContent !== '–');
-      await page.locator('.results-formulas').scrollIntoViewIfNeeded();
+      // Collapsing replaces only the variance (Cochran 1977 §5A.12): the mean stays, the groups are named.
+      check((await page.locator('td[data-cell="mean"]').textContent()) === meanBefore, 'collapsing changed the stratified mean');
+      const note = (await page.locator('[data-fact="collapsed"]').textContent()) ?? '';
+      check(note.includes(lone[0].stratum) && note.includes('conservative'), `the collapsed-strata note reads "${note}"`);
+      await page.locator('[data-fact="collapsed"]').scrollIntoViewIfNeeded();
       await shot('results-collapsed');
     }
   },
