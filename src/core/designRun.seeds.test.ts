@@ -1,5 +1,3 @@
-import { readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { booleanPointInPolygon, polygon as turfPolygon } from '@turf/turf';
 import geodesic from 'geographiclib-geodesic';
 import type { Feature, FeatureCollection, MultiPolygon, Position } from 'geojson';
@@ -9,11 +7,12 @@ import { designRun } from './designRun';
 import { designSettingsDefault } from './designSettingsDefault';
 import type { RngVersion } from './rng';
 import type { Site } from './types';
+import strataText from '../../demo-maps/ochre-spit-strata.geojson?raw';
 
 // The invented demo's Dune grassland: one stratum of two patches (a MultiPolygon), here on its own
 // and without exclusions, so a simple random point plot falls in a patch with probability equal to
 // the patch's share of the stratum's area.
-const strataFile = JSON.parse(readFileSync(resolve(import.meta.dirname, '../../demo-maps/ochre-spit-strata.geojson'), 'utf8')) as FeatureCollection;
+const strataFile = JSON.parse(strataText) as FeatureCollection;
 const dune = strataFile.features.find((f) => f.properties?.stratum === 'Dune grassland') as Feature<MultiPolygon>;
 const site: Site = {
   name: 'Dune grassland of the Ochre Spit demo (invented)',
