@@ -17,6 +17,7 @@ export function designSettingsDefault(overrides: Partial<DesignSettings> = {}): 
     sd: {},
     cost: {},
     targetHalfwidth: null,
+    budget: null,
     pilotMean: null,
     spacingM: 0,
     footprint: { shape: 'point' },

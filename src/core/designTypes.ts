@@ -16,15 +16,20 @@ export type ShareBasis = 'usable' | 'mapped';
 
 /** Every setting of a design; stored in the plan file and in the `design` member of plot files. */
 export interface DesignSettings {
-  /** Total primary plots; ignored when `targetHalfwidth` is set (then the size is computed). */
+  /** Total primary plots; ignored when `targetHalfwidth` or `budget` is set (then the size is computed). */
   plots: number;
   allocation: AllocationMethod;
   shareBasis: ShareBasis;
   minPerStratum: number;
   /** Pilot standard deviations by stratum key (Neyman and target precision). */
   sd: Record<string, number>;
-  /** Relative cost per plot by stratum key (Neyman); 1 when absent. */
+  /** Cost per plot by stratum key: relative for Neyman, in the budget's units with `budget`; 1 when absent. */
   cost: Record<string, number>;
+  /**
+   * Size the design by a budget: total C and fixed overhead c0 (same units as `cost`); the design is
+   * the largest whose plots cost at most C − c0. Absent or null: sized by `plots` or the target.
+   */
+  budget?: { total: number; overhead: number } | null;
   /** Target half-width of the 95 % CI of the stratified mean: absolute, or relative to `pilotMean`. */
   targetHalfwidth: { value: number; relative: boolean } | null;
   pilotMean: number | null;

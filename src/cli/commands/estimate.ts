@@ -78,9 +78,11 @@ function printNext(next: NextSeasonSampleSize | string, io: CliIo): void {
     io.out(`${next}\n`);
     return;
   }
-  const lines = [`Next season, for a 95 % CI half-width of ${next.targetHalfwidth.toFixed(4)} (Cochran 1977 ch. 5, z = 1.96):`];
+  const lines = [`Next season, for a 95 % CI half-width of ${next.targetHalfwidth.toFixed(4)} (Cochran 1977 ch. 5; t on the Satterthwaite df):`];
   for (const o of [next.proportional, next.neyman]) {
-    lines.push(`  ${o.allocation.padEnd(12)} ${String(o.n).padStart(5)} plots: ${o.plots.map((p) => `${p.stratum} ${p.plots}`).join(', ')}`);
+    lines.push(
+      `  ${o.allocation.padEnd(12)} ${String(o.n).padStart(5)} plots: ${o.plots.map((p) => `${p.stratum} ${p.plots}`).join(', ')} (expected half-width ${o.halfwidth.toFixed(4)}${o.df === null ? '' : `, ${o.df.toFixed(1)} df`})`,
+    );
   }
   lines.push(...next.notes.map((n) => `  - ${n}`), '');
   io.out(lines.join('\n'));

@@ -27,10 +27,14 @@ Allocation:
   --share-basis B           usable | mapped: area the shares follow (default usable)
   --min-per-stratum K       at least K plots in every stratum (default 2)
   --sd KEY=V,...            pilot standard deviations by stratum (neyman, target)
-  --cost KEY=V,...          relative cost per plot by stratum (neyman; default 1)
+  --cost KEY=V,...          cost per plot by stratum: relative for neyman, in the budget's units
+                            with --budget (default 1)
   --target-halfwidth X[%]   size the design for a 95 % CI half-width X of the stratified mean
                             (X% = relative to --pilot-mean)
   --pilot-mean M            pilot mean, for a relative target
+  --budget C                size the design by a budget: the largest design whose plots cost at
+                            most C less the overhead (neyman with --cost: the cost-optimum)
+  --overhead C0             fixed cost of the survey whatever the number of plots (default 0)
   --redistribute            move plots a full stratum cannot hold to strata with room
 Placement:
   --exclude FILE            exclusions (cliff, water, private, hazard, other); repeat for more files
@@ -171,11 +175,14 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     targetHalfwidth = { value: relative ? value / 100 : value, relative };
   }
   const plots = wholeOption(o.plots, '--plots');
+  const budgetTotal = numberOption(o.budget, '--budget');
+  if (o.overhead !== undefined && budgetTotal === undefined) throw new InputError('--overhead needs --budget C');
+  const budget = budgetTotal === undefined ? null : { total: budgetTotal, overhead: numberOption(o.overhead, '--overhead') ?? 0 };
   const method = o.method ?? 'random';
   const sizedByLayout = method === 'transect' || (method === 'grid' && o['grid-spacing'] !== undefined);
-  if (plots === undefined && !targetHalfwidth && !sizedByLayout) {
+  if (plots === undefined && !targetHalfwidth && !budget && !sizedByLayout) {
     throw new InputError(
-      method === 'grid' ? 'give --plots N or --grid-spacing M for a grid design' : 'give --plots N (or --target-halfwidth X to size the design)',
+      method === 'grid' ? 'give --plots N or --grid-spacing M for a grid design' : 'give --plots N (or --target-halfwidth X or --budget C to size the design)',
     );
   }
   let seed = numberOption(o.seed, '--seed');
@@ -191,6 +198,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     sd: keyValues(o.sd, '--sd', keys),
     cost: keyValues(o.cost, '--cost', keys),
     targetHalfwidth,
+    budget,
     pilotMean: numberOption(o['pilot-mean'], '--pilot-mean') ?? null,
     spacingM: numberOption(o.spacing, '--spacing') ?? 0,
     footprint: footprintParse(o.footprint ?? 'point', '--footprint'),
@@ -240,6 +248,8 @@ function parse(argv: string[]) {
       cost: { type: 'string' },
       'target-halfwidth': { type: 'string' },
       'pilot-mean': { type: 'string' },
+      budget: { type: 'string' },
+      overhead: { type: 'string' },
       spacing: { type: 'string' },
       footprint: { type: 'string' },
       'edge-buffer': { type: 'string' },
