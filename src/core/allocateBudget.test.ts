@@ -17,7 +17,9 @@ describe('allocateBudget', () => {
       minPerStratum: 0,
     });
     const book = [30.605403, 9.728474, 19.989127, 4.499121, 13.711619, 40.340301];
-    r.quotas.forEach((q, i) => expect(q).toBeCloseTo(book[i], 5));
+    r.quotas.forEach((q, i) => {
+      expect(q).toBeCloseTo(book[i], 5);
+    });
     // Their sum, n = 118.874045 (computed from the book's n_h).
     expect(r.formulaN).toBeCloseTo(118.874045, 5);
     // Whole plots, by hand: 118 × the shares = 30.380, 9.657, 19.842, 4.466, 13.611, 40.044; floors
@@ -37,7 +39,9 @@ describe('allocateBudget', () => {
     // 153 → 69, 56, 28 costs 808 > 800, as do 154 (70, 56, 28: 812) and 155 (71, 56, 28: 816).
     const r = allocateBudget({ keys: ['a', 'b', 'c'], weights: [2.5, 2, 1], costPerPlot: [4, 9, 1], total: 1000, overhead: 200, minPerStratum: 2 });
     expect(r.formulaN).toBeCloseTo(151.7241379, 6);
-    r.quotas.forEach((q, i) => expect(q).toBeCloseTo([68.9655172, 55.1724138, 27.5862069][i], 6));
+    r.quotas.forEach((q, i) => {
+      expect(q).toBeCloseTo([68.9655172, 55.1724138, 27.5862069][i], 6);
+    });
     expect(r.n).toBe(152);
     expect(r.plots).toEqual([69, 55, 28]);
     expect(r.plotsCost).toBe(799);
