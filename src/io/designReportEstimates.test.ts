@@ -21,7 +21,7 @@ describe('designReportEstimates', () => {
       report.strata.map((s) => ({ stratum: s.stratum, basisM2: s.basis_m2, sd: s.sd })),
       { target: { value: 0.2, relative: true }, observedMean: report.mean, plotAreaM2: 100 },
     );
-    // Krebs 1989 Box 2.1 (REFERENCES §4): M 948, n 421, m 167 → Chapman 2382.80.
+    // Krebs 1989 Box 2.1 (docs/references.md §4): M 948, n 421, m 167 → Chapman 2382.80.
     const grids = [{ name: 'North grid', estimate: recaptureEstimate({ marked: 948, caught: 421, recaptured: 167 }) }];
     const tables = designReportEstimates(report, next, grids);
     expect(reportTablesParse(tables)).toHaveLength(3);

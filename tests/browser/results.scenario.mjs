@@ -110,7 +110,7 @@ export const RESULTS_SCENARIO = {
     await page.getByLabel('Marked M for Grid 1').fill('948');
     await page.getByLabel('Caught n for Grid 1').fill('421');
     await page.getByLabel('Recaptured m for Grid 1').fill('167');
-    // Krebs 1989 Box 2.1 (REFERENCES §4): Chapman 2382.80, SE 129.06.
+    // Krebs 1989 Box 2.1 (docs/references.md §4): Chapman 2382.80, SE 129.06.
     const chapman = await page.locator('dd[data-fact="chapman"]').textContent();
     check(chapman === '2,383', `Chapman shows ${chapman}, Krebs gives 2382.80`);
     await page.locator('dd[data-fact="chapman"]').scrollIntoViewIfNeeded();

@@ -10,7 +10,7 @@ async function run(argv: string[]) {
 
 describe('stratplot recapture', () => {
   it('reproduces Krebs (1989) Box 2.1 as JSON', async () => {
-    // Krebs, Ecological Methodology, 1989, Box 2.1 (REFERENCES.md §4): Chapman 2382.80, SE 129.06.
+    // Krebs, Ecological Methodology, 1989, Box 2.1 (docs/references.md §4): Chapman 2382.80, SE 129.06.
     const r = await run(['recapture', '--marked', '948', '--caught', '421', '--recaptured', '167', '--json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
