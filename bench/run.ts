@@ -11,7 +11,8 @@ import { designUsableAreas } from '../src/core/designUsableAreas';
 import { designSettingsDefault } from '../src/core/designSettingsDefault';
 import { geodesicRingAreaM2 } from '../src/core/geodesicRingAreaM2';
 import { placementConstraintsBuild } from '../src/core/placementConstraints';
-import { rngCreate } from '../src/core/rng';
+import { RNG_VERSION_CURRENT, rngCreate } from '../src/core/rng';
+import { rngStreams } from '../src/core/rngStreams';
 import { siteLocalFrame } from '../src/core/siteLocalFrame';
 import { polygonSelfIntersections } from '../src/core/polygonSelfIntersections';
 import { siteValidate } from '../src/core/siteValidate';
@@ -54,7 +55,7 @@ function enginePlace(site: Site, plots: number, spacingM: number, sideM: number,
   const h = site.strata.length;
   const wanted = site.strata.map((_, i) => Math.floor(plots / h) + (i < plots % h ? 1 : 0));
   const settings = designSettingsDefault({ plots, spacingM, footprint: { shape: 'square', sideM, angleDeg: 0 }, seed });
-  const p = designPlace(c, settings, wanted, wanted, wanted, rngCreate(seed), {});
+  const p = designPlace(c, settings, wanted, wanted, wanted, rngStreams(seed, RNG_VERSION_CURRENT), {});
   for (let i = 0; i < p.placed.x.length; i++) sink += p.placed.x[i] * 1e-9;
   return p.placed.x.length;
 }

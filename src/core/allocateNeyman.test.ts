@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { allocateNeyman } from './allocateNeyman';
 
 // Valliant, Dever & Kreuter, Practical Tools for Designing and Weighting Survey Samples, 2nd ed.
-// 2018, ch. 3 (Neyman and cost-constrained allocation example; REFERENCES.md §3, rows V, R).
+// 2018, ch. 3 (Neyman and cost-constrained allocation example; docs/references.md §3).
 const N_H = [215, 65, 252, 50, 149, 144];
 const S_H = [26787207, 10645109, 6909676, 11085034, 9817762, 44553355];
 const KEYS = ['s1', 's2', 's3', 's4', 's5', 's6'];

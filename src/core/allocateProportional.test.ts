@@ -6,7 +6,7 @@ import { allocateProportional } from './allocateProportional';
 
 describe('allocateProportional', () => {
   it('rounds Levy & Lemeshow strata (1999, 3rd ed., pp. 176–178) of 600, 500, 400 units for n = 558 to 223, 186, 149', () => {
-    // Book: n = 558.17 shared proportionally → 223, 186, 149 (REFERENCES.md §3, row V, R).
+    // Book: n = 558.17 shared proportionally → 223, 186, 149 (docs/references.md §3).
     const r = allocateProportional(
       [
         { key: 'a', basisM2: 600 },

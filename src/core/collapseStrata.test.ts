@@ -1,38 +1,36 @@
 import { describe, expect, it } from 'vitest';
 import { collapseStrata } from './collapseStrata';
 
-const s = (stratum: string, values: number[], basisM2 = 1) => ({ stratum, basisM2, values });
+const c = (stratum: string, n: number) => ({ stratum, n });
 
 describe('collapseStrata', () => {
   it('leaves strata with at least two observations alone', () => {
-    const r = collapseStrata([s('a', [1, 2]), s('b', [3, 4])]);
-    expect(r.strata.map((g) => g.stratum)).toEqual(['a', 'b']);
+    const r = collapseStrata([c('a', 2), c('b', 5)]);
+    expect(r.groups).toEqual([]);
     expect(r.merged).toEqual([]);
   });
 
-  it('merges a single-plot stratum with the next one in list order', () => {
-    const r = collapseStrata([s('a', [1, 2]), s('b', [5], 2), s('c', [7, 8], 3)]);
-    expect(r.strata.map((g) => g.stratum)).toEqual(['a', 'b + c']);
-    expect(r.strata[1].basisM2).toBe(5);
-    expect(r.strata[1].values).toEqual([5, 7, 8]);
-    expect(r.strata[1].members).toEqual(['b', 'c']);
-    expect(r.merged[0]).toBe('b (n = 1) merged with c');
+  it('groups a single-plot stratum with the next one in list order', () => {
+    const r = collapseStrata([c('a', 2), c('b', 1), c('c', 2)]);
+    expect(r.groups).toEqual([{ indices: [1, 2], strata: ['b', 'c'] }]);
+    expect(r.merged).toEqual(['b (n = 1) + c (n = 2)']);
   });
 
-  it('merges the last stratum with the previous one', () => {
-    const r = collapseStrata([s('a', [1, 2]), s('b', [3, 4]), s('c', [])]);
-    expect(r.strata.map((g) => g.stratum)).toEqual(['a', 'b + c']);
+  it('groups the last stratum with the previous one', () => {
+    const r = collapseStrata([c('a', 2), c('b', 3), c('c', 1)]);
+    expect(r.groups).toEqual([{ indices: [1, 2], strata: ['b', 'c'] }]);
   });
 
-  it('keeps merging until every stratum has two observations', () => {
-    const r = collapseStrata([s('a', [1]), s('b', []), s('c', [2]), s('d', [3, 4])]);
-    expect(r.strata.every((g) => g.values.length >= 2)).toBe(true);
-    expect(r.strata.flatMap((g) => g.members)).toEqual(['a', 'b', 'c', 'd']);
+  it('pairs two single-plot neighbours, the textbook case of one unit per stratum', () => {
+    const r = collapseStrata([c('a', 1), c('b', 1), c('c', 1), c('d', 1)]);
+    expect(r.groups.map((g) => g.strata)).toEqual([
+      ['a', 'b'],
+      ['c', 'd'],
+    ]);
   });
 
-  it('does not change its input', () => {
-    const input = [s('a', [1]), s('b', [2, 3])];
-    collapseStrata(input);
-    expect(input[0].values).toEqual([1]);
+  it('skips strata without observations: collapsing gives them no mean', () => {
+    const r = collapseStrata([c('a', 1), c('b', 0), c('c', 4)]);
+    expect(r.groups.map((g) => g.strata)).toEqual([['a', 'c']]);
   });
 });

@@ -1,49 +1,42 @@
-/** The observations of one stratum, before or after collapsing. */
-export interface StratumValues {
+/** How many observations one stratum has, in the design's list order. */
+export interface StratumCount {
   stratum: string;
-  /** Basis area, m². */
-  basisM2: number;
-  values: number[];
-  /** Original strata merged into this one (just itself when not collapsed). */
-  members?: string[];
+  n: number;
 }
 
-/** The rule, in words, for reports and the CLI. */
+/** Strata collapsed together for the variance: indices into the list, in list order. */
+export interface CollapsedGroup {
+  indices: number[];
+  strata: string[];
+}
+
+/** The grouping rule, in words, for reports and the CLI. */
 export const COLLAPSE_RULE =
-  'a stratum with fewer than 2 observations is merged with the next stratum in the list order of the design (the previous one when it is last), repeated until every stratum has at least 2; a merged stratum has the summed area, and its mean and variance are those of its pooled plots';
+  'a stratum with only one observation is grouped with the next stratum in the design’s list order that has observations (the previous one when none follows), and a group is extended the same way until it holds at least 2 observations; the stratified mean still weights every original stratum by its own area, and only the variance of each group is replaced by the collapsed-strata (between-strata) estimator, which is conservative: differences between the grouped strata’s means count as sampling error, so the SE tends to be too large rather than too small';
 
 /**
- * Collapses strata that have fewer than 2 observations so that every stratum's variance can be
- * estimated. Partners are chosen by list order, which is fixed before the data are seen — the
- * condition Cochran (Sampling Techniques, 3rd ed. 1977, §5A.12 "collapsed strata", section number
- * from memory) sets for grouping strata; a choice by nearest observed mean would make the variance
- * look smaller than it is. Pooling the plots of merged strata treats them as one stratum; the
- * resulting variance tends to overstate, not understate, the true one when the merged strata differ.
- * @param strata in the design's list order
- * @returns new strata (inputs are not changed); `members` lists what each one holds
+ * Groups strata with a single observation so that their variance can be estimated by the
+ * collapsed-strata technique. Partners are chosen by list order, which is fixed before the data are
+ * seen — the condition Cochran (Sampling Techniques, 3rd ed. 1977, §5A.12, section number from
+ * memory) sets for forming the groups; a choice by nearest observed mean would make the variance look
+ * smaller than it is. Strata without observations are left out (no technique gives them a mean).
+ * @param strata observation counts in the design's list order
+ * @returns the groups of two or more strata (strata not listed keep their own variance) and one line
+ *   per group saying what was grouped
  */
-export function collapseStrata(strata: readonly StratumValues[]): { strata: StratumValues[]; merged: string[] } {
-  const groups: StratumValues[] = strata.map((s) => ({
-    stratum: s.stratum,
-    basisM2: s.basisM2,
-    values: [...s.values],
-    members: s.members ? [...s.members] : [s.stratum],
-  }));
-  const merged: string[] = [];
-  while (groups.length > 1) {
-    const i = groups.findIndex((g) => g.values.length < 2);
-    if (i < 0) break;
-    const j = i < groups.length - 1 ? i + 1 : i - 1;
-    const [first, second] = i < j ? [groups[i], groups[j]] : [groups[j], groups[i]];
-    const members = [...(first.members ?? []), ...(second.members ?? [])];
-    const joined: StratumValues = {
-      stratum: members.join(' + '),
-      basisM2: first.basisM2 + second.basisM2,
-      values: [...first.values, ...second.values],
-      members,
-    };
-    merged.push(`${groups[i].stratum} (n = ${groups[i].values.length}) merged with ${groups[j].stratum}`);
-    groups.splice(Math.min(i, j), 2, joined);
+export function collapseStrata(strata: readonly StratumCount[]): { groups: CollapsedGroup[]; merged: string[] } {
+  const observed = strata.map((s, i) => ({ i, n: s.n })).filter((s) => s.n > 0);
+  const blocks = observed.map((s) => ({ indices: [s.i], n: s.n }));
+  while (blocks.length > 1) {
+    const k = blocks.findIndex((b) => b.n < 2);
+    if (k < 0) break;
+    const j = k < blocks.length - 1 ? k + 1 : k - 1;
+    const [first, second] = k < j ? [blocks[k], blocks[j]] : [blocks[j], blocks[k]];
+    blocks.splice(Math.min(k, j), 2, { indices: [...first.indices, ...second.indices], n: first.n + second.n });
   }
-  return { strata: groups, merged };
+  const groups = blocks
+    .filter((b) => b.indices.length > 1)
+    .map((b) => ({ indices: b.indices, strata: b.indices.map((i) => strata[i].stratum) }));
+  const merged = groups.map((g) => g.indices.map((i) => `${strata[i].stratum} (n = ${strata[i].n})`).join(' + '));
+  return { groups, merged };
 }

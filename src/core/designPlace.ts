@@ -7,7 +7,7 @@ import { type CandidateSource, type PlacedPlots, type PlacementHooks, type Place
 import { plotsPlaceRandom } from './plotsPlaceRandom';
 import { PlotSpacingHash } from './plotSpacingHash';
 import { plotsPlaceTransect, transectLayoutRandom } from './plotsPlaceTransect';
-import type { Rng } from './rng';
+import type { RngStreams } from './rngStreams';
 
 /** Plots of a whole design, with what each stratum could hold. */
 export interface DesignPlacement {
@@ -34,7 +34,9 @@ function droppedWords(t: { excluded: number; nearEdge: number; tooClose: number 
  * shortfall is reported and, with `redistributeShortfall`, shared among the strata with room in
  * proportion to `weights` (largest remainder), repeatedly until placed or no stratum has room.
  * Grid and transect designs keep every position that fits. Reserves come after all primaries, by the
- * same process (random order for grid and transect: the offset positions shuffled).
+ * same process (random order for grid and transect: the offset positions shuffled). Each random
+ * step draws from its own stream of `streams`: one per stratum for random and balanced placement and
+ * for the reserve order, one for a grid's origin or the transects' start.
  * @param wanted primaries per stratum (ignored for grid and transect)
  * @param weights allocation weights per stratum, for sharing a shortfall
  * @param plotsHint total plots asked for, to choose a grid spacing when none is given
@@ -47,7 +49,7 @@ export function designPlace(
   wanted: readonly number[],
   weights: readonly number[],
   basisM2: readonly number[],
-  rng: Rng,
+  streams: RngStreams,
   hooks: PlacementHooks,
 ): DesignPlacement {
   const h = c.strata.length;
@@ -78,21 +80,23 @@ export function designPlace(
     const total = basisM2.reduce((a, b) => a + b, 0);
     const spacingM = s.gridSpacingM ?? Math.round(Math.sqrt(total / Math.max(1, s.plots)) * 10) / 10;
     if (s.gridSpacingM === null) statements.push(`Grid spacing ${spacingM} m was chosen to give about ${s.plots} plots over the basis area.`);
-    const layout = gridLayoutRandom(c, spacingM, s.gridAngleDeg, rng);
+    const layout = gridLayoutRandom(c, spacingM, s.gridAngleDeg, streams.stream('grid-origin'));
     statements.push(
       `Systematic grid: ${spacingM} m spacing, random origin, lines turned ${s.gridAngleDeg}° clockwise from true north; reserves are cell centres (half a cell across) in random order.`,
     );
     primarySource = (i) => plotsPlaceGrid(c, i, layout, null);
-    reserveSource = (i) => plotsPlaceGrid(c, i, layout, { rng });
+    reserveSource = (i) => plotsPlaceGrid(c, i, layout, { rng: streams.stream('grid-reserves', i) });
   } else if (s.method === 'transect') {
-    const layout = transectLayoutRandom(c, s.baseline!, s.transectIntervalM!, s.quadratIntervalM!, rng);
+    const layout = transectLayoutRandom(c, s.baseline!, s.transectIntervalM!, s.quadratIntervalM!, streams.stream('transect-start'));
     statements.push(
       `Transects run perpendicular to the baseline every ${s.transectIntervalM} m from a random start, with quadrats every ${s.quadratIntervalM} m; chainage is metres from the baseline, positive to the left of its direction and negative to the right. Reserves lie midway between quadrats, in random order.`,
     );
     primarySource = (i) => plotsPlaceTransect(c, i, layout, null);
-    reserveSource = (i) => plotsPlaceTransect(c, i, layout, { rng });
+    reserveSource = (i) => plotsPlaceTransect(c, i, layout, { rng: streams.stream('transect-reserves', i) });
   } else {
-    const sources = c.strata.map((_, i) => (s.method === 'balanced' ? plotsPlaceBalanced(c, i, rng) : plotsPlaceRandom(c, i, rng)));
+    const sources = c.strata.map((_, i) =>
+      s.method === 'balanced' ? plotsPlaceBalanced(c, i, streams.stream('balanced', i)) : plotsPlaceRandom(c, i, streams.stream('random', i)),
+    );
     primarySource = (i) => sources[i];
     reserveSource = (i) => sources[i];
   }

@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { planFixtureOut } from './fixtures/planFixtureOut';
+import type { FeatureCollection } from 'geojson';
+import { designRun } from './designRun';
+import { designSettingsDefault } from './designSettingsDefault';
+import type { DesignSettings } from './designTypes';
+import { planFixtureOut, planFixtureSite } from './fixtures/planFixtureOut';
 
 // fixtures/plan/in/*.geojson hold an invented site (features with layer "strata" or "exclusion") and
 // the design options; fixtures/plan/out/ holds input and plots together, styled for a map viewer,
@@ -16,4 +20,23 @@ describe('designRun fixtures', () => {
       expect(planFixtureOut(text)).toBe(stored);
     });
   }
+});
+
+describe('designRun with random generator version 1', () => {
+  it('makes the plots of plan-two-parts-shared-edge exactly as the reviewed fixture held them before version 2', () => {
+    // Plot ids and positions of fixtures/plan/out/plan-two-parts-shared-edge.geojson as reviewed and
+    // committed before generator version 2 (its settings carried no version).
+    const before: [string, number, number][] = [
+      ['HEA-01', 117.9020793, -35.0191963], ['HEA-02', 117.9017013, -35.0191848], ['HEA-03', 117.9028928, -35.0193882],
+      ['HEA-04', 117.9026445, -35.01962], ['HEA-05', 117.9001565, -35.0198363], ['HEA-06', 117.9011982, -35.0192418],
+      ['HEA-07', 117.9013905, -35.0189372], ['HEA-08', 117.9006293, -35.018899], ['HEA-09', 117.9015588, -35.0193986],
+      ['HEA-10', 117.900264, -35.0193236], ['HEA-11', 117.9031192, -35.0187469], ['HEA-12', 117.9031016, -35.0196448],
+      ['HEA-R1', 117.9015315, -35.0199409], ['HEA-R2', 117.9001888, -35.0190904],
+    ];
+    const input = JSON.parse(inputs['./fixtures/plan/in/plan-two-parts-shared-edge.geojson']) as FeatureCollection & { options: Partial<DesignSettings> };
+    const old = { ...designSettingsDefault(input.options), rngVersion: undefined };
+    const r = designRun(planFixtureSite(input), old);
+    expect(r.features.map((f) => [f.properties.plot_id, f.properties.lon, f.properties.lat])).toEqual(before);
+    expect(r.design.settings.rngVersion).toBe(1);
+  });
 });

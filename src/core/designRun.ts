@@ -1,19 +1,15 @@
-import { allocateEqual } from './allocateEqual';
-import { allocateNeyman, neymanWeights } from './allocateNeyman';
-import { allocateProportional } from './allocateProportional';
 import type { AllocationResult } from './allocateWithMinimum';
+import { designAllocation } from './designAllocation';
 import { designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
 import { designUsableAreas } from './designUsableAreas';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from './designTypes';
-import { footprintAreaM2 } from './footprintParse';
 import { InputError } from './InputError';
 import { placementConstraintsBuild } from './placementConstraints';
 import { plotIdsFor } from './plotIds';
 import { plotRecord } from './plotRecord';
-import { rngCreate } from './rng';
-import { sampleSizeForTarget } from './sampleSizeForTarget';
+import { rngStreams, rngVersionOf, rngVersionText } from './rngStreams';
 import { siteLocalFrame } from './siteLocalFrame';
 import type { Site } from './types';
 
@@ -41,8 +37,8 @@ function round(v: number, decimals: number): number {
 
 /**
  * Makes a whole survey design: stratum areas on the WGS84 ellipsoid (mapped and usable), the
- * allocation of plots (proportional, equal or Neyman, or the smallest size meeting a target 95 % CI
- * half-width), placement in the site's UTM frame under every constraint (footprint wholly inside its
+ * allocation of plots (proportional, equal or Neyman, the smallest size meeting a target 95 % CI
+ * half-width, or the largest a budget pays for; see designAllocation), placement in the site's UTM frame under every constraint (footprint wholly inside its
  * stratum, edge buffer, clear of buffered exclusions, minimum spacing), ranked reserves, and the
  * design summary with warnings and statements. Pure and deterministic: the same site, settings and
  * seed give byte-identical output in Node and in browsers.
@@ -76,48 +72,17 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     warnings.push(`stratum "${keys[i]}" has no ${settings.shareBasis} area (buffered exclusions cover it): it gets no plots and the estimates do not cover it.`);
   }
   const strataBasis = active.map((i) => ({ key: keys[i], basisM2: basis[i] }));
-  const activeKeys = active.map((i) => keys[i]);
   const extraStatements: string[] = [];
   let allocation: AllocationResult | null = null;
   let weights = basis.slice();
   if (settings.method === 'random' || settings.method === 'balanced') {
-    if (settings.allocation === 'neyman') {
-      const w = neymanWeights(strataBasis, settings.sd, settings.cost);
-      weights = keys.map(() => 0);
-      active.forEach((i, k) => {
-        weights[i] = w[k];
-      });
-    }
-    if (settings.allocation === 'equal') weights = keys.map((_, i) => (basis[i] > 0 ? 1 : 0));
-    if (settings.targetHalfwidth) {
-      const d = settings.targetHalfwidth.relative ? settings.targetHalfwidth.value * settings.pilotMean! : settings.targetHalfwidth.value;
-      const plotArea = footprintAreaM2(settings.footprint);
-      const size = sampleSizeForTarget({
-        strata: strataBasis,
-        sd: settings.sd,
-        cost: settings.cost,
-        allocation: settings.allocation,
-        halfwidth: d,
-        minPerStratum: settings.minPerStratum,
-        plotAreaM2: plotArea > 0 ? plotArea : null,
-      });
-      allocation = { plots: size.plots, quotas: size.plots, raisedToMinimum: [] };
-      extraStatements.push(
-        `Sample size: ${size.n} plots is the smallest design whose ${settings.allocation} allocation gives a 95 % CI half-width of at most ${round(d, 6)} (expected ${round(size.halfwidth, 6)} from the pilot SDs; the continuous formula gave ${round(size.formulaN, 2)}). ` +
-          (size.fpcApplied ? 'The finite-population correction uses N_h = stratum area / plot area.' : 'The footprint is a point, so no finite-population correction is applied.'),
-      );
-    } else if (settings.allocation === 'neyman') {
-      allocation = allocateNeyman(strataBasis, settings.sd, settings.cost, settings.plots, settings.minPerStratum);
-    } else if (settings.allocation === 'equal') {
-      allocation = allocateEqual(activeKeys, settings.plots, settings.minPerStratum);
-    } else {
-      allocation = allocateProportional(strataBasis, settings.plots, settings.minPerStratum);
-    }
-    if (allocation.raisedToMinimum.length) {
-      extraStatements.push(
-        `Raised to the minimum of ${settings.minPerStratum} plots: ${allocation.raisedToMinimum.map((k) => `"${activeKeys[k]}"`).join(', ')}; the other strata share the rest.`,
-      );
-    }
+    const planned = designAllocation(strataBasis, settings);
+    allocation = planned.allocation;
+    extraStatements.push(...planned.statements);
+    weights = keys.map(() => 0);
+    active.forEach((i, k) => {
+      weights[i] = planned.weights[k];
+    });
     // Back from the strata that have ground to every stratum, in site order.
     const plots = keys.map(() => 0);
     active.forEach((i, k) => {
@@ -128,9 +93,10 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   tick();
   progress(0.3, 'placing');
   const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
-  const rng = rngCreate(settings.seed);
+  const rngVersion = rngVersionOf(settings);
+  const streams = rngStreams(settings.seed, rngVersion);
   let ticks = 0;
-  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, rng, {
+  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, streams, {
     tick: () => {
       tick();
       if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
@@ -173,12 +139,18 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     capacity: placement.capacity[i],
   }));
   const statements = [...designStatements(settings, constraints.convergenceDeg), ...placement.statements, ...extraStatements];
+  statements.push(`Seed ${settings.seed}, ${rngVersionText(rngVersion)}.`);
+  if (rngVersion === 1) {
+    warnings.push(
+      'Made with random generator version 1, as plans saved before version 2 were: the plots are reproduced exactly, but designs from neighbouring seeds are correlated. Switch to version 2 for a new design.',
+    );
+  }
   progress(1, 'done');
   return {
     type: 'FeatureCollection',
     features,
     design: {
-      settings: { ...settings },
+      settings: { ...settings, rngVersion },
       seed: settings.seed,
       crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
       allocation: rows,

@@ -1,8 +1,10 @@
 import type { DesignSettings } from './designTypes';
+import { RNG_VERSION_CURRENT } from './rng';
 
 /**
  * The settings a new design starts from: 30 proportional plots by usable area, at least 2 per
- * stratum, point plots, no spacing, no reserves, simple random placement, seed 1. Every value is
+ * stratum, point plots, no spacing, no reserves, simple random placement, seed 1 and the current
+ * random generator version. Every value is
  * a starting point, not advice for any particular survey (common practice, no source).
  * @param overrides settings to change
  */
@@ -15,6 +17,7 @@ export function designSettingsDefault(overrides: Partial<DesignSettings> = {}): 
     sd: {},
     cost: {},
     targetHalfwidth: null,
+    budget: null,
     pilotMean: null,
     spacingM: 0,
     footprint: { shape: 'point' },
@@ -27,6 +30,7 @@ export function designSettingsDefault(overrides: Partial<DesignSettings> = {}): 
     transectIntervalM: null,
     quadratIntervalM: null,
     seed: 1,
+    rngVersion: RNG_VERSION_CURRENT,
     redistributeShortfall: false,
     ...overrides,
   };

@@ -1,5 +1,6 @@
 import type { FeatureCollection, Point } from 'geojson';
 import type { ResultKind } from './resultsCellParse';
+import type { RngVersion } from './rng';
 import type { ExclusionKind, Site, StratumPart } from './types';
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
@@ -15,15 +16,20 @@ export type ShareBasis = 'usable' | 'mapped';
 
 /** Every setting of a design; stored in the plan file and in the `design` member of plot files. */
 export interface DesignSettings {
-  /** Total primary plots; ignored when `targetHalfwidth` is set (then the size is computed). */
+  /** Total primary plots; ignored when `targetHalfwidth` or `budget` is set (then the size is computed). */
   plots: number;
   allocation: AllocationMethod;
   shareBasis: ShareBasis;
   minPerStratum: number;
   /** Pilot standard deviations by stratum key (Neyman and target precision). */
   sd: Record<string, number>;
-  /** Relative cost per plot by stratum key (Neyman); 1 when absent. */
+  /** Cost per plot by stratum key: relative for Neyman, in the budget's units with `budget`; 1 when absent. */
   cost: Record<string, number>;
+  /**
+   * Size the design by a budget: total C and fixed overhead c0 (same units as `cost`); the design is
+   * the largest whose plots cost at most C − c0. Absent or null: sized by `plots` or the target.
+   */
+  budget?: { total: number; overhead: number } | null;
   /** Target half-width of the 95 % CI of the stratified mean: absolute, or relative to `pilotMean`. */
   targetHalfwidth: { value: number; relative: boolean } | null;
   pilotMean: number | null;
@@ -39,6 +45,11 @@ export interface DesignSettings {
   transectIntervalM: number | null;
   quadratIntervalM: number | null;
   seed: number;
+  /**
+   * Which random streams turn the seed into plots (see `RngVersion`). Absent in plans and plot files
+   * saved before it was recorded: those were made with version 1, and are made again with it.
+   */
+  rngVersion?: RngVersion;
   /** When a stratum cannot hold its plots, move the shortfall to strata with room (proportionally). */
   redistributeShortfall?: boolean;
 }

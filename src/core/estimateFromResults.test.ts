@@ -72,7 +72,7 @@ describe('estimateFromResults', () => {
     expect(r.population).toContain('plots lie only on usable ground');
   });
 
-  it('reports no SE for a stratum with one plot unless strata are collapsed', () => {
+  it('reports no SE for a stratum with one plot unless strata are collapsed, and keeps the mean when they are', () => {
     const csv = 'plot_id,v\nHEA-01,3\nHEA-02,5\nHEA-03,4\nHEA-04,8\nSAL-01,1\n';
     const plain = estimateFromResults(plots, table(csv), { value: 'v', kind: 'measure', collapse: false });
     expect(plain.mean).not.toBeNull();
@@ -80,10 +80,48 @@ describe('estimateFromResults', () => {
     expect(plain.ci95).toBeNull();
     expect(plain.warnings.join('\n')).toContain('only one observation in stratum "Saltmarsh"');
     const c = estimateFromResults(plots, table(csv), { value: 'v', kind: 'measure', collapse: true });
-    expect(c.strata.map((s) => s.stratum)).toEqual(['Coastal heath + Saltmarsh']);
-    expect(c.strata[0].members).toEqual(['Coastal heath', 'Saltmarsh']);
-    expect(c.se).not.toBeNull();
-    expect(c.collapsed).toEqual(['Saltmarsh (n = 1) merged with Coastal heath']);
+    expect(c.strata.map((s) => s.stratum)).toEqual(['Coastal heath', 'Saltmarsh']);
+    expect(c.strata.map((s) => s.group)).toEqual([
+      ['Coastal heath', 'Saltmarsh'],
+      ['Coastal heath', 'Saltmarsh'],
+    ]);
+    expect(c.mean).toBe(plain.mean);
+    expect(c.collapsed).toEqual(['Coastal heath (n = 4) + Saltmarsh (n = 1)']);
+    // By hand (Cochran 1977 §5A.12, pair of strata): W = 5/8, 3/8; means 5 and 1; L = 2:
+    // v = 4 W_1² W_2² (ȳ_1 − ȳ_2)²/(W_1 + W_2)² = 4 · (25/64)(9/64) · 16 = 3.515625, 1 df.
+    expect(c.se).toBeCloseTo(Math.sqrt(3.515625), 12);
+    expect(c.df).toBeCloseTo(1, 12);
+    expect(c.formulas.join('\n')).toContain('Hansen, Hurwitz & Madow 1953');
+    expect(c.warnings.join('\n')).toContain('conservative');
+  });
+
+  it('collapses only the variance, by the published between-strata estimator (a worked example by hand)', () => {
+    // Invented strata with point plots (no fpc): A 5 ha, B 3 ha, C 2 ha → W = 0.5, 0.3, 0.2.
+    const three = plotCollectionInvented(
+      [
+        { key: 'A', code: 'AAA', primaries: 4, reserves: 0, mappedM2: 50_000, usableM2: 50_000 },
+        { key: 'B', code: 'BBB', primaries: 1, reserves: 0, mappedM2: 30_000, usableM2: 30_000 },
+        { key: 'C', code: 'CCC', primaries: 3, reserves: 0, mappedM2: 20_000, usableM2: 20_000 },
+      ],
+      { shape: 'point' },
+    );
+    const csv = 'plot_id,v\nAAA-01,10\nAAA-02,12\nAAA-03,14\nAAA-04,16\nBBB-01,20\nCCC-01,24\nCCC-02,26\nCCC-03,28\n';
+    const r = estimateFromResults(three, table(csv), { value: 'v', kind: 'measure', collapse: true });
+    // B has one plot and is grouped with the next stratum, C. By hand:
+    // ȳ_st = 0.5·13 + 0.3·20 + 0.2·26 = 17.7 over the original strata (pooling B with C would give
+    //   0.5·13 + 0.5·24.5 = 18.75 instead).
+    // A keeps its own term: W² s²/n = 0.25 · (20/3)/4 = 0.4166667 (3 df).
+    // Group {B, C} (Hansen, Hurwitz & Madow 1953; Cochran 1977 §5A.12), y_h = W_h ȳ_h = 6 and 5.2,
+    //   y_g = 11.2, W_g = 0.5: v_g = 2 · [(6 − 0.6·11.2)² + (5.2 − 0.4·11.2)²] = 2 · (0.5184 + 0.5184) = 2.0736 (1 df).
+    // v = 0.4166667 + 2.0736 = 2.4902667; SE 1.5780579.
+    // Satterthwaite df = v² / (0.4166667²/3 + 2.0736²/1) = 6.2014281 / (0.0578704 + 4.2998170) = 1.4231007.
+    expect(r.mean).toBeCloseTo(17.7, 12);
+    expect(r.se).toBeCloseTo(Math.sqrt(0.25 * (20 / 3) / 4 + 2.0736), 12);
+    expect(r.se).toBeCloseTo(1.5780579, 6);
+    expect(r.df).toBeCloseTo(1.4231007, 6);
+    expect(r.collapsed_groups).toEqual([{ strata: ['B', 'C'], variance: expect.closeTo(2.0736, 12), df: 1, pooled_sd: expect.any(Number) }]);
+    expect(r.strata.map((s) => s.se === null)).toEqual([false, true, false]);
+    expect(r.strata.map((s) => s.mean)).toEqual([13, 20, 26]);
   });
 
   it('stops at the first error and counts the others', () => {

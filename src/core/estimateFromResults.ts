@@ -1,4 +1,4 @@
-import { COLLAPSE_RULE, collapseStrata, type StratumValues } from './collapseStrata';
+import { COLLAPSE_RULE, collapseStrata } from './collapseStrata';
 import { DESIGN_EFFECT_FORMULA, designEffect } from './designEffect';
 import type { PlotCollection } from './designTypes';
 import { estimateStratifiedMean, type StratifiedEstimate } from './estimateStratifiedMean';
@@ -20,8 +20,18 @@ export interface EstimateStratumRow {
   weight: number;
   basis_m2: number;
   sampling_fraction: number;
-  /** Strata merged into this one when strata were collapsed. */
-  members: string[];
+  /** The collapsed group whose between-strata variance stands for this stratum's own; null when not collapsed. */
+  group: string[] | null;
+}
+
+/** A group of strata collapsed for the variance. */
+export interface EstimateCollapsedGroup {
+  strata: string[];
+  /** The group's between-strata variance of its share of the mean, and its df (strata − 1). */
+  variance: number;
+  df: number;
+  /** SD of all the group's plots pooled: a planning value for next season, not used in the estimate. */
+  pooled_sd: number | null;
 }
 
 /** Everything `stratplot estimate` reports. */
@@ -41,7 +51,9 @@ export interface EstimateReport {
   area_ha: number;
   share_basis: 'usable' | 'mapped';
   plot_area_m2: number;
+  /** One line per collapsed group, e.g. "Eucalypt woodland (n = 13) + Wet meadow (n = 1)". */
   collapsed: string[];
+  collapsed_groups: EstimateCollapsedGroup[];
   warnings: string[];
   formulas: string[];
   population: string;
@@ -64,6 +76,9 @@ const FORMULAS = [
   DESIGN_EFFECT_FORMULA,
 ];
 
+const COLLAPSED_FORMULA =
+  'collapsed strata: ȳ_st keeps every stratum; the terms of a group of L strata are replaced by v_g = L/(L − 1) Σ_h (W_h ȳ_h − (W_h/W_g) Σ_k W_k ȳ_k)², W_g = Σ W_h, with L − 1 df in the Satterthwaite df — conservative; Hansen, Hurwitz & Madow 1953; Cochran 1977 §5A.12';
+
 /** What the total of each kind of variable means and how per-plot values are scaled to it. */
 function totalScale(kind: ResultKind, plotAreaM2: number, perHa: boolean): { plotAreaM2: number | null; unit: string; factor: number } | null {
   if (kind === 'cover') return { plotAreaM2: null, unit: 'ha covered', factor: 0.01 };
@@ -76,7 +91,7 @@ function totalScale(kind: ResultKind, plotAreaM2: number, perHa: boolean): { plo
 /**
  * Stratified estimate of one results variable from a plot file and a results table: checks the
  * results (errors stop it), groups measurements by stratum in the design's order, optionally
- * collapses strata with fewer than 2 plots, and returns mean, SE, 95 % CI, Satterthwaite df, total
+ * collapses strata with one plot for the variance (the mean keeps every stratum), and returns mean, SE, 95 % CI, Satterthwaite df, total
  * with CI, design effect, warnings and the formulas used (Cochran, Sampling Techniques, 3rd ed.
  * 1977, ch. 5). Weights use each stratum's usable area, or its mapped area when the design's
  * share basis is 'mapped'.
@@ -93,38 +108,42 @@ export function estimateFromResults(plots: PlotCollection, table: ResultsTable, 
     throw new InputError(`${errors[0].message}${more}`);
   }
   const warnings = review.problems.map((p) => p.message);
-  const order = design.allocation.map((r) => r.stratum);
-  const byStratum = new Map<string, StratumValues>();
-  for (const r of design.allocation) {
-    byStratum.set(r.stratum, { stratum: r.stratum, basisM2: shareBasis === 'mapped' ? r.mapped_m2 : r.usable_m2, values: [] });
-  }
+  const groups = design.allocation.map((r) => ({ stratum: r.stratum, basisM2: shareBasis === 'mapped' ? r.mapped_m2 : r.usable_m2, values: [] as number[] }));
+  const byStratum = new Map(groups.map((g) => [g.stratum, g]));
   for (const o of review.observations) {
     const s = byStratum.get(o.stratum);
     if (!s) throw new InputError(`plot ${o.plotId} belongs to stratum "${o.stratum}", which is not in the plot file's allocation table`);
     s.values.push(o.value);
   }
-  let groups = order.map((k) => byStratum.get(k) as StratumValues);
-  let collapsed: string[] = [];
-  if (options.collapse) {
-    const c = collapseStrata(groups);
-    groups = c.strata;
-    collapsed = c.merged;
-    if (collapsed.length > 0) warnings.push(`strata collapsed: ${collapsed.join('; ')}. Rule: ${COLLAPSE_RULE}`);
-  }
+  const collapse = options.collapse ? collapseStrata(groups.map((g) => ({ stratum: g.stratum, n: g.values.length }))) : { groups: [], merged: [] };
+  const collapsed = collapse.merged;
+  if (collapsed.length > 0) warnings.push(`strata collapsed for the variance: ${collapsed.join('; ')}. Rule: ${COLLAPSE_RULE}`);
+  const groupOf = new Map<string, string[]>();
+  for (const g of collapse.groups) for (const k of g.strata) groupOf.set(k, g.strata);
   const plotAreaM2 = footprintAreaM2(design.settings.footprint);
   if (plotAreaM2 === 0) warnings.push('plots are points (no footprint area): sampling fractions are 0, no finite-population correction is applied');
   const stats = groups.map((g) => ({ g, s: stratumStats(g.values) }));
+  const collapsedGroups = collapse.groups.map((g) => g.indices);
   const est: StratifiedEstimate =
     options.kind === 'presence'
       ? estimateStratifiedProportion(
           stats.map(({ g, s }) => ({ stratum: g.stratum, basisM2: g.basisM2, n: s.n, present: g.values.reduce((a, b) => a + b, 0) })),
-          { plotAreaM2 },
+          { plotAreaM2, collapsedGroups },
         )
       : estimateStratifiedMean(
           stats.map(({ g, s }) => ({ stratum: g.stratum, basisM2: g.basisM2, n: s.n, mean: s.mean, sd: s.sd })),
-          { plotAreaM2 },
+          { plotAreaM2, collapsedGroups },
         );
   warnings.push(...est.warnings);
+  const collapsedOut: EstimateCollapsedGroup[] = collapse.groups.map((g) => {
+    const found = est.groups.find((x) => x.strata.join('\u0000') === g.strata.join('\u0000'));
+    return {
+      strata: g.strata,
+      variance: found?.variance ?? Number.NaN,
+      df: g.strata.length - 1,
+      pooled_sd: stratumStats(g.indices.flatMap((i) => groups[i].values)).sd,
+    };
+  });
   const deff = designEffect(est.variance, review.observations.map((o) => o.value), { plotAreaM2, totalBasisM2: est.totalBasisM2 });
   const scale = totalScale(options.kind, plotAreaM2, options.perHa === true);
   const tot = scale ? estimateTotal(est, { plotAreaM2: scale.plotAreaM2 }) : null;
@@ -143,7 +162,7 @@ export function estimateFromResults(plots: PlotCollection, table: ResultsTable, 
       weight: r.weight,
       basis_m2: groups[i].basisM2,
       sampling_fraction: r.samplingFraction,
-      members: groups[i].members ?? [r.stratum],
+      group: groupOf.get(r.stratum) ?? null,
     })),
     mean: est.mean,
     se: est.se,
@@ -158,8 +177,9 @@ export function estimateFromResults(plots: PlotCollection, table: ResultsTable, 
     share_basis: shareBasis,
     plot_area_m2: plotAreaM2,
     collapsed,
+    collapsed_groups: collapsedOut,
     warnings,
-    formulas: FORMULAS,
+    formulas: collapsed.length > 0 ? [...FORMULAS, COLLAPSED_FORMULA] : FORMULAS,
     population:
       shareBasis === 'usable'
         ? `Estimates cover the usable area of the strata (${areaHa.toFixed(2)} ha). Ground inside buffered exclusions (cliffs, water, private land, hazards) is outside the population: nothing is estimated for it.`

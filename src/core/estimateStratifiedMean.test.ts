@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { estimateStratifiedMean, type StratumSummary } from './estimateStratifiedMean';
 import { stratumStats } from './stratumStats';
 
-// Thompson, Sampling, 3rd ed., Wiley 2012, ch. 11, aerial survey (REFERENCES.md §3): inputs from
+// Thompson, Sampling, 3rd ed., Wiley 2012, ch. 11, aerial survey (docs/references.md §3): inputs from
 // memory (M), results computed from the formulas (C). N_h plays the role of the basis area with a
 // plot "area" of 1, so W_h = N_h/N and f_h = n_h/N_h, as in an areal design.
 const N = [400, 30, 61, 18, 70, 120];
@@ -21,7 +21,7 @@ describe('estimateStratifiedMean', () => {
   it('reproduces the Thompson (2012) stratified total, variance and df', () => {
     const e = estimateStratifiedMean(thompson, { plotAreaM2: 1 });
     const Ntot = 699;
-    // Expected τ̂ = 54 496.6, v = 34 105 732.4, SE 5 840.0, df 134.3 (REFERENCES.md §3).
+    // Expected τ̂ = 54 496.6, v = 34 105 732.4, SE 5 840.0, df 134.3 (docs/references.md §3).
     expect((e.mean as number) * Ntot).toBeCloseTo(54496.6, 1);
     expect((e.variance as number) * Ntot * Ntot).toBeCloseTo(34105732.4, 0);
     expect((e.se as number) * Ntot).toBeCloseTo(5840.0, 1);
@@ -63,7 +63,7 @@ describe('estimateStratifiedMean', () => {
     expect(e.variance).toBeCloseTo(0.8125, 12);
     expect(e.strata.map((r) => r.samplingFraction)).toEqual([0, 0]);
     // df = 0.8125² / (0.5625²/3 + 0.25²/3) = 5.216 (by hand), so the multiplier lies between the
-    // tabled t(0.975, 5) = 2.571 and t(0.975, 10) = 2.228 (REFERENCES.md §7).
+    // tabled t(0.975, 5) = 2.571 and t(0.975, 10) = 2.228 (docs/references.md §7).
     expect(e.df).toBeCloseTo(0.66015625 / (0.31640625 / 3 + 0.0625 / 3), 10);
     const half = (e.ci95 as [number, number])[1] - 12.5;
     const multiplier = half / Math.sqrt(0.8125);

@@ -4,7 +4,7 @@ import { estimateTotal } from './estimateTotal';
 
 describe('estimateTotal', () => {
   it('reproduces the Thompson (2012) aerial-survey total with plots of one unit of area', () => {
-    // Thompson, Sampling, 3rd ed. 2012, ch. 11 (REFERENCES.md §3; inputs M, results C): each of the
+    // Thompson, Sampling, 3rd ed. 2012, ch. 11 (docs/references.md §3; inputs from memory, results computed): each of the
     // N_h units is given 1 m², so A_h = N_h m² and the total is Σ N_h ȳ_h = 54 496.6, SE 5 840.0.
     const N = [400, 30, 61, 18, 70, 120];
     const n = [98, 10, 37, 6, 39, 21];
@@ -17,10 +17,13 @@ describe('estimateTotal', () => {
     const t = estimateTotal(e, { plotAreaM2: 1 });
     expect(t.total).toBeCloseTo(54496.6, 1);
     expect(t.totalSe).toBeCloseTo(5840.0, 1);
-    // t(0.975, 134.3) ≈ 1.978 (between the tabled 1.96 at ∞ and 2.042 at 30, REFERENCES.md §7).
+    // The Satterthwaite df of the example is 134.3 (docs/references.md §3), and t(0.975, 134.3) from the
+    // tabled 1.980 at 120 df and 1.960 at ∞, interpolated in 120/ν as printed tables are read:
+    // 1.960 + 0.020 · 120/134.3 = 1.9779 (docs/references.md §7; interpolation error well under 3e-4).
+    expect(e.df).toBeCloseTo(134.3, 1);
     const [lo, hi] = t.total_ci95 as [number, number];
-    expect((hi - lo) / 2 / 5840.0).toBeGreaterThan(1.96);
-    expect((hi - lo) / 2 / 5840.0).toBeLessThan(2.042);
+    expect(Math.abs((hi - lo) / 2 / 5840.0 - 1.9779)).toBeLessThan(3e-4);
+    expect((lo + hi) / 2).toBeCloseTo(54496.6, 1);
   });
 
   it('turns counts per 100 m² plot into plants per ha over 12 ha', () => {

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { UTM_CROSS_CHECK } from './fixtures/utmCrossCheck';
 import { localFrameAt } from './localFrame';
 
-// WGS84 cross-check set (REFERENCES.md §2: proj4, a Krüger series and GeoConvert agree to 1 mm).
+// WGS84 cross-check set (docs/references.md §2: proj4, a Krüger series and GeoConvert agree to 1 mm).
 const CASES = UTM_CROSS_CHECK;
 
 describe('localFrameAt', () => {
@@ -17,7 +17,7 @@ describe('localFrameAt', () => {
 
   it.each(CASES)('agrees with the independent mgrs library at %f, %f to the metre', (lat, lon) => {
     // mgrs 2.2 truncates to the metre and uses an older series (≤ 1.2 cm off at a zone edge,
-    // REFERENCES.md §2); the cases sit ≥ 5 cm from a metre boundary, so the digits must match.
+    // docs/references.md §2); the cases sit ≥ 5 cm from a metre boundary, so the digits must match.
     const frame = localFrameAt(lon, lat);
     const [x, y] = frame.toXY(lon, lat);
     const ref = mgrs.forward([lon, lat], 5);

@@ -18,7 +18,7 @@ describe('decimalYearOf', () => {
 });
 
 describe('magneticDeclination', () => {
-  // WMM2025 test values, NOAA/BGS WMM2025 report test table, as listed in REFERENCES.md §6.
+  // WMM2025 test values, NOAA/BGS WMM2025 report test table, as listed in docs/references.md §6.
   const cases = [
     { year: 2025.0, h: 0, lat: 80, lon: 0, d: 1.28, i: 83.21 },
     { year: 2025.0, h: 28, lat: 89, lon: -121, d: -99.77, i: 88.47 },

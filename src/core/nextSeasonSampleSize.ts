@@ -16,8 +16,10 @@ export interface NextSeasonOption {
   allocation: AllocationMethod;
   n: number;
   plots: { stratum: string; plots: number }[];
-  /** The 95 % half-width this allocation really reaches, in the variable's units. */
+  /** The 95 % half-width (t on the Satterthwaite df) this allocation reaches with these SDs, in the variable's units. */
   halfwidth: number;
+  /** Its Satterthwaite df. */
+  df: number | null;
   /** Continuous n from the closed formula, before rounding and the minimum rule. */
   formulaN: number;
 }
@@ -48,8 +50,8 @@ export interface NextSeasonOptions {
  * season's observed SDs, under proportional and under Neyman allocation. Delegates to the design
  * engine's {@link sampleSizeForTarget} (Cochran, Sampling Techniques, 3rd ed. 1977, §5.9–5.10 (section numbers from memory):
  * n0 = Σ W_h S_h²/V and (Σ W_h S_h)²/(V + Σ W_h S_h²/N), V = (d/z)², then the smallest whole
- * allocation that really meets d), so a plan made from these figures reproduces them. It uses z,
- * not t: with few plots per stratum the realised t-based CI will be somewhat wider.
+ * allocation that really meets d with t(0.975, ν) on the allocation's Satterthwaite ν), so a plan
+ * made from these figures reproduces them and, with the same SDs, reports a CI no wider than d.
  * @throws InputError for a target that is not > 0, a relative target without a usable mean, or a
  *   stratum with no observed SD and no override
  */
@@ -79,6 +81,7 @@ export function nextSeasonSampleSize(strata: readonly ObservedStratum[], options
       n: r.n,
       plots: strata.map((s, i) => ({ stratum: s.stratum, plots: r.plots[i] })),
       halfwidth: r.halfwidth,
+      df: r.df,
       formulaN: r.formulaN,
     };
   };
@@ -87,6 +90,7 @@ export function nextSeasonSampleSize(strata: readonly ObservedStratum[], options
   const fpcApplied = options.plotAreaM2 !== null && options.plotAreaM2 > 0;
   const notes = [
     `target 95 % half-width ${Number(d.toPrecision(6))}${target.relative ? ` (${Number((target.value * 100).toPrecision(6))} % of the observed mean ${Number((options.observedMean as number).toPrecision(6))})` : ''}`,
+    'sized for the t interval the estimate reports (t(0.975, ν), ν the Satterthwaite df of each allocation); the continuous formula uses z = 1.96',
     'SDs are this season’s sample SDs; a sample SD is itself uncertain, so plan a margin above these figures',
     fpcApplied ? 'finite-population correction from the plot area applied' : 'point plots: no finite-population correction',
   ];

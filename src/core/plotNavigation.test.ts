@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { InputError } from './InputError';
-import { magneticDeclination } from './magneticDeclination';
 import { plotNavigation } from './plotNavigation';
 import type { AccessPoint } from './types';
 
@@ -18,11 +17,29 @@ describe('plotNavigation', () => {
     // Computed with GeographicLib GeodSolve -i: "-38 145 -38.01 145.02" → azi1 122.29528569881, s12 2077.840537.
     expect(row.distanceM).toBeCloseTo(2077.840537, 5);
     expect(row.bearingTrueDeg).toBeCloseTo(122.29528569881, 8);
-    const d = magneticDeclination([-38, 145], 0, date).declinationDeg;
-    expect(row.bearingMagDeg).toBeCloseTo(122.29528569881 - d, 8);
+    // Magnetic = true − the declination the row carries (checked against published values below).
+    expect(row.bearingMagDeg).toBeCloseTo(122.29528569881 - nav.declinationDegByAccess.A1, 8);
     expect(nav.model).toBe('WMM-2025');
     expect(nav.epoch).toBe(2025);
     expect(nav.warnings).toEqual([]);
+  });
+
+  it('gives magnetic bearings that match the published WMM2025 test values', () => {
+    // WMM2025 report test table (docs/references.md §6): D = 9.71° at −3°, −147°, 33 km, 2026.0 and
+    // D = 12.93° at 38°, −144°, 69 km, 2025.5. A plot due north (south) of the access point lies on
+    // its meridian, a geodesic, so its true bearing is exactly 0° (180°) and its magnetic bearing
+    // 360 − 9.71 = 350.29° (180 − 12.93 = 167.07°); the table's 0.01° rounding bounds the error.
+    const cases = [
+      { at: { lat: -3, lon: -147 }, plot: { lat: -2.99, lon: -147 }, km: 33, year: 2026.0, mag: 350.29 },
+      { at: { lat: 38, lon: -144 }, plot: { lat: 37.99, lon: -144 }, km: 69, year: 2025.5, mag: 167.07 },
+    ];
+    for (const c of cases) {
+      const y = Math.floor(c.year);
+      // The 365-day decimal year pinned in magneticDeclination.test.ts.
+      const when = new Date(Date.UTC(y, 0, 1) + (c.year - y) * 365 * 86_400_000);
+      const nav = plotNavigation([{ id: 'P', ...c.plot }], [{ id: 'W', name: 'WMM test point', kind: 'gate', ...c.at }], { date: when, altitudeKm: c.km });
+      expect(Math.abs(nav.rows[0].bearingMagDeg - c.mag)).toBeLessThan(0.006);
+    }
   });
 
   it('uses each plot’s nearest access point when none is chosen', () => {

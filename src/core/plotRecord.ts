@@ -27,16 +27,19 @@ function round(v: number, decimals: number): number {
 }
 
 /**
- * A plot as a GeoJSON point with its file properties: lon/lat to 7 decimals (about 1 cm), UTM zone,
- * easting/northing to 0.1 m, MGRS to 1 m (`mgrs` package, which truncates as MGRS requires), the
- * nearest exclusion's distance (ground metres from the plot centre, 0.1 m) and kind, and the design
- * density. Source of the MGRS form: NGA.SIG.0012 (via the mgrs package).
+ * A plot as a GeoJSON point with its file properties. The position is rounded once, to 7 decimals of
+ * lon/lat (about 1 cm), and every coordinate column comes from that one rounded position, so a row
+ * never disagrees with itself: UTM zone and easting/northing to 0.1 m (the rounded lon/lat projected
+ * back into the site's frame), MGRS to 1 m (`mgrs` package, which truncates as MGRS requires), and
+ * the nearest exclusion's distance (ground metres from the plot centre, 0.1 m) and kind, then the
+ * design density. Source of the MGRS form: NGA.SIG.0012 (via the mgrs package).
  */
 export function plotRecord(c: PlacementConstraints, d: PlotDraft): Feature<Point, PlotProperties> {
   const [lonRaw, latRaw] = c.frame.toLonLat(d.x, d.y);
   const lon = round(lonRaw, 7);
   const lat = round(latRaw, 7);
-  const near = c.nearestExclusion(d.x, d.y);
+  const [x, y] = c.frame.toXY(lon, lat);
+  const near = c.nearestExclusion(x, y);
   const props: PlotProperties = {
     plot_id: d.plotId,
     stratum: d.stratum,
@@ -45,9 +48,9 @@ export function plotRecord(c: PlacementConstraints, d: PlotDraft): Feature<Point
     lon,
     lat,
     utm_zone: c.frame.utmZone,
-    easting: round(d.x, 1),
-    northing: round(d.y, 1),
-    mgrs: mgrsForward([lonRaw, latRaw], 5),
+    easting: round(x, 1),
+    northing: round(y, 1),
+    mgrs: mgrsForward([lon, lat], 5),
     nearest_exclusion_m: near ? round(near.distanceM, 1) : null,
     nearest_exclusion_kind: near ? near.kind : null,
     design_density_per_ha: round(d.densityPerHa, 6),

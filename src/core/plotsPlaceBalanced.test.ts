@@ -49,7 +49,7 @@ describe('balanced acceptance sampling', () => {
       us.push((out[0] - x0) / (x1 - x0));
       vs.push((out[1] - y0) / (y1 - y0));
     }
-    // Consecutive base-2 terms (REFERENCES.md §5) differ by halves, quarters, eighths…: any 2 consecutive
+    // Consecutive base-2 terms (docs/references.md §5) differ by halves, quarters, eighths…: any 2 consecutive
     // terms from a random start fall in different halves of [0, 1), any 4 in different quarters.
     expect(new Set(us.slice(0, 2).map((u) => Math.floor(u * 2))).size).toBe(2);
     expect(new Set(us.slice(0, 4).map((u) => Math.floor(u * 4))).size).toBe(4);

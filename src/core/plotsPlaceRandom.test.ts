@@ -4,7 +4,7 @@ import { designSettingsDefault } from './designSettingsDefault';
 import { localFrameAt } from './localFrame';
 import type { Site } from './types';
 
-// Chi-square upper 0.001 critical values from standard tables (REFERENCES.md §7): 24 df 51.18, 23 df 49.73.
+// Chi-square upper 0.001 critical values from standard tables (docs/references.md §7): 24 df 51.18, 23 df 49.73.
 const CHI2_24_DF_0001 = 51.18;
 const CHI2_23_DF_0001 = 49.73;
 

@@ -4,7 +4,7 @@ import { polygonAreaM2 } from './polygonAreaM2';
 
 describe('polygonAreaM2', () => {
   it('gives GeographicLib documented area for the 1° box with geodesic edges', () => {
-    // GeographicLib documentation via ../shared/REFERENCES.md §1: 12 308 778 361.469 m².
+    // GeographicLib documentation via docs/references.md §1: 12 308 778 361.469 m².
     const area = polygonAreaM2({ type: 'Polygon', coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]]] });
     expect(area).toBeCloseTo(12308778361.469, 2);
   });
@@ -42,13 +42,13 @@ function densifiedBox(lon0: number, lon1: number, lat0: number, lat1: number, st
 
 describe('polygonAreaM2 against published and independent values', () => {
   it('uses a q function that reproduces Snyder\'s Clarke 1866 check value', () => {
-    // Snyder 1987 p. 188 numerical example via REFERENCES.md §1: e² = 0.00676866, φ = 40°, q = 1.2792602, q_p = 1.9954814.
+    // Snyder 1987 p. 188 numerical example via docs/references.md §1: e² = 0.00676866, φ = 40°, q = 1.2792602, q_p = 1.9954814.
     expect(snyderQ(40, 0.00676866)).toBeCloseTo(1.2792602, 7);
     expect(snyderQ(90, 0.00676866)).toBeCloseTo(1.9954814, 7);
   });
 
   it('gives the WGS84 total surface from the same q function', () => {
-    // GeographicLib's test constant 510065621724088.5093 m² (REFERENCES.md §1).
+    // GeographicLib's test constant 510065621724088.5093 m² (docs/references.md §1).
     // (written to the double nearest it: 510065621724088.5)
     expect(snyderZoneAreaM2(-90, 90, 360)).toBeCloseTo(510065621724088.5, 0);
   });
@@ -71,21 +71,21 @@ describe('polygonAreaM2 against published and independent values', () => {
     [45, 46, 8686494956.67],
     [60, 61, 6123140878.746],
   ])('matches the tabulated zone area from %f to %f', (lat0, lat1, expected) => {
-    // REFERENCES.md §1 rows (Snyder formula, confirmed by GeographicLib Planimeter with rhumb edges).
+    // docs/references.md §1 rows (Snyder formula, confirmed by GeographicLib Planimeter with rhumb edges).
     const area = polygonAreaM2({ type: 'Polygon', coordinates: [densifiedBox(0, 1, lat0, lat1)] });
     expect(Math.abs(area - expected)).toBeLessThan(30);
     expect(snyderZoneAreaM2(lat0, lat1, 1)).toBeCloseTo(expected, 2);
   });
 
   it('matches the tabulated small zone 45–45.01° × 0.01°', () => {
-    // REFERENCES.md §1: 876 163.449 m².
+    // docs/references.md §1: 876 163.449 m².
     const area = polygonAreaM2({ type: 'Polygon', coordinates: [densifiedBox(0, 0.01, 45, 45.01, 0.0001)] });
     expect(area).toBeCloseTo(876163.449, 2);
   });
 
   it('gives the GeographicLib documented area of its Antarctica polygon', () => {
     // GeographicLib JavaScript/Python docs, "Measuring areas" example (18 vertices, lat/lon):
-    // 13662703680020.1 m², perimeter 16831067.893 m (REFERENCES.md §1, V).
+    // 13662703680020.1 m², perimeter 16831067.893 m (docs/references.md §1).
     const latLon = [
       [-63.1, -58], [-72.9, -74], [-71.9, -102], [-74.9, -102], [-74.3, -131], [-77.5, -163],
       [-77.4, 163], [-71.7, 172], [-65.9, 140], [-65.7, 113], [-66.6, 88], [-66.9, 59],
@@ -144,7 +144,7 @@ describe('polygonAreaM2 against published and independent values', () => {
   });
 
   it('gives the ground area of a 100 km UTM grid square from the Planimeter manual', () => {
-    // GeographicLib Planimeter manual example via REFERENCES.md §1: zone 18N, E 500–600 km,
+    // GeographicLib Planimeter manual example via docs/references.md §1: zone 18N, E 500–600 km,
     // N 4400–4500 km as a geodesic polygon is 10 007 388 597.2 m² (grid area 1e10 m²).
     const frame = localFrameAt(-75, 40);
     const corners = [[500000, 4400000], [600000, 4400000], [600000, 4500000], [500000, 4500000]].map(([x, y]) => frame.toLonLat(x, y));

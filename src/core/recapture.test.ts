@@ -3,7 +3,7 @@ import { recaptureEffectiveAreaHa, recaptureEstimate } from './recapture';
 
 describe('recaptureEstimate', () => {
   it('matches Krebs (1989) Box 2.1', () => {
-    // Krebs, Ecological Methodology, 1989, Box 2.1 (REFERENCES.md §4): M 948, n 421, m 167 →
+    // Krebs, Ecological Methodology, 1989, Box 2.1 (docs/references.md §4): M 948, n 421, m 167 →
     // Petersen 2390, Chapman 2382.80, SE 129.06.
     const r = recaptureEstimate({ marked: 948, caught: 421, recaptured: 167 });
     expect(Math.round(r.petersen as number)).toBe(2390);
@@ -23,7 +23,7 @@ describe('recaptureEstimate', () => {
   });
 
   it('matches Pine et al. (2013) Box 11.2', () => {
-    // Pine et al. 2013, Box 11.2 (REFERENCES.md §4): 421, 332, 88 → Chapman 1578, SE 126.56.
+    // Pine et al. 2013, Box 11.2 (docs/references.md §4): 421, 332, 88 → Chapman 1578, SE 126.56.
     const r = recaptureEstimate({ marked: 421, caught: 332, recaptured: 88 });
     expect(Math.round(r.chapman)).toBe(1578);
     expect(r.se).toBeCloseTo(126.56, 2);

@@ -72,7 +72,7 @@ describe('ringAreaAuthalicM2', () => {
   });
 
   it('declines long-edged, polar and pole-circling rings so GeographicLib measures them', () => {
-    // The 1° box of REFERENCES.md §1 (geodesic edges 12 308 778 361.469 m²) is far too long-edged.
+    // The 1° box of docs/references.md §1 (geodesic edges 12 308 778 361.469 m²) is far too long-edged.
     expect(ringAreaAuthalicM2([[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]])).toBeNaN();
     expect(ringAreaAuthalicM2(starRing(10, 85, 300, 200, 0, [0]))).toBeNaN();
     const aroundPole: LonLat[] = Array.from({ length: 73 }, (_, k) => [-180 + k * 5, 70] as LonLat);
@@ -102,7 +102,7 @@ describe('ringAreaAuthalicM2', () => {
     [0, 1, 12308463893.975],
     [45, 46, 8686494956.67],
     [60, 61, 6123140878.746],
-  ])('gives the REFERENCES.md §1 zone area from %f° to %f° × 1° with its parallels densified', (lat0, lat1, expected) => {
+  ])('gives the docs/references.md §1 zone area from %f° to %f° × 1° with its parallels densified', (lat0, lat1, expected) => {
     // Rows computed from Snyder's zone formula and confirmed by GeographicLib Planimeter (rhumb edges);
     // densified every 0.001° (meridians too, which changes nothing: they are geodesics and rhumb lines
     // alike), the edges are short enough for this route, and parallels and meridians are straight in it.

@@ -3,7 +3,7 @@ import { satterthwaiteDf } from './satterthwaiteDf';
 
 describe('satterthwaiteDf', () => {
   it('reproduces the Thompson (2012) aerial-survey df of 134.3', () => {
-    // Thompson, Sampling, 3rd ed. 2012, ch. 11 (REFERENCES.md §3): inputs from memory, df computed.
+    // Thompson, Sampling, 3rd ed. 2012, ch. 11 (docs/references.md §3): inputs from memory, df computed.
     const N = [400, 30, 61, 18, 70, 120];
     const n = [98, 10, 37, 6, 39, 21];
     const s2 = [5575, 4064, 347556, 22798, 123578, 9795];

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { tQuantile, tQuantile95 } from './tQuantile';
 
 describe('tQuantile', () => {
-  // Student t 0.975 quantiles, standard tables (REFERENCES.md §7), printed to 3 decimals.
+  // Student t 0.975 quantiles, standard tables (docs/references.md §7), printed to 3 decimals.
   it.each([
     [1, 12.706],
     [5, 2.571],

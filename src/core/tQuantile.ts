@@ -1,4 +1,8 @@
-import { jStat } from 'jstat';
+import jstat from 'jstat';
+
+// The default import is the CommonJS module in Node, bundlers and the browser alike; a named import
+// fails under Node's own ESM loader (the scripts run with tsx).
+const { jStat } = jstat;
 
 /** Beyond this many degrees of freedom the t and normal quantiles agree to better than 1e-7. */
 const NORMAL_LIMIT_DF = 1e7;

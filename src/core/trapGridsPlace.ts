@@ -8,7 +8,8 @@ import { footprintShapeXY } from './placementFootprint';
 import { plotRecord } from './plotRecord';
 import { plotsPlaceRandom } from './plotsPlaceRandom';
 import { polygonAreaM2 } from './polygonAreaM2';
-import { rngCreate } from './rng';
+import { RNG_VERSION_CURRENT } from './rng';
+import { rngStreams, rngVersionText } from './rngStreams';
 import { convexSegmentDistance } from './segmentDistance';
 import { siteLocalFrame } from './siteLocalFrame';
 import { stratumUsableRegion } from './stratumUsableRegion';
@@ -134,7 +135,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
     return true;
   };
 
-  const rng = rngCreate(options.seed);
+  const streams = rngStreams(options.seed, RNG_VERSION_CURRENT);
   const maxTries = options.maxTriesPerGrid ?? 4000;
   const features: Feature<Point, PlotProperties>[] = [];
   const grids: TrapGrid[] = [];
@@ -147,7 +148,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
     const key = keys[s];
     const wanted = typeof perStratum === 'number' ? perStratum : (perStratum[key] ?? 0);
     if (wanted === 0) continue;
-    const source = plotsPlaceRandom(c, s, rng);
+    const source = plotsPlaceRandom(c, s, streams.stream('trap-grids', s));
     const centres: [number, number][] = [];
     for (let g = 0; g < wanted; g++) {
       let found = false;
@@ -197,7 +198,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   }
   const statements = [
     `Each grid is ${rows} × ${cols} stations ${spacingM} m apart, rows running ${angleDeg === 0 ? 'true east–west' : `${angleDeg}° clockwise from true east`}; the whole grid outline lies inside its stratum${edgeBufferM > 0 ? ` at least ${edgeBufferM} m from its edge` : ''}, clear of every buffered exclusion, and at least ${minSeparationM} m from every other grid.`,
-    `Grid centres drawn at random over each stratum, seed ${options.seed}.`,
+    `Grid centres drawn at random over each stratum, seed ${options.seed}, ${rngVersionText(RNG_VERSION_CURRENT)}.`,
     'Station densities and stratum shares use the usable area: the mapped area less every exclusion widened by its buffer.',
     ...TRAP_GRID_CAUTIONS,
   ];

@@ -4,7 +4,7 @@ import { UTM_CROSS_CHECK } from './fixtures/utmCrossCheck';
 import { localFrameAt } from './localFrame';
 import { utmForwardArray } from './utmForwardArray';
 
-// WGS84 cross-check set (REFERENCES.md §2: proj4, a Krüger series and GeoConvert agree to 1 mm).
+// WGS84 cross-check set (docs/references.md §2: proj4, a Krüger series and GeoConvert agree to 1 mm).
 const CASES = UTM_CROSS_CHECK;
 
 describe('utmForwardArray', () => {
@@ -15,7 +15,7 @@ describe('utmForwardArray', () => {
   });
 
   it('agrees with GeographicLib GeoConvert to 1 mm, including the invented bench site origin', () => {
-    // GeoConvert manual examples (REFERENCES.md §2) carried to the millimetre by GeoConvert itself:
+    // GeoConvert manual examples (docs/references.md §2) carried to the millimetre by GeoConvert itself:
     // `GeoConvert -u -p 3` (GeographicLib 2.1.2, Debian), input "lat lon".
     const cases = [
       [33.3, 44.4, 444140.545, 3684706.356],

@@ -36,7 +36,7 @@ describe('crsFromPrj', () => {
   });
 
   it('reads the UTM zone from an ESRI WGS84 UTM name (GeoConvert manual example)', () => {
-    // GeographicLib GeoConvert manual: 33.3°N 44.4°E is 38N 444140.54 3684706.36 (REFERENCES.md §2).
+    // GeographicLib GeoConvert manual: 33.3°N 44.4°E is 38N 444140.54 3684706.36 (docs/references.md §2).
     const crs = crsFromPrj('PROJCS["WGS_1984_UTM_Zone_38N",GEOGCS["GCS_WGS_1984",DATUM["D_WGS_1984",SPHEROID["WGS_1984",6378137.0,298.257223563]]]]', 'd.prj');
     const [e, n] = crs.fromWgs84(44.4, 33.3);
     expect(e).toBeCloseTo(444140.54, 2);
@@ -59,7 +59,7 @@ describe('crsFromPrj', () => {
 });
 
 describe('crsResolveEpsg', () => {
-  it('projects the Sydney point of the WGS84 UTM cross-check set in REFERENCES.md §2', () => {
+  it('projects the Sydney point of the WGS84 UTM cross-check set in docs/references.md §2', () => {
     // WGS84 cross-check set (proj4 2.22, Krüger series and GeoConvert agree to 1 mm): −33.8688, 151.2093 → 56S 334368.634 6250948.345.
     const [e, n] = crsResolveEpsg(32756, 't').fromWgs84(151.2093, -33.8688);
     expect(e).toBeCloseTo(334368.634, 3);

@@ -34,7 +34,7 @@ function sampleSite(): Site {
   };
 }
 
-// The GPX 1.1 schema as published by Topografix (copy in /work/shared/schemas, see REFERENCES.md).
+// The GPX 1.1 schema as published by Topografix (copy in tests/schemas, see docs/references.md §9).
 function xmllint(text: string): string {
   const file = join(mkdtempSync(join(tmpdir(), 'stratplot-out-')), 'out.gpx');
   writeFileSync(file, text);

@@ -21,7 +21,7 @@ describe('designReportEstimates', () => {
       report.strata.map((s) => ({ stratum: s.stratum, basisM2: s.basis_m2, sd: s.sd })),
       { target: { value: 0.2, relative: true }, observedMean: report.mean, plotAreaM2: 100 },
     );
-    // Krebs 1989 Box 2.1 (REFERENCES §4): M 948, n 421, m 167 → Chapman 2382.80.
+    // Krebs 1989 Box 2.1 (docs/references.md §4): M 948, n 421, m 167 → Chapman 2382.80.
     const grids = [{ name: 'North grid', estimate: recaptureEstimate({ marked: 948, caught: 421, recaptured: 167 }) }];
     const tables = designReportEstimates(report, next, grids);
     expect(reportTablesParse(tables)).toHaveLength(3);
@@ -37,5 +37,17 @@ describe('designReportEstimates', () => {
     expect(tables[2].rows[0].slice(0, 3)).toEqual(['North grid', '2390', '2383']);
     const pdf = designReportPdf(plots, null, { paper: 'a4', estimates: tables, generatedAt: new Date('2026-01-01T00:00:00Z') });
     expect(new TextDecoder().decode(pdf.slice(0, 5))).toBe('%PDF-');
+  });
+
+  it('names the collapsed strata in the report and says the variance is conservative', () => {
+    const short = parseResultsCsv('invented.csv', 'plot_id,stems\nHEA-01,4\nHEA-02,6\nHEA-03,8\nSAL-01,1\n');
+    const collapsed = estimateFromResults(plots, short, { value: 'stems', kind: 'count', collapse: true });
+    const [t] = designReportEstimates(collapsed);
+    expect(t.rows.map((r) => r[0])).toEqual(['Coastal heath (collapsed)', 'Saltmarsh (collapsed)', 'Stratified (8.00 ha)']);
+    // By hand (Cochran 1977 §5A.12, pair): W = 5/8, 3/8; means 6 and 1: ȳ_st = 0.625·6 + 0.375·1 = 4.125 (kept),
+    // v = 4 (25/64)(9/64)(6 − 1)²/1 = 5.4931641, SE 2.344.
+    expect(t.rows[2][2]).toBe('4.125');
+    expect(t.rows[2][4]).toBe('2.344');
+    expect(t.notes?.find((n) => n.startsWith('Collapsed for the variance: Coastal heath + Saltmarsh'))).toMatch(/conservative/);
   });
 });

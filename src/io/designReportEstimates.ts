@@ -28,7 +28,7 @@ export function designReportEstimates(
   recaptures: readonly { name: string; estimate: RecaptureEstimate }[] = [],
 ): ReportTable[] {
   const n = report.strata.reduce((a, s) => a + s.n, 0);
-  const rows: (string | number)[][] = report.strata.map((s) => [s.stratum, s.n, num(s.mean), num(s.sd), num(s.se), num(s.weight, 3)]);
+  const rows: (string | number)[][] = report.strata.map((s) => [s.group ? `${s.stratum} (collapsed)` : s.stratum, s.n, num(s.mean), num(s.sd), num(s.se), num(s.weight, 3)]);
   rows.push([`Stratified (${report.area_ha.toFixed(2)} ha)`, n, num(report.mean), '', num(report.se), '1']);
   const tables: ReportTable[] = [
     {
@@ -38,6 +38,10 @@ export function designReportEstimates(
       notes: [
         `95 % CI of the mean ${ci(report.ci95)}, Satterthwaite df ${report.df === null ? '—' : report.df.toFixed(1)}; design effect ${num(report.deff, 3)}.`,
         ...(report.total_unit ? [`Total ${num(report.total)} (${report.total_unit}), 95 % CI ${ci(report.total_ci95)}.`] : []),
+        ...report.collapsed_groups.map(
+          (g) =>
+            `Collapsed for the variance: ${g.strata.join(' + ')} — between-strata variance ${num(g.variance)} on ${g.df} df (Hansen, Hurwitz & Madow 1953; Cochran 1977 §5A.12). The mean keeps every stratum; the variance is conservative (the SE tends to be too large rather than too small).`,
+        ),
         report.population,
         ...report.warnings.map((w) => `Warning: ${w}`),
         ...report.formulas.map((f) => `Formula: ${f}`),

@@ -38,6 +38,8 @@ describe('designReportPdf', () => {
       for (const name of Object.values(FIELD_KIT_RENAMED)) expect(text).toContain(name);
       expect(text).toContain(hash);
       expect(text).toContain('20260315');
+      expect(text).toContain('seed 20260315, generator version 2');
+      expect(text).toContain('random generator version 2 (seed expanded by splitmix64');
       expect(text).toContain(INFERENCE_STATEMENT.slice(0, 60));
       expect(text).toContain('Total cover % by stratum (invented numbers)');
       expect(text).toContain('41.2');
@@ -62,5 +64,14 @@ describe('designReportPdf', () => {
     const bad = [{ title: 'T', head: ['a', 'b'], rows: [[1]] }];
     expect(() => designReportPdf(plots, null, { paper: 'a4', estimates: bad })).toThrow(/table 0 \("T"\), row 0: needs 2/);
     expect(() => designReportPdf(plots, null, { paper: 'a4', estimates: 'x' })).toThrow(/list of tables/);
+  });
+
+  it('flags a plot file saved before generator versions were recorded as made with version 1', () => {
+    const site = fieldKitSite();
+    const plots = fieldKitPlots(site);
+    const old = { ...plots, design: { ...plots.design, settings: { ...plots.design.settings, rngVersion: undefined } } };
+    const { text } = extract(designReportPdf(old, site, { paper: 'a4', generatedAt: new Date(Date.UTC(2026, 2, 15)) }));
+    expect(text).toContain('seed 20260315, generator version 1');
+    expect(text).toContain('random generator version 1 (old streams');
   });
 });

@@ -5,6 +5,7 @@ import { footprintFormat } from '../core/footprintParse';
 import { InputError } from '../core/InputError';
 import { plotCollectionNamed } from '../core/plotCollectionNamed';
 import { plotFieldStates, plotRejectionLines } from '../core/plotFieldState';
+import { rngVersionOf, rngVersionText } from '../core/rngStreams';
 import type { Site } from '../core/types';
 import { coverMapDraw } from './coverMap';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
@@ -115,7 +116,7 @@ export function designReportPdf(given: PlotCollection, site: Site | null, option
   const when = (options.generatedAt ?? new Date()).toISOString().slice(0, 10);
 
   pdfText(pg, `Design report: ${siteName}`, { size: 16, bold: true, gapAfter: 1 });
-  pdfText(pg, `${d.software.name} ${d.software.version} · ${when} · seed ${d.seed} · UTM ${d.crs.utm_zone} (EPSG:${d.crs.epsg})`, { size: 9, gapAfter: 2 });
+  pdfText(pg, `${d.software.name} ${d.software.version} · ${when} · seed ${d.seed}, generator version ${rngVersionOf(d.settings)} · UTM ${d.crs.utm_zone} (EPSG:${d.crs.epsg})`, { size: 9, gapAfter: 2 });
   const mapH = Math.min(150, (pdfPageBottom(pg) - pg.y) * 0.62);
   const cautionW = 44;
   const mapW = pg.pageW - 2 * pg.margin - cautionW - 3;
@@ -141,6 +142,7 @@ export function designReportPdf(given: PlotCollection, site: Site | null, option
   pdfHeading(pg, 'Reproducing this design', 25);
   table(pg, ['Item', 'Value'], [
     ['Random seed', String(d.seed)],
+    ['Random generator', rngVersionText(rngVersionOf(d.settings))],
     ['Plan file SHA-256', hash ? hash.toLowerCase() : 'not given (save the plan file and print the report from it to record its hash)'],
     ['Software', `${d.software.name} ${d.software.version}`],
     ['Coordinate frame', `UTM ${d.crs.utm_zone}, EPSG:${d.crs.epsg}, WGS84`],

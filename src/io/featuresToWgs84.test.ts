@@ -19,7 +19,7 @@ const OSGB36_GEOGRAPHIC = '+proj=longlat +ellps=airy +towgs84=446.448,-125.157,5
 
 describe('featuresToWgs84', () => {
   it('converts British National Grid with the published projection and datum shift', () => {
-    // IOGP Guidance Note 7-2 (REFERENCES.md §2): 50°30′N 0°30′E on OSGB36 is E 577 274.99,
+    // IOGP Guidance Note 7-2 (docs/references.md §2): 50°30′N 0°30′E on OSGB36 is E 577 274.99,
     // N 69 740.50. That latitude/longitude is on the Airy ellipsoid, not WGS84, so the WGS84
     // result is taken back to OSGB36 with the EPSG:1314 shift (proj4) before comparing: this
     // checks the projection against IOGP and that the shift was applied in the right direction.
@@ -46,7 +46,7 @@ describe('featuresToWgs84', () => {
   it('keeps altitudes and leaves WGS84 input as it is', () => {
     const fc = points([334368.634, 6250948.345, 12.5]);
     const out = at(featuresToWgs84(fc, 32756, 'utm.geojson'));
-    // REFERENCES.md §2 WGS84 set: −33.8688, 151.2093 is 56S E 334368.634 N 6250948.345.
+    // docs/references.md §2 WGS84 set: −33.8688, 151.2093 is 56S E 334368.634 N 6250948.345.
     expect(out[0]).toBeCloseTo(151.2093, 7);
     expect(out[1]).toBeCloseTo(-33.8688, 7);
     expect(out[2]).toBe(12.5);

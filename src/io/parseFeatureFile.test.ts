@@ -55,7 +55,7 @@ describe('parseFeatureFile', () => {
   });
 
   it('reprojects a UTM file named by its crs member to the published lon/lat', async () => {
-    // REFERENCES.md §2 (proj4 2.22, Krüger series and GeoConvert agree to 1 mm):
+    // docs/references.md §2 (proj4 2.22, Krüger series and GeoConvert agree to 1 mm):
     // −33.8688, 151.2093 is 56S E 334368.634 N 6250948.345.
     const pt = { type: 'Point', coordinates: [334368.634, 6250948.345] };
     const fc = await parseFeatureFile('utm.geojson', enc(JSON.stringify({ type: 'FeatureCollection', crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::32756' } }, features: [{ type: 'Feature', properties: {}, geometry: pt }] })));
@@ -65,7 +65,7 @@ describe('parseFeatureFile', () => {
   });
 
   it('uses the epsg option when the file has no crs member', async () => {
-    // REFERENCES.md §2: 40.5, −73.5 is 18N E 627103.087 N 4484335.402.
+    // docs/references.md §2: 40.5, −73.5 is 18N E 627103.087 N 4484335.402.
     const pt = { type: 'Point', coordinates: [627103.087, 4484335.402] };
     const fc = await parseFeatureFile('p.geojson', enc(JSON.stringify(pt)), { epsg: 32618 });
     const [lon, lat] = (fc.features[0].geometry as { coordinates: number[] }).coordinates;

@@ -3,7 +3,7 @@ import proj4 from 'proj4';
 import { describe, expect, it } from 'vitest';
 import { parseGeoJson } from './parseGeoJson';
 
-// IOGP Guidance Note 7-2 British National Grid example (REFERENCES.md §2): 50°30′N 0°30′E on OSGB36.
+// IOGP Guidance Note 7-2 British National Grid example (docs/references.md §2): 50°30′N 0°30′E on OSGB36.
 const BNG_POINT = { type: 'Point', coordinates: [577274.99, 69740.5] };
 // EPSG transformation 1314 (OSGB36 → WGS84, position vector), typed from the EPSG dataset.
 const OSGB36_GEOGRAPHIC = '+proj=longlat +ellps=airy +towgs84=446.448,-125.157,542.06,0.15,0.247,0.842,-20.489 +no_defs';

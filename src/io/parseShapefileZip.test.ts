@@ -195,7 +195,7 @@ describe('parseShapefileZip and featuresToShapefileZip', () => {
 
   it('projects the IOGP Guidance Note 7-2 British National Grid example with our EPSG:27700 definition', () => {
     // IOGP Publication 373-7-2 (Guidance Note 7 part 2), Transverse Mercator example: OSGB 1936
-    // 50°30'N 0°30'E → E 577274.99, N 69740.50 (REFERENCES.md §2). The example is on OSGB 1936
+    // 50°30'N 0°30'E → E 577274.99, N 69740.50 (docs/references.md §2). The example is on OSGB 1936
     // itself, so the datum shift is left out: Airy 1830 geographic → our projection parameters.
     const def = crsResolveEpsg(27700, 'test').definition.replace(/\+towgs84=\S+/, '');
     const [e, n] = proj4('+proj=longlat +ellps=airy +no_defs', def, [0.5, 50.5]);

@@ -68,7 +68,7 @@ describe('plotsToCsv', () => {
 
 describe('parsePointCsv', () => {
   it('detects easting/northing with a utm_zone column and converts them (GeoConvert manual example)', async () => {
-    // GeographicLib GeoConvert manual: 33.3°N 44.4°E = 38N 444140.54 3684706.36 (REFERENCES.md §2).
+    // GeographicLib GeoConvert manual: 33.3°N 44.4°E = 38N 444140.54 3684706.36 (docs/references.md §2).
     const back = await parsePointCsv('utm.csv', enc('id,Easting,Northing,utm_zone\nA,444140.54,3684706.36,38N\n'));
     const [lon, lat] = (back.features[0].geometry as { coordinates: number[] }).coordinates;
     expect(lon).toBeCloseTo(44.4, 6);

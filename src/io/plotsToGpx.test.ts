@@ -11,7 +11,7 @@ import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samp
 import { parseGpx } from './parseGpx';
 import { plotsToGpx } from './plotsToGpx';
 
-// The GPX 1.1 schema as published by Topografix (copy in /work/shared/schemas, see REFERENCES.md).
+// The GPX 1.1 schema as published by Topografix (copy in tests/schemas, see docs/references.md §9).
 const XSD = GPX_XSD;
 
 function xmllint(text: string): string {

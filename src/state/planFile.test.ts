@@ -32,6 +32,19 @@ describe('plan files', () => {
     expect(other.temporal.getState().pastStates).toHaveLength(0);
   });
 
+  it('opens a plan saved before generator versions were recorded with version 1, so its plots can be made again', () => {
+    const store = plannerStoreCreate(designSettingsDefault({ seed: 7 }));
+    stratumPartAdd(store, 'Heath', square);
+    const saved = planFileFromState(store.getState(), '2026-12-01T00:00:00.000Z');
+    expect(planFileParse(JSON.stringify(saved), 'new.stratplot.json').design.rngVersion).toBe(2);
+    const { rngVersion: _dropped, ...before } = saved.design;
+    const old = planFileParse(JSON.stringify({ ...saved, design: before }), 'old.stratplot.json');
+    expect(old.design.rngVersion).toBe(1);
+    const other = plannerStoreCreate(designSettingsDefault());
+    planFileApply(other, old, designSettingsDefault(), true);
+    expect(other.getState().design.rngVersion).toBe(1);
+  });
+
   it('names the file and the problem when a plan cannot be read', () => {
     expect(() => planFileParse('{"format":', 'a.json')).toThrow(/^a\.json: not valid JSON/);
     expect(() => planFileParse('{"type":"FeatureCollection"}', 'b.json')).toThrow('b.json: not a stratplot plan file');

@@ -73,6 +73,8 @@ function siteCheck(site: unknown, fileName: string): Site {
  * had separate ids and names and before field decisions lived on the plots alone) are migrated
  * first (planFileMigrateV1). Throws InputError naming the file when it is not JSON, not a
  * stratplot plan, of a newer version than this program reads, or missing its site or design.
+ * A plan saved before random generator versions were recorded gets version 1, the streams it was
+ * made with, so running its design again gives the same plots.
  */
 export function planFileParse(text: string, fileName: string): PlanFile {
   let data: unknown;
@@ -97,7 +99,7 @@ export function planFileParse(text: string, fileName: string): PlanFile {
     version: PLAN_FILE_VERSION,
     savedAt: typeof data.savedAt === 'string' ? data.savedAt : '',
     site,
-    design: data.design as unknown as DesignSettings,
+    design: { ...(data.design as unknown as DesignSettings), rngVersion: (data.design.rngVersion as DesignSettings['rngVersion']) ?? 1 },
     result: result === null ? null : plotCollectionById(result as unknown as NonNullable<PlanFile['result']>),
     ...(results ? { results } : {}),
   };

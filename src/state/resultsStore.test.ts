@@ -8,7 +8,7 @@ function valuesWith(n: number, mean: number, variance: number): number[] {
   return Array.from({ length: n }, (_, i) => mean + Math.sqrt(variance) * ((i + 1 - (n + 1) / 2) / rankSd));
 }
 
-// Thompson, Sampling, 3rd ed. 2012, ch. 11 (aerial survey): N_h, n_h, ȳ_h, s_h² as in /work/shared/REFERENCES.md §3.
+// Thompson, Sampling, 3rd ed. 2012, ch. 11 (aerial survey): N_h, n_h, ȳ_h, s_h² as in docs/references.md §3.
 // In an areal design N_h is the stratum area in plot units: 1 m² plots over N_h m².
 const THOMPSON = [
   { N: 400, n: 98, mean: 24.1, s2: 5575 },
@@ -49,7 +49,7 @@ describe('resultsStore', () => {
     expect(s.mapping?.idColumn).toBe('plot_id');
     expect(s.variable).toBe('animals');
     expect(s.problems.filter((p) => p.severity === 'error')).toEqual([]);
-    // Thompson 2012 ch. 11 / REFERENCES §3: τ̂ = 54 496.6, v = 34 105 732.4 (SE 5 840.0), df 134.3.
+    // Thompson 2012 ch. 11, docs/references.md §3: τ̂ = 54 496.6, v = 34 105 732.4 (SE 5 840.0), df 134.3.
     expect(s.report?.total).toBeCloseTo(54_496.6, 6);
     expect(s.report?.total_se).toBeCloseTo(Math.sqrt(34_105_732.4), 2);
     expect(s.report?.df).toBeCloseTo(134.3, 1);
@@ -112,7 +112,7 @@ describe('resultsStore', () => {
     expect(s.loadError).toBe('broken.csv row 2: 3 fields, but the header has 2');
   });
 
-  it('collapses a one-plot stratum and lends its group’s SD to next season’s Neyman sizes', () => {
+  it('collapses a one-plot stratum for the variance and lends its group’s pooled SD to next season’s Neyman sizes', () => {
     const store = resultsStoreCreate();
     const csv = 'plot_id,height\nHEA-01,12\nHEA-02,15\nHEA-03,14\nHEA-04,18\nSAL-01,5\nSAL-02,7\nSAL-03,6\nDUN-01,30\n';
     resultsLoad(store, 'h.csv', csv, small);
@@ -120,7 +120,7 @@ describe('resultsStore', () => {
     expect(store.getState().nextError).toContain('Dune');
     resultsOptionsSet(store, { collapse: true, target: { value: 1, relative: false } }, small);
     const s = store.getState();
-    expect(s.report?.collapsed).toEqual(['Dune (n = 1) merged with Saltmarsh']);
+    expect(s.report?.collapsed).toEqual(['Saltmarsh (n = 3) + Dune (n = 1)']);
     expect(s.report?.se).not.toBeNull();
     // Saltmarsh + Dune pooled: 5, 7, 6, 30 → sample SD by hand √(((−7)² + (−5)² + (−6)² + 18²)/3) = √(434/3).
     expect(s.nextSd.Dune).toBeCloseTo(Math.sqrt(434 / 3), 12);

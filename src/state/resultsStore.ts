@@ -185,34 +185,26 @@ export function resultsRecompute(store: ResultsStore, collection: PlotCollection
     const errors = problems.filter((p) => p.severity === 'error').length;
     estimateError = errors > 0 ? `No estimate until the ${errors} error${errors > 1 ? 's' : ''} listed under Problems ${errors > 1 ? 'are' : 'is'} fixed in the file.` : errorText(e);
   }
-  const nextPart = report ? nextSeasonFor(collection, table, value, kind, s, report) : { next: null, nextSd: {}, nextError: null };
+  const nextPart = report ? nextSeasonFor(collection, s, report) : { next: null, nextSd: {}, nextError: null };
   store.setState({ problems, report, estimateError, plotValues, ...nextPart, colouring: s.colourOn ? s.colouring : null });
 }
 
 /**
  * Next season's sizes from this season's per-stratum SDs. Strata too small for an SD of their own
- * borrow the SD of the collapsed group they were merged into when collapsing is on.
+ * borrow the SD of their collapsed group's plots pooled when collapsing is on (a planning value).
  */
-function nextSeasonFor(
-  collection: PlotCollection,
-  table: ResultsTable,
-  value: string,
-  kind: ResultKind,
-  s: ResultsState,
-  report: EstimateReport,
-): Pick<ResultsState, 'next' | 'nextSd' | 'nextError'> {
+function nextSeasonFor(collection: PlotCollection, s: ResultsState, report: EstimateReport): Pick<ResultsState, 'next' | 'nextSd' | 'nextError'> {
   try {
-    const own = s.collapse ? estimateFromResults(collection, table, { value, kind, collapse: false, perHa: s.perHa }) : report;
     const sdOverride: Record<string, number> = {};
-    for (const g of report.strata) {
-      if (g.members.length < 2 || g.sd === null) continue;
-      for (const k of g.members) if ((own.strata.find((x) => x.stratum === k)?.sd ?? null) === null) sdOverride[k] = g.sd;
+    for (const g of report.collapsed_groups) {
+      if (g.pooled_sd === null) continue;
+      for (const k of g.strata) if ((report.strata.find((x) => x.stratum === k)?.sd ?? null) === null) sdOverride[k] = g.pooled_sd;
     }
     const next = nextSeasonSampleSize(
-      own.strata.map((x) => ({ stratum: x.stratum, basisM2: x.basis_m2, sd: x.sd })),
+      report.strata.map((x) => ({ stratum: x.stratum, basisM2: x.basis_m2, sd: x.sd })),
       { target: s.target, observedMean: report.mean, plotAreaM2: report.plot_area_m2, minPerStratum: Math.max(2, collection.design.settings.minPerStratum), sdOverride },
     );
-    const nextSd = Object.fromEntries(own.strata.map((x) => [x.stratum, sdOverride[x.stratum] ?? (x.sd as number)]));
+    const nextSd = Object.fromEntries(report.strata.map((x) => [x.stratum, sdOverride[x.stratum] ?? (x.sd as number)]));
     return { next, nextSd, nextError: null };
   } catch (e) {
     return { next: null, nextSd: {}, nextError: errorText(e) };

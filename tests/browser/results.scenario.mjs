@@ -110,7 +110,7 @@ export const RESULTS_SCENARIO = {
     await page.getByLabel('Marked M for Grid 1').fill('948');
     await page.getByLabel('Caught n for Grid 1').fill('421');
     await page.getByLabel('Recaptured m for Grid 1').fill('167');
-    // Krebs 1989 Box 2.1 (REFERENCES §4): Chapman 2382.80, SE 129.06.
+    // Krebs 1989 Box 2.1 (docs/references.md §4): Chapman 2382.80, SE 129.06.
     const chapman = await page.locator('dd[data-fact="chapman"]').textContent();
     check(chapman === '2,383', `Chapman shows ${chapman}, Krebs gives 2382.80`);
     await page.locator('dd[data-fact="chapman"]').scrollIntoViewIfNeeded();
@@ -124,9 +124,14 @@ export const RESULTS_SCENARIO = {
       await page.setInputFiles('input[data-import="results"]', { name: 'invented-results-short.csv', mimeType: 'text/csv', buffer: Buffer.from(shortCsv) });
       await page.waitForSelector(`tr[data-stratum="${lone[0].stratum}"] .results-flag`);
       check((await page.locator('td[data-cell="se"]').textContent()) === '–', 'an SE is shown although a stratum has one plot');
-      await page.getByLabel('Collapse strata with fewer than 2 plots for the variance').check();
+      const meanBefore = await page.locator('td[data-cell="mean"]').textContent();
+      await page.getByLabel('Collapse strata with one plot for the variance (the mean keeps every stratum)').check();
       await page.waitForFunction(() => document.querySelector('td[data-cell="se"]')?.textContent !== '–');
-      await page.locator('.results-formulas').scrollIntoViewIfNeeded();
+      // Collapsing replaces only the variance (Cochran 1977 §5A.12): the mean stays, the groups are named.
+      check((await page.locator('td[data-cell="mean"]').textContent()) === meanBefore, 'collapsing changed the stratified mean');
+      const note = (await page.locator('[data-fact="collapsed"]').textContent()) ?? '';
+      check(note.includes(lone[0].stratum) && note.includes('conservative'), `the collapsed-strata note reads "${note}"`);
+      await page.locator('[data-fact="collapsed"]').scrollIntoViewIfNeeded();
       await shot('results-collapsed');
     }
   },

@@ -1,4 +1,5 @@
 import { booleanPointInPolygon } from '@turf/turf';
+import { DESIGN_SIZING_SCENARIO } from './designSizing.scenario.mjs';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
@@ -298,4 +299,5 @@ export const SCENARIOS = [
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
   FIELD_STATE_SCENARIO,
+  DESIGN_SIZING_SCENARIO,
 ];

@@ -1,4 +1,5 @@
 import { plannerPlotsNamed } from '../../state/plotsNamed';
+import { rngVersionOf } from '../../core/rngStreams';
 import { fmtHa, fmtPct } from '../format';
 import { usePlanner } from '../usePlanner';
 
@@ -56,7 +57,7 @@ export function AllocationTable() {
         </tfoot>
       </table>
       <p className="fine">
-        Seed {result.design.seed} · UTM {result.design.crs.utm_zone} (EPSG:{result.design.crs.epsg})
+        Seed {result.design.seed}, random generator version {rngVersionOf(result.design.settings)} · UTM {result.design.crs.utm_zone} (EPSG:{result.design.crs.epsg})
       </p>
       {result.design.warnings.length ? (
         <ul className="warnings" aria-label="Design warnings">

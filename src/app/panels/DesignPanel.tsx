@@ -6,7 +6,10 @@ import { designJobCancel, designJobStart } from '../designJob';
 import { plannerStore } from '../plannerStoreInstance';
 import { attempt, usePlanner } from '../usePlanner';
 import { AllocationTable } from './AllocationTable';
+import { DesignBudgetBox } from './DesignBudgetBox';
+import { DesignPrecisionNote } from './DesignPrecisionNote';
 import { NumberField } from './NumberField';
+import { SeedGeneratorNote } from './SeedGeneratorNote';
 import { ToolButton } from './ToolButton';
 
 const PLACEMENTS: [PlacementMethod, string][] = [
@@ -86,14 +89,18 @@ export function DesignPanel() {
           <label htmlFor={ids.size}>Size from</label>
           <select
             id={ids.size}
-            value={byTarget ? 'target' : 'total'}
-            onChange={(e) => set({ targetHalfwidth: e.currentTarget.value === 'target' ? { value: 0.1, relative: true } : null })}
+            value={byTarget ? 'target' : d.budget ? 'budget' : 'total'}
+            onChange={(e) => {
+              const v = e.currentTarget.value;
+              set({ targetHalfwidth: v === 'target' ? { value: 0.1, relative: true } : null, budget: v === 'budget' ? (d.budget ?? { total: 10_000, overhead: 0 }) : null });
+            }}
           >
             <option value="total">a total number of plots</option>
             <option value="target">a target precision</option>
+            <option value="budget">a budget</option>
           </select>
         </div>
-        {byTarget && d.targetHalfwidth ? (
+        {d.budget ? <DesignBudgetBox /> : byTarget && d.targetHalfwidth ? (
           <>
             <NumberField
               label="CI half-width"
@@ -134,13 +141,13 @@ export function DesignPanel() {
           <input type="checkbox" checked={d.redistributeShortfall ?? false} onChange={(e) => set({ redistributeShortfall: e.currentTarget.checked })} />
           move plots a full stratum cannot hold to strata with room
         </label>
-        {d.allocation === 'neyman' || byTarget ? (
+        {d.allocation === 'neyman' || byTarget || d.budget ? (
           <table className="ledger compact" aria-label="Pilot standard deviation and cost by stratum">
             <thead>
               <tr>
                 <th scope="col">Stratum</th>
                 <th scope="col" className="num">Pilot SD</th>
-                <th scope="col" className="num">Relative cost</th>
+                <th scope="col" className="num">{d.budget ? 'Cost per plot' : 'Relative cost'}</th>
               </tr>
             </thead>
             <tbody>
@@ -158,6 +165,7 @@ export function DesignPanel() {
             </tbody>
           </table>
         ) : null}
+        <DesignPrecisionNote />
       </fieldset>
       <fieldset>
         <legend>Seed</legend>
@@ -168,6 +176,7 @@ export function DesignPanel() {
           </button>
         </div>
         <p className="fine">The same site, settings and seed always give the same plots.</p>
+        <SeedGeneratorNote />
       </fieldset>
       <div className="run-row">
         {job ? (

@@ -27,6 +27,7 @@ export function EstimatesTable({ report }: { report: EstimateReport }) {
               <th scope="row">
                 {s.stratum}
                 {s.n < 2 ? <span className="results-flag"> n &lt; 2</span> : null}
+                {s.group ? <span className="results-flag"> collapsed</span> : null}
               </th>
               <td className="num">{s.n}</td>
               <td className="num">{fmtValue(s.mean)}</td>
@@ -79,7 +80,21 @@ export function EstimatesTable({ report }: { report: EstimateReport }) {
           </ul>
         </div>
       ) : null}
-      {report.collapsed.length ? <p className="fine">Collapsed: {report.collapsed.join('; ')}.</p> : null}
+      {report.collapsed_groups.length ? (
+        <div className="results-collapsed" role="note" data-fact="collapsed">
+          <strong>Collapsed strata (variance only)</strong>
+          <ul>
+            {report.collapsed_groups.map((g) => (
+              <li key={g.strata.join('+')}>
+                {g.strata.join(' + ')}: between-strata variance {fmtValue(g.variance)} on {g.df} df
+              </li>
+            ))}
+          </ul>
+          <p className="fine">
+            The mean still weights every stratum by its own area; only these groups’ variance comes from the collapsed-strata estimator (Hansen, Hurwitz &amp; Madow 1953; Cochran 1977 §5A.12), which is conservative: differences between the grouped strata count as sampling error, so the SE and CI tend to be too wide rather than too narrow.
+          </p>
+        </div>
+      ) : null}
       <details className="results-formulas">
         <summary>Formulas used (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5)</summary>
         <ul>

@@ -85,7 +85,7 @@ export function NextSeasonBox({ collection, onUseInDesign }: { collection: PlotC
             </tfoot>
           </table>
           <p className="fine">
-            Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes use z = 1.96 (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5).
+            Aim: ±{fmtValue(next.targetHalfwidth)}. SDs used: {Object.entries(nextSd).map(([k, v]) => `${k} ${fmtValue(v)}`).join(', ')}. Sizes are for the t interval the estimate reports, t(0.975) on each allocation’s Satterthwaite df (Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5; Satterthwaite 1946).
           </p>
           <ul className="fine">
             {next.notes.map((n) => (

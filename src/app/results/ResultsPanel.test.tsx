@@ -98,7 +98,7 @@ describe('ResultsPanel', () => {
   it('works out a recapture grid as it is typed', () => {
     render();
     act(() => recaptureGridSet(resultsStore, 'grid-1', { marked: '948', caught: '421', recaptured: '167' }));
-    // Krebs 1989 Box 2.1 (REFERENCES §4): Chapman 2382.80.
+    // Krebs 1989 Box 2.1 (docs/references.md §4): Chapman 2382.80.
     expect(holder.querySelector('dd[data-fact="chapman"]')?.textContent).toBe('2,383');
   });
 });

@@ -98,7 +98,7 @@ export function ResultsPanel({ collection, onUseInDesign, site = null }: Results
           <h3>Estimate</h3>
           <label className="inline">
             <input type="checkbox" checked={collapse} onChange={(e) => resultsOptionsSet(resultsStore, { collapse: e.currentTarget.checked }, collection)} />
-            Collapse strata with fewer than 2 plots for the variance
+            Collapse strata with one plot for the variance (the mean keeps every stratum)
           </label>
           <p className="fine">Rule: {COLLAPSE_RULE}.</p>
           {report && (report.kind === 'measure' || report.kind === 'count') ? (

@@ -21,7 +21,7 @@ const report = estimateFromResults(plots, table, { value: 'height', kind: 'measu
 describe('results charts', () => {
   it('draws each stratum’s 95 % interval with t on n − 1 df', () => {
     const [heath] = stratumMeanBars(report);
-    // Heath: mean 15, s = √14, n = 6: half-width t(0.975, 5) × √14/√6, t = 2.571 (REFERENCES §7, standard t tables).
+    // Heath: mean 15, s = √14, n = 6: half-width t(0.975, 5) × √14/√6, t = 2.571 (docs/references.md §7, standard t tables).
     const half = 2.5706 * Math.sqrt(14 / 6);
     expect(heath.mean).toBe(15);
     expect(heath.ci95?.[0]).toBeCloseTo(15 - half, 3);
@@ -35,7 +35,7 @@ describe('results charts', () => {
       collapse: false,
     });
     const [, salt] = stratumMeanBars(cover);
-    // Saltmarsh: mean 20, s = √800, n = 2: 20 ± 12.706 × 20 by hand (t(0.975, 1) = 12.706, REFERENCES §7), clipped to 0–100.
+    // Saltmarsh: mean 20, s = √800, n = 2: 20 ± 12.706 × 20 by hand (t(0.975, 1) = 12.706, docs/references.md §7), clipped to 0–100.
     expect(salt.ci95).toEqual([0, 100]);
   });
 

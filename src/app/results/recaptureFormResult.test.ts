@@ -8,7 +8,7 @@ describe('recaptureFormResult', () => {
   it('matches Krebs’ Box 2.1 example for Petersen, Chapman and SE', () => {
     const r = recaptureFormResult(form({ marked: '948', caught: '421', recaptured: '167' }));
     if (r.state !== 'ok') throw new Error(`expected an estimate, got ${r.state}`);
-    // Krebs, Ecological Methodology, 1989, Box 2.1 (REFERENCES §4): Petersen 2390, Chapman 2382.80, SE 129.06.
+    // Krebs, Ecological Methodology, 1989, Box 2.1 (docs/references.md §4): Petersen 2390, Chapman 2382.80, SE 129.06.
     expect(r.estimate.petersen).toBeCloseTo(2389.9, 1);
     expect(r.estimate.chapman).toBeCloseTo(2382.8, 2);
     expect(r.estimate.se).toBeCloseTo(129.06, 2);

@@ -54,7 +54,22 @@ describe('stratplot estimate', () => {
     expect(r.out).toContain('Stratified estimate of stems (count)');
     expect(r.out).toContain('Coastal heath');
     expect(r.out).toContain('Estimates cover the usable area');
-    expect(r.out).toContain('Cochran');
+    // By hand (Cochran 1977 ch. 5, docs/references.md §3): heath 3, 5, 4, 8 → ȳ 5, s² 14/3, n 4, f 0.008;
+    // saltmarsh 1.5, 0, 2 → ȳ 7/6, s² 13/12, n 3, f 0.01; W = 5/8, 3/8.
+    // ȳ_st = 3.125 + 0.4375 = 3.5625; v = (25/64)(0.992)(14/3)/4 + (9/64)(0.99)(13/12)/3
+    //   = 0.4520833 + 0.0502734 = 0.5023568, SE 0.7088; Satterthwaite df
+    //   = v² / (0.4520833²/3 + 0.0502734²/2) = 3.64.
+    const line = r.out.split('\n').find((l) => l.startsWith('mean'))!;
+    expect(line).toMatch(/^mean {3}3\.5625 {3}SE 0\.7088 {3}95 % CI (\S+) to (\S+) {3}df 3\.6$/);
+    const [, lo, hi] = line.match(/CI (\S+) to (\S+)/)!.map(Number);
+    // t(0.975, 3.64) lies between the tabled t(0.975, 4) = 2.776 and t(0.975, 3) = 3.182 (standard t tables).
+    const t = (hi - lo) / 2 / 0.7087713;
+    expect(t).toBeGreaterThan(2.776);
+    expect(t).toBeLessThan(3.182);
+    expect((lo + hi) / 2).toBeCloseTo(3.5625, 4);
+    // Stratum rows by hand: sd √(14/3) = 2.1602, se √(0.992 · (14/3)/4) = 1.0758; sd √(13/12) = 1.0408,
+    // se √(0.99 · (13/12)/3) = 0.5979.
+    expect(r.out).toContain('Coastal heath  4  5.0000  2.1602  1.0758  0.6250\nSaltmarsh      3  1.1667  1.0408  0.5979  0.3750\n');
   });
 
   it('writes the estimates CSV in the results file’s style', async () => {
@@ -71,8 +86,14 @@ describe('stratplot estimate', () => {
     expect(plain.se).toBeNull();
     expect(plain.ci95).toBeNull();
     const c = JSON.parse((await run(['estimate', 'plots.geojson', 'results.csv', '--value', 'v', '--json', '--collapse'], dir)).out);
-    expect(c.strata.map((s: { stratum: string }) => s.stratum)).toEqual(['Coastal heath + Saltmarsh']);
-    expect(c.se).toBeGreaterThan(0);
+    // The mean keeps both strata; only the variance is collapsed (Cochran 1977 §5A.12). By hand:
+    // W = 5/8, 3/8; means 5 and 1 → ȳ_st = 3.5; v = 4 W_1² W_2² (5 − 1)²/(W_1 + W_2)² = 3.515625, 1 df.
+    expect(c.strata.map((s: { stratum: string }) => s.stratum)).toEqual(['Coastal heath', 'Saltmarsh']);
+    expect(c.mean).toBeCloseTo(3.5, 12);
+    expect(c.se).toBeCloseTo(Math.sqrt(3.515625), 12);
+    expect(c.collapsed_groups).toEqual([{ strata: ['Coastal heath', 'Saltmarsh'], variance: expect.closeTo(3.515625, 12), df: 1, pooled_sd: expect.any(Number) }]);
+    const text = (await run(['estimate', 'plots.geojson', 'results.csv', '--value', 'v', '--collapse'], dir)).out;
+    expect(text).toContain('collapsed for the variance: Coastal heath + Saltmarsh (between-strata variance 3.515625, 1 df; conservative)');
   });
 
   it('sizes next season from the observed SDs on request', async () => {

@@ -22,7 +22,8 @@ Options:
   --id-column NAME     column holding plot ids (default plot_id)
   --kind KIND          measure | cover | count | presence (default: guessed from the column)
   --per-ha             the values are already densities per ha (totals = value × ha)
-  --collapse           merge strata with fewer than 2 plots so every SE can be estimated
+  --collapse           estimate the variance of strata with one plot by collapsing them with a
+                       neighbour (between-strata estimator, conservative); the mean keeps them all
   --next-halfwidth X[%]
                        also size next season's sample for a 95 % CI half-width X (absolute,
                        or with % relative to this season's mean), under proportional and Neyman
@@ -44,6 +45,9 @@ function printTable(r: EstimateReport, io: CliIo): void {
   const fmt = (cells: string[]) => cells.map((c, j) => (j === 0 ? c.padEnd(widths[j]) : c.padStart(widths[j]))).join('  ');
   const lines = [`Stratified estimate of ${r.variable} (${r.kind})`, '', fmt(head), ...rows.map(fmt), ''];
   lines.push(`mean   ${f(r.mean)}   SE ${f(r.se)}   95 % CI ${r.ci95 ? `${f(r.ci95[0])} to ${f(r.ci95[1])}` : 'n/a'}   df ${f(r.df, 1)}`);
+  for (const g of r.collapsed_groups) {
+    lines.push(`collapsed for the variance: ${g.strata.join(' + ')} (between-strata variance ${f(g.variance, 6)}, ${g.df} df; conservative)`);
+  }
   if (r.total_unit !== null) {
     lines.push(`total  ${f(r.total, 2)}   SE ${f(r.total_se, 2)}   95 % CI ${r.total_ci95 ? `${f(r.total_ci95[0], 2)} to ${f(r.total_ci95[1], 2)}` : 'n/a'}   (${r.total_unit}, over ${r.area_ha.toFixed(2)} ha)`);
   }
@@ -74,9 +78,11 @@ function printNext(next: NextSeasonSampleSize | string, io: CliIo): void {
     io.out(`${next}\n`);
     return;
   }
-  const lines = [`Next season, for a 95 % CI half-width of ${next.targetHalfwidth.toFixed(4)} (Cochran 1977 ch. 5, z = 1.96):`];
+  const lines = [`Next season, for a 95 % CI half-width of ${next.targetHalfwidth.toFixed(4)} (Cochran 1977 ch. 5; t on the Satterthwaite df):`];
   for (const o of [next.proportional, next.neyman]) {
-    lines.push(`  ${o.allocation.padEnd(12)} ${String(o.n).padStart(5)} plots: ${o.plots.map((p) => `${p.stratum} ${p.plots}`).join(', ')}`);
+    lines.push(
+      `  ${o.allocation.padEnd(12)} ${String(o.n).padStart(5)} plots: ${o.plots.map((p) => `${p.stratum} ${p.plots}`).join(', ')} (expected half-width ${o.halfwidth.toFixed(4)}${o.df === null ? '' : `, ${o.df.toFixed(1)} df`})`,
+    );
   }
   lines.push(...next.notes.map((n) => `  - ${n}`), '');
   io.out(lines.join('\n'));
@@ -99,8 +105,9 @@ function reportJson(r: EstimateReport, next?: NextSeasonSampleSize | string): st
     area_ha: r.area_ha,
     share_basis: r.share_basis,
     plot_area_m2: r.plot_area_m2,
-    strata_detail: r.strata.map((s) => ({ stratum: s.stratum, members: s.members, basis_m2: s.basis_m2, sampling_fraction: s.sampling_fraction })),
+    strata_detail: r.strata.map((s) => ({ stratum: s.stratum, group: s.group, basis_m2: s.basis_m2, sampling_fraction: s.sampling_fraction })),
     collapsed: r.collapsed,
+    collapsed_groups: r.collapsed_groups,
     warnings: r.warnings,
     formulas: r.formulas,
     population: r.population,

@@ -32,7 +32,7 @@ describe('stratplot export', () => {
     const r = await run(dir, 'plots.geojson', '--format', 'gpx', '--out', 'plots.gpx');
     expect(r).toMatchObject({ code: 0, err: '' });
     expect(r.out).toBe('wrote plots.gpx (gpx): 4 primary and 2 reserve plots\n');
-    // Topografix GPX 1.1 schema (REFERENCES.md): xmllint exits 0 when the file is valid.
+    // Topografix GPX 1.1 schema (docs/references.md §9): xmllint exits 0 when the file is valid.
     execFileSync('xmllint', ['--noout', '--schema', GPX_XSD, join(dir, 'plots.gpx')], { stdio: 'pipe' });
   });
 

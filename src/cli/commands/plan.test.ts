@@ -1,6 +1,7 @@
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { jStat } from 'jstat';
 import { describe, expect, it } from 'vitest';
 import type { PlotCollection } from '../../core/designTypes';
 import { runCli } from '../main';
@@ -83,24 +84,77 @@ describe('stratplot plan', () => {
     expect(bad.err).toMatch(/--out x.xyz: unknown format; use one of .geojson/);
   });
 
+  it('says which random generator made the design, and makes version-1 designs on request', async () => {
+    const base = ['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '12', '--seed', '3', '--json'];
+    const now = JSON.parse((await cli(base)).out);
+    expect(now.settings.rngVersion).toBe(2);
+    expect(now.statements.join(' ')).toContain('Seed 3, random generator version 2');
+    const old = JSON.parse((await cli([...base, '--rng-version', '1'])).out);
+    expect(old.settings.rngVersion).toBe(1);
+    expect(old.warnings.join(' ')).toContain('random generator version 1');
+    const bad = await cli([...base, '--rng-version', '3']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toBe('stratplot plan: --rng-version needs 1 or 2, got "3"\n');
+  });
+
   it('refuses strata that cross themselves, naming the feature', async () => {
     const r = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--plots', '4', '--min-per-stratum', '0', '--seed', '1']);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/^stratplot plan: [^\n]*\.geojson: feature 0 [^\n]*\n$/);
   });
 
-  it('sizes the design for a relative target half-width from pilot SDs', async () => {
+  it('sizes the design for a relative target half-width from pilot SDs: exactly the smallest n whose t interval meets it', async () => {
     const keys = ['Coastal heath', 'Dune grassland', 'Saltmarsh', 'Banksia scrub', 'Eucalypt woodland', 'Wet meadow'];
     const sd = keys.map((k) => `${k}=12`).join(',');
     const r = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--target-halfwidth', '10%', '--pilot-mean', '40', '--sd', sd, '--seed', '2', '--json']);
     expect(r.code).toBe(0);
     const design = JSON.parse(r.out);
-    // Proportional, no fpc (point plots): n0 = S² (z/d)² = 144 · (1.96/4)² = 34.57 (Cochran 1977, ch. 5; REFERENCES.md §3);
-    // with the minimum of 2 in each small stratum the smallest whole design meeting d is a little larger.
-    expect(design.statements.join(' ')).toMatch(/continuous formula gave 34\.57/);
-    const n = design.allocation.reduce((a: number, row: { plots: number }) => a + row.plots, 0);
-    expect(n).toBeGreaterThanOrEqual(35);
-    expect(n).toBeLessThanOrEqual(40);
+    // Proportional, no fpc (point plots): n0 = S² (z/d)² = 144 · (1.96/4)² = 34.57 (Cochran 1977, ch. 5;
+    // docs/references.md §3) in the normal approximation; the reported CI uses t on the Satterthwaite df.
+    expect(design.statements.join(' ')).toMatch(/normal-approximation formula gave 34\.57/);
+    const rows = design.allocation as { share: number; plots: number }[];
+    expect(rows.reduce((a, row) => a + row.plots, 0)).toBe(39);
+    // By hand from the allocation: v = Σ W_h² S²/n_h, ν = v² / Σ (W_h² S²/n_h)²/(n_h − 1), half-width
+    // t(0.975, ν) √v with jstat 1.9.6's t quantile: at most 4 with these 39 plots …
+    const halfwidth = (plots: number[]) => {
+      const part = rows.map((row, i) => (row.share ** 2 * 144) / plots[i]);
+      const v = part.reduce((a, b) => a + b, 0);
+      const df = v ** 2 / part.reduce((a, p, i) => a + p ** 2 / (plots[i] - 1), 0);
+      return jStat.studentt.inv(0.975, df) * Math.sqrt(v);
+    };
+    expect(halfwidth(rows.map((row) => row.plots))).toBeLessThanOrEqual(4);
+    // … and more than 4 with the 38-plot design the same allocation rules give.
+    const fewer = JSON.parse((await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '38', '--sd', sd, '--seed', '2', '--json'])).out);
+    const fewerPlots = (fewer.allocation as { plots: number }[]).map((row) => row.plots);
+    expect(fewerPlots.reduce((a, b) => a + b, 0)).toBe(38);
+    expect(halfwidth(fewerPlots)).toBeGreaterThan(4);
+    // The design states the expected half-width at the chosen n, from the pilot SDs.
+    const at38 = (fewer.statements as string[]).find((x) => x.startsWith('Expected precision at n = 38'));
+    expect(Number(at38?.match(/half-width of ([\d.]+)/)?.[1])).toBeCloseTo(halfwidth(fewerPlots), 5);
+  });
+
+  it('sizes the design by a budget with a fixed overhead', async () => {
+    const keys = ['Coastal heath', 'Dune grassland', 'Saltmarsh', 'Banksia scrub', 'Eucalypt woodland', 'Wet meadow'];
+    const sd = keys.map((k, i) => `${k}=${[10, 20, 5, 10, 15, 8][i]}`).join(',');
+    const cost = keys.map((k, i) => `${k}=${[40, 90, 60, 50, 40, 120][i]}`).join(',');
+    const args = ['plan', 'demo-maps/ochre-spit-strata.geojson', '--allocation', 'neyman', '--sd', sd, '--cost', cost, '--budget', '5000', '--overhead', '1200', '--min-per-stratum', '1', '--seed', '2', '--json'];
+    const r = await cli(args);
+    expect(r.code, r.err).toBe(0);
+    const design = JSON.parse(r.out);
+    const rows = design.allocation as { share: number; plots: number }[];
+    // Cochran 1977 §5.5 by hand from the shares: n = (C − c0) Σ W S/√c / Σ W S √c.
+    const S = [10, 20, 5, 10, 15, 8];
+    const c = [40, 90, 60, 50, 40, 120];
+    const a = rows.reduce((x, row, i) => x + (row.share * S[i]) / Math.sqrt(c[i]), 0);
+    const b = rows.reduce((x, row, i) => x + row.share * S[i] * Math.sqrt(c[i]), 0);
+    const real = (3800 * a) / b;
+    const spent = rows.reduce((x, row, i) => x + row.plots * c[i], 0);
+    expect(spent).toBeLessThanOrEqual(3800);
+    expect(design.statements.join(' ')).toContain(`gives ${Math.round(real * 100) / 100} plots in real numbers`);
+    expect(design.statements.join(' ')).toContain(`whole plots cost ${spent}, the largest design within the budget`);
+    const bad = await cli(args.map((x) => (x === '1200' ? '6000' : x)));
+    expect(bad.code).toBe(2);
+    expect(bad.err).toBe('stratplot plan: the fixed overhead 6000 leaves nothing of the budget 5000 for plots\n');
   });
 
   it('gives a CSV for the crew with routes from the access points and a boundary check', async () => {

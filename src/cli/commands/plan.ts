@@ -7,7 +7,8 @@ import type { DesignSettings, PlotCollection } from '../../core/designTypes';
 import { footprintParse } from '../../core/footprintParse';
 import { InputError } from '../../core/InputError';
 import { plotCollectionNamed } from '../../core/plotCollectionNamed';
-import { rngSeedFromClock } from '../../core/rng';
+import { RNG_VERSION_CURRENT, rngSeedFromClock } from '../../core/rng';
+import { rngVersionOf, rngVersionText } from '../../core/rngStreams';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOtherFile } from '../importFlags';
@@ -27,10 +28,14 @@ Allocation:
   --share-basis B           usable | mapped: area the shares follow (default usable)
   --min-per-stratum K       at least K plots in every stratum (default 2)
   --sd KEY=V,...            pilot standard deviations by stratum (neyman, target)
-  --cost KEY=V,...          relative cost per plot by stratum (neyman; default 1)
+  --cost KEY=V,...          cost per plot by stratum: relative for neyman, in the budget's units
+                            with --budget (default 1)
   --target-halfwidth X[%]   size the design for a 95 % CI half-width X of the stratified mean
                             (X% = relative to --pilot-mean)
   --pilot-mean M            pilot mean, for a relative target
+  --budget C                size the design by a budget: the largest design whose plots cost at
+                            most C less the overhead (neyman with --cost: the cost-optimum)
+  --overhead C0             fixed cost of the survey whatever the number of plots (default 0)
   --redistribute            move plots a full stratum cannot hold to strata with room
 Placement:
   --exclude FILE            exclusions (cliff, water, private, hazard, other); repeat for more files
@@ -49,6 +54,8 @@ Placement:
   --transect-interval M     transect method: metres between transects
   --quadrat-interval M      transect method: metres between quadrats along a transect
   --seed S                  random seed (default: from the clock, printed to stderr)
+  --rng-version V           random generator version: 2 (default), or 1 to make again a design
+                            saved before version 2 (its plot file records no version)
 Output:
   --out FILE                write the design; the extension picks the format:
 ${Object.entries(DESIGN_OUTPUT_FORMATS)
@@ -73,6 +80,12 @@ function wholeOption(v: string | undefined, name: string): number | undefined {
   const x = numberOption(v, name);
   if (x !== undefined && !(Number.isInteger(x) && x >= 0)) throw new InputError(`${name} needs a whole number ≥ 0, got "${v}"`);
   return x;
+}
+
+function rngVersionOption(v: string | undefined): 1 | 2 {
+  if (v === undefined) return RNG_VERSION_CURRENT;
+  if (v === '1' || v === '2') return Number(v) as 1 | 2;
+  throw new InputError(`--rng-version needs 1 or 2, got "${v}"`);
 }
 
 /** Reads "KEY=V,KEY=V" (a key may hold spaces; the value follows the last "="). */
@@ -114,7 +127,12 @@ function summaryTable(c: PlotCollection): string {
   ]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
   const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
-  const lines = [fmt(head), ...rows.map(fmt), '', `CRS: WGS84 / UTM zone ${c.design.crs.utm_zone} (EPSG:${c.design.crs.epsg}); seed ${c.design.seed}`];
+  const lines = [
+    fmt(head),
+    ...rows.map(fmt),
+    '',
+    `CRS: WGS84 / UTM zone ${c.design.crs.utm_zone} (EPSG:${c.design.crs.epsg}); seed ${c.design.seed}, ${rngVersionText(rngVersionOf(c.design.settings))}`,
+  ];
   if (c.design.warnings.length) lines.push('', 'Warnings:', ...c.design.warnings.map((w) => `  - ${w}`));
   lines.push('', ...c.design.statements.map((s) => `* ${s}`), '');
   return lines.join('\n');
@@ -158,11 +176,14 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     targetHalfwidth = { value: relative ? value / 100 : value, relative };
   }
   const plots = wholeOption(o.plots, '--plots');
+  const budgetTotal = numberOption(o.budget, '--budget');
+  if (o.overhead !== undefined && budgetTotal === undefined) throw new InputError('--overhead needs --budget C');
+  const budget = budgetTotal === undefined ? null : { total: budgetTotal, overhead: numberOption(o.overhead, '--overhead') ?? 0 };
   const method = o.method ?? 'random';
   const sizedByLayout = method === 'transect' || (method === 'grid' && o['grid-spacing'] !== undefined);
-  if (plots === undefined && !targetHalfwidth && !sizedByLayout) {
+  if (plots === undefined && !targetHalfwidth && !budget && !sizedByLayout) {
     throw new InputError(
-      method === 'grid' ? 'give --plots N or --grid-spacing M for a grid design' : 'give --plots N (or --target-halfwidth X to size the design)',
+      method === 'grid' ? 'give --plots N or --grid-spacing M for a grid design' : 'give --plots N (or --target-halfwidth X or --budget C to size the design)',
     );
   }
   let seed = numberOption(o.seed, '--seed');
@@ -178,6 +199,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     sd: keyValues(o.sd, '--sd', keys),
     cost: keyValues(o.cost, '--cost', keys),
     targetHalfwidth,
+    budget,
     pilotMean: numberOption(o['pilot-mean'], '--pilot-mean') ?? null,
     spacingM: numberOption(o.spacing, '--spacing') ?? 0,
     footprint: footprintParse(o.footprint ?? 'point', '--footprint'),
@@ -190,6 +212,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     transectIntervalM: numberOption(o['transect-interval'], '--transect-interval') ?? null,
     quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval') ?? null,
     seed,
+    rngVersion: rngVersionOption(o['rng-version']),
     redistributeShortfall: o.redistribute ?? false,
   });
   const collection = designRun(site, settings);
@@ -228,6 +251,8 @@ function parse(argv: string[]) {
       cost: { type: 'string' },
       'target-halfwidth': { type: 'string' },
       'pilot-mean': { type: 'string' },
+      budget: { type: 'string' },
+      overhead: { type: 'string' },
       spacing: { type: 'string' },
       footprint: { type: 'string' },
       'edge-buffer': { type: 'string' },
@@ -240,6 +265,7 @@ function parse(argv: string[]) {
       'quadrat-interval': { type: 'string' },
       redistribute: { type: 'boolean' },
       seed: { type: 'string' },
+      'rng-version': { type: 'string' },
       out: { type: 'string' },
       json: { type: 'boolean' },
       ...IMPORT_FLAG_SPECS,

@@ -10,7 +10,7 @@ async function run(argv: string[]) {
 
 describe('stratplot recapture', () => {
   it('reproduces Krebs (1989) Box 2.1 as JSON', async () => {
-    // Krebs, Ecological Methodology, 1989, Box 2.1 (REFERENCES.md §4): Chapman 2382.80, SE 129.06.
+    // Krebs, Ecological Methodology, 1989, Box 2.1 (docs/references.md §4): Chapman 2382.80, SE 129.06.
     const r = await run(['recapture', '--marked', '948', '--caught', '421', '--recaptured', '167', '--json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
@@ -18,6 +18,15 @@ describe('stratplot recapture', () => {
     expect(j.se).toBeCloseTo(129.06, 2);
     expect(Math.round(j.petersen)).toBe(2390);
     expect(j.density_per_ha).toBeNull();
+  });
+
+  it('gives the README’s invented Ochre Spit example (64, 58, 23) as worked by hand from Seber’s formulas', async () => {
+    // Seber 1982 ch. 3 (docs/references.md §4): Chapman (65 · 59)/24 − 1 = 158.7917; variance
+    // 65 · 59 · 41 · 35 / (24² · 25) = 5 503 225 / 14 400 = 382.1684, SE 19.549; Petersen 64 · 58/23 = 161.39.
+    const j = JSON.parse((await run(['recapture', '--marked', '64', '--caught', '58', '--recaptured', '23', '--json'])).out);
+    expect(j.chapman).toBeCloseTo(158.7917, 4);
+    expect(j.se).toBeCloseTo(Math.sqrt(5503225 / 14400), 9);
+    expect(j.petersen).toBeCloseTo((64 * 58) / 23, 9);
   });
 
   it('gives density over a station grid plus strip', async () => {
