@@ -1,5 +1,6 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
+import { LAYOUT_SCENARIO } from './layout.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
@@ -312,4 +313,5 @@ export const SCENARIOS = [
   },
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
+  LAYOUT_SCENARIO,
 ];

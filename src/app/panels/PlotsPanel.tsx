@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { Fragment, useMemo, useState } from 'react';
 import type { PlotProperties } from '../../core/designTypes';
 import { plannerStore } from '../plannerStoreInstance';
@@ -70,7 +71,7 @@ export function PlotsPanel() {
         <span className="step-no">4</span> Plots
       </h2>
       <p className="lead">
-        {result.features.filter((f) => f.properties.role === 'primary').length} primaries and {result.features.filter((f) => f.properties.role === 'reserve').length} reserves. Filled dots are primaries, rings are reserves; promoted reserves are gold, rejected plots grey.
+        {countNoun(result.features.filter((f) => f.properties.role === 'primary').length, 'primary', 'primaries')} and {countNoun(result.features.filter((f) => f.properties.role === 'reserve').length, 'reserve')}. Filled dots are primaries, rings are reserves; promoted reserves are gold, rejected plots grey.
       </p>
       <div className="filter-row">
         <input type="search" aria-label="Filter plots by id or stratum" placeholder="Filter by id or stratum" value={filter} onChange={(e) => setFilter(e.currentTarget.value)} />
