@@ -33,7 +33,7 @@ export function footprintReshape(fp: Footprint, shape: Shape): Footprint {
   }
 }
 
-function sized(fp: Footprint, what: string, v: number | null, patch: (v: number) => Footprint): Footprint {
+function sized(what: string, v: number | null, patch: (v: number) => Footprint): Footprint {
   if (v === null || !(v > 0)) throw new InputError(`plot footprint: the ${what} must be more than 0 m`);
   return patch(v);
 }
@@ -49,11 +49,9 @@ export function FootprintField() {
   const set = (make: () => Footprint) => attempt(() => designSettingsSet(plannerStore, { footprint: make() }));
   const area = footprintAreaM2(fp);
   return (
-    <div className="footprint" role="group" aria-labelledby={id}>
+    <div className="footprint">
       <div className="field">
-        <label htmlFor={`${id}-shape`} id={id}>
-          Plot footprint
-        </label>
+        <label htmlFor={`${id}-shape`}>Plot footprint</label>
         <select id={`${id}-shape`} value={fp.shape} onChange={(e) => set(() => footprintReshape(fp, e.currentTarget.value as Shape))}>
           {SHAPES.map(([v, t]) => (
             <option key={v} value={v}>
@@ -62,14 +60,14 @@ export function FootprintField() {
           ))}
         </select>
       </div>
-      {fp.shape === 'square' ? <NumberField label="Side" unit="m" min={0} value={fp.sideM} onCommit={(v) => set(() => sized(fp, 'side', v, (x) => ({ ...fp, sideM: x })))} /> : null}
+      {fp.shape === 'square' ? <NumberField label="Side" unit="m" min={0} value={fp.sideM} onCommit={(v) => set(() => sized('side', v, (x) => ({ ...fp, sideM: x })))} /> : null}
       {fp.shape === 'rect' ? (
         <>
-          <NumberField label="Width (east–west)" unit="m" min={0} value={fp.widthM} onCommit={(v) => set(() => sized(fp, 'width', v, (x) => ({ ...fp, widthM: x })))} />
-          <NumberField label="Length (north–south)" unit="m" min={0} value={fp.heightM} onCommit={(v) => set(() => sized(fp, 'length', v, (x) => ({ ...fp, heightM: x })))} />
+          <NumberField label="Width (east–west)" unit="m" min={0} value={fp.widthM} onCommit={(v) => set(() => sized('width', v, (x) => ({ ...fp, widthM: x })))} />
+          <NumberField label="Length (north–south)" unit="m" min={0} value={fp.heightM} onCommit={(v) => set(() => sized('length', v, (x) => ({ ...fp, heightM: x })))} />
         </>
       ) : null}
-      {fp.shape === 'circle' ? <NumberField label="Radius" unit="m" min={0} value={fp.radiusM} onCommit={(v) => set(() => sized(fp, 'radius', v, (x) => ({ ...fp, radiusM: x })))} /> : null}
+      {fp.shape === 'circle' ? <NumberField label="Radius" unit="m" min={0} value={fp.radiusM} onCommit={(v) => set(() => sized('radius', v, (x) => ({ ...fp, radiusM: x })))} /> : null}
       {fp.shape === 'square' || fp.shape === 'rect' ? (
         <NumberField
           label="Turned"
