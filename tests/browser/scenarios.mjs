@@ -1,6 +1,9 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
+import { EXPORTS_SCENARIO } from './exports.scenario.mjs';
+import { GUIDANCE_SCENARIO } from './guidance.scenario.mjs';
 import { LAYOUT_SCENARIO } from './layout.scenario.mjs';
+import { NOTHING_LOST_SCENARIO } from './nothingLost.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
@@ -314,4 +317,7 @@ export const SCENARIOS = [
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
   LAYOUT_SCENARIO,
+  NOTHING_LOST_SCENARIO,
+  EXPORTS_SCENARIO,
+  GUIDANCE_SCENARIO,
 ];

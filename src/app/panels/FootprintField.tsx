@@ -70,7 +70,7 @@ export function FootprintField() {
       {fp.shape === 'circle' ? <NumberField label="Radius" unit="m" min={0} value={fp.radiusM} onCommit={(v) => set(() => sized('radius', v, (x) => ({ ...fp, radiusM: x })))} /> : null}
       {fp.shape === 'square' || fp.shape === 'rect' ? (
         <NumberField
-          label="Turned"
+          label="Rotation"
           unit="° clockwise from true north"
           value={fp.angleDeg}
           onCommit={(v) => set(() => ({ ...fp, angleDeg: ((((v ?? 0) % 180) + 180) % 180) }))}
