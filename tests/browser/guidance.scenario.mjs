@@ -113,8 +113,8 @@ export const GUIDANCE_SCENARIO = {
     await page.getByLabel('Width (east–west)').press('Enter');
     await page.getByLabel('Length (north–south)').fill('10');
     await page.getByLabel('Length (north–south)').press('Enter');
-    await page.getByLabel('Rotation').fill('30');
-    await page.getByLabel('Rotation').press('Enter');
+    await page.getByLabel('Rotation', { exact: true }).fill('30');
+    await page.getByLabel('Rotation', { exact: true }).press('Enter');
     await page.waitForFunction(() => document.querySelector('.footprint code')?.textContent === '--footprint rect:20x10@30', null, { timeout: 5000 });
     await shot('guidance-footprint');
     await page.keyboard.press('Control+z');
