@@ -138,6 +138,22 @@ async function deviceRun(browser, origin, watchRoutes, device, shot, check) {
         const masthead = await page.locator('.masthead').boundingBox();
         check(masthead.y + masthead.height > 0 || device.id === 'phone', `${device.id}/results: the masthead left the screen`);
       }
+      if (step === 'strata' && device.id === 'phone') {
+        // The plan's file actions fold into a menu: open it, every action is on screen and free to touch.
+        await page.getByRole('button', { name: /^Plan/ }).click();
+        const items = await page.evaluate((W) => {
+          const out = [];
+          for (const el of document.querySelectorAll('.file-actions button, .file-actions .file-label')) {
+            const r = el.getBoundingClientRect();
+            const hit = document.elementFromPoint(r.left + r.width / 2, r.top + r.height / 2);
+            out.push({ text: el.textContent.trim(), inside: r.left >= 0 && r.right <= W && r.top >= 0 && r.bottom <= window.innerHeight && r.height >= 36, free: hit === el || el.contains(hit) });
+          }
+          return out;
+        }, device.width);
+        check(items.length === 4 && items.every((i) => i.inside && i.free), `phone: the plan menu's actions are not all on screen and free to touch: ${JSON.stringify(items)}`);
+        await shot('layout-phone-plan-menu', page);
+        await page.keyboard.press('Escape');
+      }
       await stepCheck(page, device, step, check);
       await mapIdle(page);
       await shot(`layout-${device.id}-${step}`, page);

@@ -3,14 +3,14 @@ import { EXCLUSION_KINDS } from '../../core/types';
 import { usePlanner } from '../usePlanner';
 import { EXCLUSION_COLOURS, INK } from './palette';
 
-/** True on a narrow screen, where the key starts folded so it covers no data. */
+/** True on a tablet or phone, where the map is too small to give the open key room of its own. */
 function narrow(): boolean {
-  return typeof window !== 'undefined' && window.matchMedia('(max-width: 700px)').matches;
+  return typeof window !== 'undefined' && window.matchMedia('(max-width: 1100px)').matches;
 }
 
 /**
  * The key to the map: strata by colour, code and name; exclusion kinds by colour and hatch; plot
- * symbols. It folds to its title (folded from the start on a phone); the map keeps the site clear of it.
+ * symbols. It folds to its title (folded from the start on a tablet or phone); the map keeps the site clear of it.
  */
 export function MapLegend() {
   const [open, setOpen] = useState(() => !narrow());
