@@ -1,7 +1,8 @@
-import { useState } from 'react';
+import { useEffect, useRef } from 'react';
 import { FileBar } from './FileBar';
 import { FirstSteps } from './FirstSteps';
 import { HistoryButtons } from './HistoryButtons';
+import { DrawHint } from './map/DrawHint';
 import { MapLegend } from './map/MapLegend';
 import { MapView } from './map/MapView';
 import { DesignPanel } from './panels/DesignPanel';
@@ -11,13 +12,20 @@ import { StrataPanel } from './panels/StrataPanel';
 import { ResultsStep } from './results/ResultsStep';
 import { StatusLine } from './StatusLine';
 import { type StepId, StepPath } from './StepPath';
+import { plannerStore } from './plannerStoreInstance';
 import { usePlanner } from './usePlanner';
 import { useShortcuts } from './useShortcuts';
 
-/** The planner: a map with the four-step sheet beside it. */
+/** The planner: a map with the five-step sheet beside it (below it on a phone). */
 export function App() {
   useShortcuts();
-  const [step, setStep] = useState<StepId>('strata');
+  const step = usePlanner((s) => s.step);
+  const setStep = (next: StepId) => plannerStore.setState({ step: next });
+  const sheet = useRef<HTMLDivElement>(null);
+  // Each step's sheet starts at its top, however far down the previous one was read.
+  useEffect(() => {
+    if (step && sheet.current) sheet.current.scrollTop = 0;
+  }, [step]);
   const done = {
     strata: usePlanner((s) => s.site.parts.length > 0),
     exclusions: usePlanner((s) => s.site.exclusions.length > 0),
@@ -32,17 +40,18 @@ export function App() {
           <span className="brand-name">stratplot</span>
           <span className="brand-sub">survey planner</span>
         </div>
+        <FileBar />
         <StepPath step={step} onStep={setStep} done={done} />
         <HistoryButtons />
-        <FileBar />
       </header>
       <main className="workspace">
         <div className="map-pane">
           <MapView />
           <MapLegend />
+          <DrawHint />
           <StatusLine />
         </div>
-        <div className="sheet-pane">
+        <div className="sheet-pane" ref={sheet}>
           <FirstSteps />
           {step === 'strata' ? <StrataPanel /> : null}
           {step === 'exclusions' ? <ExclusionsPanel /> : null}

@@ -1,31 +1,51 @@
-import { useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import type { PlanFile } from '../core/designTypes';
-import { planFileApply, planFileFromState, planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
+import { planFileFromState, planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
+import { planReplace } from '../state/planReplace';
 import { resultsSnapshotTake } from '../state/resultsSnapshot';
 import { ConfirmDialog } from './ConfirmDialog';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { downloadFile, fileSafeName } from './downloadFile';
+import { EarlierWork } from './EarlierWork';
 import { plannerStore } from './plannerStoreInstance';
 import { resultsStore } from './results/resultsStoreInstance';
 import { notify, usePlanner } from './usePlanner';
 
-/** Save and open plan files; opening over unsaved work asks first (our own dialog, never a silent overwrite). */
+/**
+ * The site's name, and the plan's file actions: save, open, the demo site and earlier work kept in
+ * this browser. Replacing unsaved work asks first (our own dialog) and is one undo step. On a narrow
+ * screen the actions fold into a "Plan" menu.
+ */
 export function FileBar() {
   const openId = useId();
+  const menuId = useId();
   const siteName = usePlanner((s) => s.site.name);
   const unsaved = usePlanner(planHasUnsavedWork);
   const [pending, setPending] = useState<{ plan: PlanFile; what: string } | null>(null);
+  const [earlier, setEarlier] = useState(false);
+  const [menu, setMenu] = useState(false);
+  const bar = useRef<HTMLDivElement>(null);
 
-  const apply = (plan: PlanFile, what: string) => {
-    planFileApply(plannerStore, plan, demoDesign(null), true, resultsStore);
-    notify('info', `${what} opened.`);
-  };
+  useEffect(() => {
+    if (!menu) return;
+    const away = (e: Event) => bar.current && !bar.current.contains(e.target as Node) && setMenu(false);
+    const esc = (e: KeyboardEvent) => e.key === 'Escape' && setMenu(false);
+    document.addEventListener('pointerdown', away);
+    document.addEventListener('keydown', esc);
+    return () => {
+      document.removeEventListener('pointerdown', away);
+      document.removeEventListener('keydown', esc);
+    };
+  }, [menu]);
+
+  const apply = (plan: PlanFile, what: string) => planReplace(plannerStore, plan, demoDesign(null), what, true, resultsStore);
   const offer = (plan: PlanFile, what: string) => {
     if (planHasUnsavedWork(plannerStore.getState())) setPending({ plan, what });
     else apply(plan, what);
   };
 
   const save = () => {
+    setMenu(false);
     const s = plannerStore.getState();
     const plan = planFileFromState(s, new Date().toISOString(), resultsSnapshotTake(resultsStore.getState()));
     downloadFile(`${fileSafeName(s.site.name, 'plan')}.stratplot.json`, JSON.stringify(plan, null, 1), 'application/json');
@@ -34,42 +54,62 @@ export function FileBar() {
   };
 
   const open = async (file: File | undefined) => {
+    setMenu(false);
     if (!file) return;
     try {
-      offer(planFileParse(await file.text(), file.name), file.name);
+      offer(planFileParse(await file.text(), file.name), `“${file.name}”`);
     } catch (e) {
-      notify('error', (e as Error).message);
+      // The plan on screen and its browser copy stay as they were.
+      notify('error', `${(e as Error).message}; your current plan is unchanged`);
     }
   };
 
   const demo = async () => {
+    setMenu(false);
     const { site, baseline } = await demoSiteLoad();
-    offer(planFileOf(site, demoDesign(baseline)), 'The invented demo site');
+    offer(planFileOf(site, demoDesign(baseline)), 'the invented demo site');
   };
 
   return (
-    <div className="file-bar">
-      <span className="site-name" title={siteName}>
+    <>
+      <span className="site-name">
         {siteName}
-        {unsaved ? <span className="unsaved"> · unsaved changes (kept in this browser)</span> : null}
+        {unsaved ? (
+          <span className="unsaved">
+            {' '}· unsaved<span className="unsaved-more"> changes (kept in this browser)</span>
+          </span>
+        ) : null}
       </span>
-      <button type="button" onClick={save}>
-        Save plan
-      </button>
-      <label htmlFor={openId} className="file-label">
-        Open plan
-      </label>
-      <input id={openId} className="file-input" type="file" accept=".json,application/json" data-open-plan onChange={(e) => {
-        void open(e.currentTarget.files?.[0]);
-        e.currentTarget.value = '';
-      }} />
-      <button type="button" onClick={() => void demo()}>
-        Demo site
-      </button>
+      <div className="file-bar" ref={bar}>
+        <button type="button" className="file-menu" aria-expanded={menu} aria-controls={menuId} onClick={() => setMenu(!menu)}>
+          Plan <span aria-hidden="true">▾</span>
+        </button>
+        <div className={menu ? 'file-actions file-actions-open' : 'file-actions'} id={menuId}>
+          <button type="button" onClick={save}>
+            Save plan
+          </button>
+          <label htmlFor={openId} className="file-label">
+            Open plan
+          </label>
+          <input id={openId} className="file-input" type="file" accept=".json,application/json" data-open-plan onChange={(e) => {
+            void open(e.currentTarget.files?.[0]);
+            e.currentTarget.value = '';
+          }} />
+          <button type="button" onClick={() => void demo()}>
+            Demo site
+          </button>
+          <button type="button" onClick={() => {
+            setMenu(false);
+            setEarlier(true);
+          }}>
+            Earlier work…
+          </button>
+        </div>
+      </div>
       {pending ? (
         <ConfirmDialog
           title="Replace the plan you are working on?"
-          body={`${pending.what} would replace your current plan, which has changes not saved to a file. Save it first if you may need it.`}
+          body={`${pending.what[0].toUpperCase()}${pending.what.slice(1)} would replace your current plan, which has changes not saved to a file. Undo or “Earlier work” can bring it back; save it first if you want it in a file.`}
           confirmLabel="Replace it"
           onCancel={() => setPending(null)}
           onConfirm={() => {
@@ -78,6 +118,7 @@ export function FileBar() {
           }}
         />
       ) : null}
-    </div>
+      {earlier ? <EarlierWork onClose={() => setEarlier(false)} /> : null}
+    </>
   );
 }

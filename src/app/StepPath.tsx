@@ -1,20 +1,19 @@
-export const STEPS = [
-  { id: 'strata', label: 'Map strata' },
-  { id: 'exclusions', label: 'Mark exclusions' },
-  { id: 'design', label: 'Design' },
-  { id: 'plots', label: 'Plots' },
-  { id: 'results', label: 'Results' },
-] as const;
-export type StepId = (typeof STEPS)[number]['id'];
+import { PLANNER_STEPS, type PlannerStep } from '../state/plannerStore';
 
-/** The numbered path along the sheets, 1 → 4; each step says whether it is done yet in words. */
+export const STEPS = PLANNER_STEPS;
+export type StepId = PlannerStep;
+
+/**
+ * The numbered path along the sheets, 1 → 5; each step says whether it is done yet in words. On a
+ * narrow screen only the numbers and the current step's name show (every button keeps its name).
+ */
 export function StepPath({ step, onStep, done }: { step: StepId; onStep: (s: StepId) => void; done: Partial<Record<StepId, boolean>> }) {
   return (
     <nav className="step-path" aria-label="Planning steps">
       <ol>
         {STEPS.map((s, i) => (
           <li key={s.id}>
-            <button type="button" className={s.id === step ? 'step step-on' : 'step'} aria-current={s.id === step ? 'step' : undefined} onClick={() => onStep(s.id)}>
+            <button type="button" className={`step${s.id === step ? ' step-on' : ''}${done[s.id] ? ' step-done' : ''}`} aria-current={s.id === step ? 'step' : undefined} onClick={() => onStep(s.id)}>
               <span className="step-no">{i + 1}</span>
               <span className="step-label">{s.label}</span>
               <span className="step-state">{done[s.id] ? 'done' : s.id === step ? 'now' : ''}</span>

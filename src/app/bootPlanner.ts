@@ -1,11 +1,9 @@
-import { get, set } from 'idb-keyval';
 import { autosaveRestore, autosaveStart } from '../state/autosave';
 import { planFileApply, planFileOf } from '../state/planFile';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { plannerStore } from './plannerStoreInstance';
 import { resultsStore } from './results/resultsStoreInstance';
-
-const storage = { get: (k: string) => get(k), set: (k: string, v: unknown) => set(k, v) };
+import { browserStorage as storage } from './browserStorage';
 
 /** Opens the work kept in this browser, or the invented demo site on a first visit; then keeps autosaving. */
 export async function bootPlanner(): Promise<void> {
@@ -13,7 +11,7 @@ export async function bootPlanner(): Promise<void> {
   try {
     restored = await autosaveRestore(plannerStore, storage, demoDesign(null), resultsStore);
   } catch (e) {
-    plannerStore.setState({ notice: { tone: 'error', text: `${(e as Error).message}; the demo site was opened instead` } });
+    plannerStore.setState({ notice: { tone: 'error', text: `${(e as Error).message}; it is kept aside untouched and the demo site was opened instead` } });
   }
   if (!restored) {
     const { site, baseline } = await demoSiteLoad();

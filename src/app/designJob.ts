@@ -1,3 +1,4 @@
+import { countNoun } from '../core/countNoun';
 import * as Comlink from 'comlink';
 import { designResultSet } from '../state/designActions';
 import { plannerStore } from './plannerStoreInstance';
@@ -27,7 +28,7 @@ export async function designJobStart(): Promise<void> {
     if (outcome.ok) {
       designResultSet(plannerStore, outcome.collection);
       const n = outcome.collection.features.length;
-      plannerStore.setState({ notice: { tone: 'info', text: `Design made: ${n} plots (primaries and reserves), seed ${outcome.collection.design.seed}.` } });
+      plannerStore.setState({ notice: { tone: 'info', text: `Design made: ${countNoun(n, 'plot')} (primaries and reserves), seed ${outcome.collection.design.seed}.` } });
     } else {
       plannerStore.setState({ job: null, notice: { tone: 'error', text: outcome.message } });
     }

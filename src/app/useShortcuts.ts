@@ -2,6 +2,7 @@ import { useEffect } from 'react';
 import type { DrawTool } from '../state/plannerStore';
 import { historyRedo, historyUndo, selectionRemove } from '../state/historyActions';
 import { plannerStore } from './plannerStoreInstance';
+import { resultsStore } from './results/resultsStoreInstance';
 
 /** Single keys that arm a tool; the same letters are printed on the tool buttons. */
 export const TOOL_KEYS: Record<string, DrawTool> = {
@@ -23,22 +24,32 @@ function typing(target: EventTarget | null): boolean {
   return !!t && (t.tagName === 'INPUT' || t.tagName === 'SELECT' || t.tagName === 'TEXTAREA' || t.isContentEditable);
 }
 
-/** Keyboard: tool letters, Escape cancels the tool, Delete removes the selection, Ctrl+Z / Ctrl+Y undo and redo. */
+const TEXT_TYPES = new Set(['text', 'search', 'number', 'email', 'url', 'tel', '']);
+
+/** Enter in a text or number box outside a form commits it, the same as leaving the box. */
+function commitOnEnter(e: KeyboardEvent): boolean {
+  const t = e.target as HTMLInputElement | null;
+  if (e.key !== 'Enter' || e.isComposing || !t || t.tagName !== 'INPUT' || t.form || !TEXT_TYPES.has(t.type)) return false;
+  if (document.activeElement === t) t.blur();
+  return true;
+}
+
+/** Keyboard: Enter commits a text box; tool letters, Escape cancels the tool, Delete removes the selection, Ctrl+Z / Ctrl+Y undo and redo. */
 export function useShortcuts(): void {
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
-      if (typing(e.target)) return;
+      if (commitOnEnter(e) || typing(e.target)) return;
       const mod = e.ctrlKey || e.metaKey;
       const key = e.key.toLowerCase();
       if (mod && key === 'z') {
         e.preventDefault();
-        if (e.shiftKey) historyRedo(plannerStore);
-        else historyUndo(plannerStore);
+        if (e.shiftKey) historyRedo(plannerStore, resultsStore);
+        else historyUndo(plannerStore, resultsStore);
         return;
       }
       if (mod && key === 'y') {
         e.preventDefault();
-        historyRedo(plannerStore);
+        historyRedo(plannerStore, resultsStore);
         return;
       }
       if (mod || e.altKey) return;

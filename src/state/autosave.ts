@@ -1,18 +1,23 @@
-import type { DesignSettings, PlanFileDocument } from '../core/designTypes';
+import type { DesignSettings, PlanFile, PlanFileDocument } from '../core/designTypes';
 import { InputError } from '../core/InputError';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';
 import { RESULTS_SNAPSHOT_FIELDS, resultsSnapshotTake } from './resultsSnapshot';
+import { workVersionsKeeper } from './autosaveVersions';
 
-/** The two calls autosave needs from a key-value store (idb-keyval's get/set in the browser). */
+/** The calls autosave needs from a key-value store (idb-keyval's get/set/del in the browser). */
 export interface AutosaveStorage {
   get(key: string): Promise<unknown>;
   set(key: string, value: unknown): Promise<void>;
+  del?(key: string): Promise<void>;
 }
 
 /** Key under which the working plan is kept in IndexedDB. */
 export const AUTOSAVE_KEY = 'stratplot:working-plan';
+
+/** Key under which a browser copy that could not be read is set aside (never overwritten by new work). */
+export const AUTOSAVE_UNREADABLE_KEY = 'stratplot:unreadable-copy';
 
 /** What is kept: the plan plus whether it had been written to a file. */
 interface AutosaveRecord {
@@ -25,6 +30,8 @@ interface AutosaveRecord {
  * coalescing bursts into one write per `delayMs`. Returns `flush` (write a pending change now, e.g.
  * when the page is being hidden or closed) and `stop` (stop autosave after flushing). With `results`,
  * the Results step's work (file, mapping, options, recapture forms) is kept too, on its own changes.
+ * Besides the working plan, the last several versions are kept (see workVersionsKeeper): each plan
+ * opened and each session begins a new one.
  */
 export function autosaveStart(
   store: PlannerStore,
@@ -35,15 +42,23 @@ export function autosaveStart(
 ): { flush: () => Promise<void>; stop: () => Promise<void> } {
   let timer: ReturnType<typeof setTimeout> | null = null;
   let writing: Promise<void> = Promise.resolve();
+  const keep = workVersionsKeeper(storage);
+  const session = new Date().toISOString();
   const write = () => {
     timer = null;
     const s = store.getState();
+    const now = new Date();
     const snapshot = results ? resultsSnapshotTake(results.getState()) : null;
-    const record: AutosaveRecord = { plan: planFileFromState(s, new Date().toISOString(), snapshot), saved: s.revision === s.savedRevision };
-    writing = writing.then(() => storage.set(AUTOSAVE_KEY, JSON.stringify(record))).catch((e) => onError?.(e));
+    const record: AutosaveRecord = { plan: planFileFromState(s, now.toISOString(), snapshot), saved: s.revision === s.savedRevision };
+    const text = JSON.stringify(record);
+    const slot = `${session}#${s.planOpened.serial}`;
+    writing = writing
+      .then(() => storage.set(AUTOSAVE_KEY, text))
+      .then(() => keep(text, record.plan, slot, now))
+      .catch((e) => onError?.(e));
   };
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.savedRevision === prev.savedRevision) return;
+    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.savedRevision === prev.savedRevision && s.planOpened === prev.planOpened) return;
     if (timer === null) timer = setTimeout(write, delayMs);
   });
   const unsubscribeResults = results?.subscribe((s, prev) => {
@@ -69,19 +84,26 @@ export function autosaveStart(
 
 /**
  * Restores the working plan kept by {@link autosaveStart}; returns false when there is none.
- * A damaged record is reported through the thrown InputError rather than half-loaded. With
- * `results`, the Results step's kept work is restored as well.
+ * A damaged record (or one written by a newer version) is not half-loaded: it is set aside under
+ * {@link AUTOSAVE_UNREADABLE_KEY}, where new work never overwrites it, and the thrown InputError
+ * says why. With `results`, the Results step's kept work is restored as well.
  */
 export async function autosaveRestore(store: PlannerStore, storage: AutosaveStorage, defaults: DesignSettings, results?: ResultsStore): Promise<boolean> {
   const raw = await storage.get(AUTOSAVE_KEY);
   if (typeof raw !== 'string') return false;
+  let plan: PlanFile;
   let record: AutosaveRecord;
   try {
-    record = JSON.parse(raw) as AutosaveRecord;
-  } catch {
-    throw new InputError('the browser copy of your work is damaged and could not be read');
+    try {
+      record = JSON.parse(raw) as AutosaveRecord;
+    } catch {
+      throw new InputError('the browser copy of your work is damaged and could not be read');
+    }
+    plan = planFileParse(JSON.stringify(record.plan), 'the browser copy of your work');
+  } catch (error) {
+    await storage.set(AUTOSAVE_UNREADABLE_KEY, raw);
+    throw error;
   }
-  const plan = planFileParse(JSON.stringify(record.plan), 'the browser copy of your work');
   planFileApply(store, plan, defaults, record.saved, results);
   return true;
 }

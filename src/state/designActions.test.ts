@@ -33,13 +33,13 @@ describe('design and field decisions in the planner store', () => {
     expect(store.getState().design.plots).toBe(12);
   });
 
-  it('keeps design settings out of the undo history', () => {
+  it('undoes a design setting before the map edit made ahead of it', () => {
     const store = plannerStoreCreate(designSettingsDefault());
     stratumPartAdd(store, 'Heath', box(150, -35, 150.004, -34.996));
     designSettingsSet(store, { plots: 12 });
     historyUndo(store);
-    expect(store.getState().site.parts).toHaveLength(0);
-    expect(store.getState().design.plots).toBe(12);
+    expect(store.getState().site.parts).toHaveLength(1);
+    expect(store.getState().design.plots).toBe(designSettingsDefault().plots);
   });
 
   it('promotes the rank-1 reserve of the same stratum when a primary is rejected, and keeps the decision', () => {

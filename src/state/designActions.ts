@@ -17,6 +17,8 @@ export function designSettingsSet(store: PlannerStore, patch: Partial<DesignSett
   if (patch.seed !== undefined && !(Number.isInteger(patch.seed) && patch.seed >= 0 && patch.seed <= 0xffffffff)) {
     throw new InputError('seed must be a whole number from 0 to 4294967295');
   }
+  // Setting what is already set is no change (and no undo step).
+  if (Object.entries(patch).every(([k, v]) => JSON.stringify(v) === JSON.stringify((s.design as unknown as Record<string, unknown>)[k]))) return;
   store.setState({ design: { ...s.design, ...patch }, revision: s.revision + 1 });
 }
 

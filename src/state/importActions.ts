@@ -1,3 +1,4 @@
+import { countNoun } from '../core/countNoun';
 import type { FeatureCollection } from 'geojson';
 import { InputError, isInputError } from '../core/InputError';
 import type { Site, StratumInfo } from '../core/types';
@@ -108,7 +109,7 @@ function strataMergeInto(site: Site, incoming: { strata: StratumInfo[]; parts: S
  */
 export function importStrata(store: PlannerStore, preview: ImportPreview, field: string): number {
   const incoming = strataFromFeatures(preview.features, { field, fileName: preview.fileName });
-  siteCommit(store, (site) => strataMergeInto(site, incoming), { strataField: field, notice: { tone: 'info', text: `${preview.fileName}: ${incoming.parts.length} features in ${incoming.strata.length} strata added` } });
+  siteCommit(store, (site) => strataMergeInto(site, incoming), { strataField: field, notice: { tone: 'info', text: `${preview.fileName}: ${countNoun(incoming.parts.length, 'feature')} in ${countNoun(incoming.strata.length, 'stratum', 'strata')} added` } });
   return incoming.parts.length;
 }
 
@@ -128,7 +129,7 @@ export function importExclusions(store: PlannerStore, preview: ImportPreview, ma
       return { ...e, id };
     });
     return { ...site, exclusions: [...site.exclusions, ...added] };
-  }, { notice: { tone: 'info', text: `${preview.fileName}: ${incoming.length} exclusions added` } });
+  }, { notice: { tone: 'info', text: `${preview.fileName}: ${countNoun(incoming.length, 'exclusion')} added` } });
   return incoming.length;
 }
 
@@ -143,6 +144,6 @@ export function importAccess(store: PlannerStore, preview: ImportPreview): numbe
       return { ...a, id };
     });
     return { ...site, access: [...site.access, ...added] };
-  }, { notice: { tone: 'info', text: `${preview.fileName}: ${incoming.length} access points added` } });
+  }, { notice: { tone: 'info', text: `${preview.fileName}: ${countNoun(incoming.length, 'access point')} added` } });
   return incoming.length;
 }

@@ -108,10 +108,11 @@ export function planFileParse(text: string, fileName: string): PlanFile {
 /**
  * Puts a plan into the planner, replacing what was there. `saved` says whether the plan equals a
  * file on disk (opened from one) or is unsaved work (restored from autosave). The undo history
- * starts afresh: undo never crosses into another plan. When `results` is given, the Results step
- * takes the plan's results work (or starts empty when the plan has none).
+ * starts afresh unless `keepHistory` (then the replacement is one undo step: see planReplace).
+ * When `results` is given, the Results step takes the plan's results work (or starts empty when
+ * the plan has none).
  */
-export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: DesignSettings, saved: boolean, results?: ResultsStore): void {
+export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: DesignSettings, saved: boolean, results?: ResultsStore, keepHistory = false): void {
   const s = store.getState();
   const revision = s.revision + 1;
   store.setState({
@@ -124,7 +125,7 @@ export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: Des
     selection: null,
     tool: 'none',
   });
-  store.temporal.getState().clear();
+  if (!keepHistory) store.temporal.getState().clear();
   if (!results) return;
   if (plan.results) resultsSnapshotRestore(results, plan.results, plannerPlotsNamed(store.getState()));
   else resultsReset(results);

@@ -1,6 +1,6 @@
 import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection } from '../core/designTypes';
+import type { DesignSettings, PlotCollection, ResultsSnapshot } from '../core/designTypes';
 import type { Site } from '../core/types';
 import type { SiteAnalysis } from '../worker/siteAnalyse';
 
@@ -27,7 +27,27 @@ export interface Notice {
   text: string;
 }
 
-/** Everything the planner holds. Only `site` is in the undo history. */
+/** The planner's steps, in the order a plan is made. */
+export const PLANNER_STEPS = [
+  { id: 'strata', label: 'Map strata' },
+  { id: 'exclusions', label: 'Mark exclusions' },
+  { id: 'design', label: 'Design' },
+  { id: 'plots', label: 'Plots' },
+  { id: 'results', label: 'Results' },
+] as const;
+export type PlannerStep = (typeof PLANNER_STEPS)[number]['id'];
+
+/** Which plan is on screen: what it was opened from, and a number that changes whenever a plan replaces another. */
+export interface PlanOpened {
+  what: string;
+  serial: number;
+}
+
+/**
+ * Everything the planner holds. The plan (site, design, result, field decisions and whatever else
+ * is added to it) is in the undo history; the keys in {@link PLANNER_VIEW_KEYS} are how it is being
+ * looked at and are not.
+ */
 export interface PlannerState {
   site: Site;
   design: DesignSettings;
@@ -55,10 +75,52 @@ export interface PlannerState {
   /** Online tiles under the plan: off unless the user turns them on; `status` says how they are doing. */
   onlineTiles: { enabled: boolean; status: string };
   focus: { bbox: [number, number, number, number]; at: number } | null;
+  /** The step whose sheet is shown. */
+  step: PlannerStep;
+  /** Which plan this is (changes when Open plan, Demo site or a kept version replaces it). */
+  planOpened: PlanOpened;
+  /** The Results step's work that belongs with this plan when it is left by a replacement (see planReplace). */
+  resultsKept: ResultsSnapshot | null;
+}
+
+/** State that is how the plan is looked at, not the plan: never in the undo history. */
+export const PLANNER_VIEW_KEYS = [
+  'revision',
+  'savedRevision',
+  'strataField',
+  'tool',
+  'drawStratumKey',
+  'selection',
+  'job',
+  'notice',
+  'analysis',
+  'imagery',
+  'onlineTiles',
+  'focus',
+  'step',
+] as const satisfies readonly (keyof PlannerState)[];
+
+/** The part of the state the undo history keeps: everything but the view. */
+export type PlannerPlan = Omit<PlannerState, (typeof PLANNER_VIEW_KEYS)[number]>;
+
+const VIEW_KEYS = new Set<string>(PLANNER_VIEW_KEYS);
+
+/** The plan part of a state (see {@link PlannerPlan}). */
+export function plannerPlanOf(s: PlannerState): PlannerPlan {
+  const plan: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(s)) if (!VIEW_KEYS.has(k)) plan[k] = v;
+  return plan as unknown as PlannerPlan;
+}
+
+/** True when two plan parts hold the same objects (every edit makes new objects, so this is enough). */
+export function plannerPlanSame(a: PlannerPlan, b: PlannerPlan): boolean {
+  const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
+  for (const k of keys) if ((a as unknown as Record<string, unknown>)[k] !== (b as unknown as Record<string, unknown>)[k]) return false;
+  return true;
 }
 
 export type PlannerStore = StoreApi<PlannerState> & {
-  temporal: StoreApi<import('zundo').TemporalState<Pick<PlannerState, 'site'>>>;
+  temporal: StoreApi<import('zundo').TemporalState<PlannerPlan>>;
 };
 
 /** An empty site: no strata, no exclusions. */
@@ -67,12 +129,13 @@ export function siteEmpty(name = 'Untitled site'): Site {
 }
 
 /**
- * Creates the planner store (zustand vanilla + zundo). The undo history holds the site only, so
- * undo and redo step through map edits and never through design settings or field decisions.
+ * Creates the planner store (zustand vanilla + zundo). The undo history holds the whole plan:
+ * map edits, design settings, the design made, field decisions and plan replacements are each a
+ * step; the view (step, tool, selection, messages, progress) is not.
  */
 export function plannerStoreCreate(design: DesignSettings, site: Site = siteEmpty()): PlannerStore {
   return createStore<PlannerState>()(
-    temporal<PlannerState, [], [], Pick<PlannerState, 'site'>>(
+    temporal<PlannerState, [], [], PlannerPlan>(
       (): PlannerState => ({
         site,
         design,
@@ -90,10 +153,13 @@ export function plannerStoreCreate(design: DesignSettings, site: Site = siteEmpt
         imagery: null,
         onlineTiles: { enabled: false, status: 'off' },
         focus: null,
+        step: 'strata',
+        planOpened: { what: 'a new plan', serial: 0 },
+        resultsKept: null,
       }),
       {
-        partialize: (s) => ({ site: s.site }),
-        equality: (a, b) => a.site === b.site,
+        partialize: plannerPlanOf,
+        equality: plannerPlanSame,
         limit: 200,
       },
     ),

@@ -28,7 +28,7 @@ export const DESIGN_SIZING_SCENARIO = {
   async run({ page, origin, shot }) {
     await openPlanner(page, origin);
     await page.setInputFiles('input[data-open-plan]', oldPlan());
-    await page.waitForSelector('text=older.stratplot.json opened.', { timeout: 10_000 });
+    await page.waitForSelector('text=Opened “older.stratplot.json”', { timeout: 10_000 });
     await page.getByRole('button', { name: /3\s*Design/ }).click();
     const generator = page.locator('[data-fact="generator"]');
     check(/saved before generator version 2 and still uses random generator version 1/.test((await generator.textContent()) ?? ''), `generator note reads "${await generator.textContent()}"`);

@@ -100,10 +100,12 @@ export async function drawSquare(page, tool = /^Draw stratum/) {
   const b = await page.evaluate(() => window.__stratplotMap.getBounds().toArray());
   const [w, s] = b[0];
   const [e, n] = b[1];
-  const x0 = w + (e - w) * 0.55;
-  const x1 = w + (e - w) * 0.63;
-  const y0 = s + (n - s) * 0.1;
-  const y1 = s + (n - s) * 0.18;
+  // Lower right of the map: clear of the site's data, of the key and of the drawing hint, which
+  // sits at the bottom centre while a tool is armed.
+  const x0 = w + (e - w) * 0.84;
+  const x1 = w + (e - w) * 0.92;
+  const y0 = s + (n - s) * 0.12;
+  const y1 = s + (n - s) * 0.2;
   await page.getByRole('button', { name: tool }).click();
   for (const [x, y] of [[x0, y0], [x1, y0], [x1, y1], [x0, y1], [x0, y0]]) {
     await clickLngLat(page, x, y);

@@ -4,7 +4,7 @@ import { browserCopyWait, check, mapIdle, openPlanner, sourceData } from './help
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
 /** Invented cover values for the plots of the design on screen (not measurements), one rejection replaced by its first reserve. */
-function inventedResults(plots) {
+export function inventedResults(plots) {
   const strata = [...new Set(plots.map((p) => p.stratum))];
   const rows = ['plot_id;status;replaced_by;cover_pct;orchid'];
   const values = new Map();

@@ -46,7 +46,7 @@ try {
       void d.dismiss();
     });
     try {
-      await scenario.run({ page, context, watch, origin: ORIGIN, shot: (name) => page.screenshot({ path: join(shots, `${name}.png`) }) });
+      await scenario.run({ page, context, watch, origin: ORIGIN, shot: (name) => page.screenshot({ path: join(shots, `${name}.png`) }), shotAt: (name, other) => other.screenshot({ path: join(shots, `${name}.png`) }) });
       if (watch.offsite.length) throw new Error(`requests left 127.0.0.1: ${watch.offsite.slice(0, 3).join(', ')}`);
       if (watch.consoleErrors.length) throw new Error(`console errors: ${watch.consoleErrors.slice(0, 3).join(' | ')}`);
       if (watch.dialogs.length) throw new Error(`unexpected dialog: ${watch.dialogs[0]}`);

@@ -1,6 +1,10 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { DESIGN_SIZING_SCENARIO } from './designSizing.scenario.mjs';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
+import { EXPORTS_SCENARIO } from './exports.scenario.mjs';
+import { GUIDANCE_SCENARIO } from './guidance.scenario.mjs';
+import { LAYOUT_SCENARIO } from './layout.scenario.mjs';
+import { NOTHING_LOST_SCENARIO } from './nothingLost.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, drawSquare, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
@@ -300,4 +304,8 @@ export const SCENARIOS = [
   IMPORT_CHOICE_SCENARIO,
   FIELD_STATE_SCENARIO,
   DESIGN_SIZING_SCENARIO,
+  LAYOUT_SCENARIO,
+  NOTHING_LOST_SCENARIO,
+  EXPORTS_SCENARIO,
+  GUIDANCE_SCENARIO,
 ];

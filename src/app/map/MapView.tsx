@@ -10,6 +10,7 @@ import { plannerStore } from '../plannerStoreInstance';
 import { notify } from '../usePlanner';
 import { drawControlInstall } from './drawControl';
 import { hatchImagesInstall, labelImagesInstall } from './labelImages';
+import { mapFitPadding } from './mapFitPadding';
 import { mapHandleSet } from './mapHandle';
 import { mapStyleInitial, mapStyleLandInstall } from './mapStyle';
 import { plotPopupContent } from './plotPopup';
@@ -74,10 +75,10 @@ export function MapView() {
       cleanups.push(resultsMapLayerInstall(map, plannerStore));
       cleanups.push(drawControlInstall(map, plannerStore, notify));
       const b = siteBounds(plannerStore.getState().site);
-      if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+      if (b) map.fitBounds(b, { padding: mapFitPadding(map), duration: 0 });
       cleanups.push(
         plannerStore.subscribe((s, prev) => {
-          if (s.focus && s.focus !== prev.focus) map.fitBounds(s.focus.bbox, { padding: 60, maxZoom: 18, duration: 400 });
+          if (s.focus && s.focus !== prev.focus) map.fitBounds(s.focus.bbox, { padding: mapFitPadding(map, 20), maxZoom: 18, duration: 400 });
           if (popupPlot && (s.result !== prev.result || s.site.strata !== prev.site.strata) && !popupShow(s, popupPlot)) popup.remove();
         }),
       );
@@ -119,7 +120,7 @@ export function MapView() {
             plannerStore.setState({ imagery: null });
           }
           const b = siteBounds(s.site);
-          if (b) map.fitBounds(b, { padding: 40, duration: 0 });
+          if (b) map.fitBounds(b, { padding: mapFitPadding(map), duration: 0 });
         }),
       );
     });

@@ -75,7 +75,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
     id: 'sp-strata-label',
     type: 'symbol',
     source: 'sp-strata',
-    layout: { 'icon-image': ['concat', `${LABEL_PREFIX}!`, ['get', 'code'], ' ', ['get', 'label']], 'icon-allow-overlap': false, 'symbol-placement': 'point' },
+    layout: { 'icon-image': ['concat', `${LABEL_PREFIX}!`, ['get', 'code'], ' ', ['get', 'label']], 'icon-allow-overlap': false, 'symbol-placement': 'point', 'symbol-sort-key': ['get', 'label_rank'] },
   });
   map.addLayer({
     id: 'sp-exclusions-label',

@@ -33,4 +33,20 @@ describe('map sources built from the plan', () => {
     expect(states.sort()).toEqual(['primary', 'primary', 'reserve']);
     expect(strataSource(site).features[0].properties).toMatchObject({ code: 'HEA', colour: '#cc6677', label: 'Heath' });
   });
+
+  it('ranks each stratum’s largest feature ahead of the others for its label, smaller strata first', () => {
+    const box = (w: number, size: number): Polygon => ({ type: 'Polygon', coordinates: [[[w, -35], [w + size, -35], [w + size, -35 + size], [w, -35 + size], [w, -35]]] });
+    const three: Site = {
+      ...site,
+      strata: [...site.strata, { key: 'Marsh', label: 'Marsh', code: 'MAR', colour: '#117733' }],
+      parts: [
+        { id: 'a', stratum: 'Heath', geometry: box(150, 0.01) },
+        { id: 'b', stratum: 'Heath', geometry: box(150.02, 0.002) },
+        { id: 'c', stratum: 'Marsh', geometry: box(150.04, 0.001) },
+      ],
+    };
+    const rank = Object.fromEntries(strataSource(three).features.map((f) => [f.properties?.id, f.properties?.label_rank as number]));
+    expect(rank.c).toBeLessThan(rank.a);
+    expect(rank.a).toBeLessThan(rank.b);
+  });
 });

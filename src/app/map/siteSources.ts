@@ -6,17 +6,48 @@ import type { Site } from '../../core/types';
 
 const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
 
-/** Stratum features coloured by their stratum, with the label and code the map prints. */
+/** Rough size of a part for ordering labels: its bounding box in square degrees (no units needed). */
+function partSize(geometry: Site['parts'][number]['geometry']): number {
+  let w = Infinity;
+  let s = Infinity;
+  let e = -Infinity;
+  let n = -Infinity;
+  const rings = geometry.type === 'Polygon' ? [geometry.coordinates[0]] : geometry.coordinates.map((p) => p[0]);
+  for (const ring of rings) {
+    for (const [x, y] of ring) {
+      w = Math.min(w, x);
+      s = Math.min(s, y);
+      e = Math.max(e, x);
+      n = Math.max(n, y);
+    }
+  }
+  return Number.isFinite(w) ? (e - w) * (n - s) : 0;
+}
+
+/**
+ * Stratum features coloured by their stratum, with the label and code the map prints and a
+ * `label_rank` for placing labels: each stratum's largest feature first (smaller strata before
+ * larger, as they have less room), then the other features, so every stratum keeps at least one
+ * label where labels would collide — a freshly drawn stratum as well as imported ones.
+ */
 export function strataSource(site: Site): FeatureCollection {
   const info = new Map(site.strata.map((s) => [s.key, s]));
+  const sizes = site.parts.map((p) => partSize(p.geometry));
+  const largest = new Map<string, number>();
+  site.parts.forEach((p, i) => {
+    const at = largest.get(p.stratum);
+    if (at === undefined || sizes[i] > sizes[at]) largest.set(p.stratum, i);
+  });
+  const biggest = Math.max(1e-12, ...sizes);
   return {
     type: 'FeatureCollection',
-    features: site.parts.map((p) => {
+    features: site.parts.map((p, i) => {
       const s = info.get(p.stratum);
+      const rank = (largest.get(p.stratum) === i ? 0 : 2) + sizes[i] / biggest;
       return {
         type: 'Feature',
         geometry: p.geometry,
-        properties: { id: p.id, stratum: p.stratum, label: s?.label ?? p.stratum, code: s?.code ?? '?', colour: s?.colour ?? '#777777' },
+        properties: { id: p.id, stratum: p.stratum, label: s?.label ?? p.stratum, code: s?.code ?? '?', colour: s?.colour ?? '#777777', label_rank: rank },
       };
     }),
   };

@@ -1,6 +1,5 @@
 import { useId } from 'react';
 import type { AllocationMethod, PlacementMethod } from '../../core/designTypes';
-import { footprintFormat, footprintParse } from '../../core/footprintParse';
 import { designSeedFresh, designSettingsSet } from '../../state/designActions';
 import { designJobCancel, designJobStart } from '../designJob';
 import { plannerStore } from '../plannerStoreInstance';
@@ -8,6 +7,7 @@ import { attempt, usePlanner } from '../usePlanner';
 import { AllocationTable } from './AllocationTable';
 import { DesignBudgetBox } from './DesignBudgetBox';
 import { DesignPrecisionNote } from './DesignPrecisionNote';
+import { FootprintField } from './FootprintField';
 import { NumberField } from './NumberField';
 import { SeedGeneratorNote } from './SeedGeneratorNote';
 import { ToolButton } from './ToolButton';
@@ -30,7 +30,7 @@ export function DesignPanel() {
   const strata = usePlanner((s) => s.site.strata);
   const job = usePlanner((s) => s.job);
   const set = (patch: Parameters<typeof designSettingsSet>[1]) => attempt(() => designSettingsSet(plannerStore, patch));
-  const ids = { method: useId(), alloc: useId(), basis: useId(), fp: useId(), size: useId() };
+  const ids = { method: useId(), alloc: useId(), basis: useId(), size: useId() };
   const byTarget = d.targetHalfwidth !== null;
   return (
     <section className="sheet" aria-labelledby="design-title">
@@ -66,20 +66,7 @@ export function DesignPanel() {
             <NumberField label="Quadrat interval" unit="m" min={1} value={d.quadratIntervalM} allowEmpty onCommit={(v) => set({ quadratIntervalM: v })} />
           </>
         ) : null}
-        <div className="field">
-          <label htmlFor={ids.fp}>Plot footprint</label>
-          <input
-            id={ids.fp}
-            className="fp-input"
-            defaultValue={footprintFormat(d.footprint)}
-            key={footprintFormat(d.footprint)}
-            title="point, square:20, rect:20x10@30 or circle:5.64 (metres; angle clockwise from true north)"
-            onBlur={(e) => {
-              const text = e.currentTarget.value;
-              if (text !== footprintFormat(d.footprint)) attempt(() => designSettingsSet(plannerStore, { footprint: footprintParse(text, 'plot footprint') }));
-            }}
-          />
-        </div>
+        <FootprintField />
         <NumberField label="Minimum spacing" unit="m" min={0} value={d.spacingM} onCommit={(v) => set({ spacingM: v ?? 0 })} />
         <NumberField label="Edge buffer" unit="m" min={0} value={d.edgeBufferM} onCommit={(v) => set({ edgeBufferM: v ?? 0 })} />
       </fieldset>

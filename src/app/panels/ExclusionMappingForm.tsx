@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { useId, useState } from 'react';
 import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type ExclusionKind } from '../../core/types';
 import type { ImportPreview } from '../../state/importActions';
@@ -40,7 +41,7 @@ export function ExclusionMappingForm({ preview, onAdd, onCancel }: { preview: Im
       }}
     >
       <p>
-        {preview.fileName}: {total} features ({preview.polygons} areas, {preview.lines} lines, {preview.points} points).
+        {preview.fileName}: {countNoun(total, 'feature')} ({countNoun(preview.polygons, 'area')}, {countNoun(preview.lines, 'line')}, {countNoun(preview.points, 'point')}).
       </p>
       <div>
         <label htmlFor={`${id}-kind`}>Kind of ground to keep clear of</label>{' '}

@@ -29,6 +29,7 @@ export function ExclusionsPanel() {
         <ToolButton tool="access" label="Access point" shortcut="A" hint="Click where crews start walking" />
       </fieldset>
       <ImportBox kind="exclusions" />
+      <div className="table-wrap">
       <table className="ledger" aria-label="Exclusions">
         <thead>
           <tr>
@@ -97,6 +98,7 @@ export function ExclusionsPanel() {
           ))}
         </tbody>
       </table>
+      </div>
       <p className="fine">Default buffers by kind: {EXCLUSION_KINDS.map((k) => `${k} ${DEFAULT_BUFFER_M[k]} m`).join(', ')} (common practice, adjust to your site).</p>
       <h3>Access points</h3>
       <ImportBox kind="access" />

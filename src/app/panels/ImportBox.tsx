@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { useId, useState } from 'react';
 import type { FeatureFileOptions } from '../../io/parseFeatureFile';
 import type { ExclusionMapping } from '../../state/exclusionPropertiesMap';
@@ -112,7 +113,7 @@ export function ImportBox({ kind: role }: { kind: Role }) {
           }}
         >
           <p>
-            {step.preview.fileName}: {step.preview.polygons} polygons. Which attribute names the stratum?
+            {step.preview.fileName}: {countNoun(step.preview.polygons, 'polygon')}. Which attribute names the stratum?
           </p>
           <label>
             Stratum attribute{' '}

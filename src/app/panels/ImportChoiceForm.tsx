@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { useId, useState } from 'react';
 import type { FeatureFileOptions } from '../../io/parseFeatureFile';
 import { epsgChoices, epsgFromText } from '../../state/epsgChoices';
@@ -64,7 +65,7 @@ export function ImportChoiceForm({ fileName, needs, problem, onRead, onCancel }:
       {needs.layers.length > 0 ? (
         <p>
           <label>
-            {fileName} holds {needs.layers.length} layers. Layer to read{' '}
+            {fileName} holds {countNoun(needs.layers.length, 'layer')}. Layer to read{' '}
             <select value={layer} onChange={(e) => setLayer(e.currentTarget.value)}>
               {needs.layerOptional ? <option value={EVERY_FOLDER}>every folder together</option> : null}
               {needs.layers.map((l) => (

@@ -39,7 +39,7 @@ export function NumberField({ label, unit, value, min, step, onCommit, allowEmpt
           key={String(value)}
           title={hint}
           onBlur={(e) => commit(e.currentTarget)}
-          onKeyDown={(e) => e.key === 'Enter' && commit(e.currentTarget)}
+          onKeyDown={(e) => e.key === 'Enter' && e.currentTarget.blur()}
         />
         {unit ? <span className="unit">{unit}</span> : null}
       </span>

@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { Fragment, useMemo, useState } from 'react';
 import type { PlotProperties } from '../../core/designTypes';
 import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/plotFieldState';
@@ -77,7 +78,7 @@ export function PlotsPanel() {
         <span className="step-no">4</span> Plots
       </h2>
       <p className="lead">
-        {result.features.filter((f) => f.properties.role === 'primary').length} primaries and {result.features.filter((f) => f.properties.role === 'reserve').length} reserves
+        {countNoun(result.features.filter((f) => f.properties.role === 'primary').length, 'primary', 'primaries')} and {countNoun(result.features.filter((f) => f.properties.role === 'reserve').length, 'reserve')}
         {rejections.length ? `; ${rejections.length} rejected` : ''}. The map, the exports and the field sheets draw every plot by its field state:
       </p>
       <PlotSymbolKey />

@@ -1,3 +1,4 @@
+import { countNoun } from '../../core/countNoun';
 import { useId } from 'react';
 import type { PlotCollection } from '../../core/designTypes';
 import { RESULT_KINDS, type ResultKind } from '../../core/resultsCellParse';
@@ -64,7 +65,7 @@ export function ResultsLoadBox({ collection }: { collection: PlotCollection | nu
       {table && mapping ? (
         <>
           <p className="fine">
-            {fileName}: {table.rows.length} rows, {table.columns.length} columns
+            {fileName}: {countNoun(table.rows.length, 'row')}, {countNoun(table.columns.length, 'column')}
             {table.decimal === ',' ? ', decimal commas' : ''}.
           </p>
           {pick('Plot id column', mapping.idColumn, false, (v) => v && resultsMappingSet(resultsStore, { idColumn: v }, collection))}
