@@ -8,8 +8,8 @@ export interface PlotCheckSymbol {
   key: PlotCheckSymbolKey;
   /** Solid (filled with `fill`) or open (white inside a band of `ink`). */
   solid: boolean;
-  /** An exclamation mark in `ink` inside the hexagon. */
-  mark: boolean;
+  /** The mark inside the hexagon, in `ink`: an exclamation mark (fails) or a tick (passes). */
+  mark: 'exclamation' | 'tick';
   fill: string;
   ink: string;
   label: string;
@@ -19,13 +19,15 @@ export interface PlotCheckSymbol {
 /**
  * Symbols of checked plots, our own design: a hexagon (a shape the plot symbol code, access points
  * and hazard marks do not use), solid signal yellow with a dark band and an exclamation mark for a
- * plot that fails, open for one that passes. Black on yellow is the usual warning contrast (the
+ * plot that fails, open with a tick for one that passes. The marks are ones no plot symbol carries
+ * (plot symbols have a centre dot, a cross or nothing), so a checked plot never reads as a plot of
+ * the design even where a hexagon and a disc look alike at small sizes. Black on yellow is the usual warning contrast (the
  * colours of ISO 3864-1 warning signs); the yellow is kept clear of the hazard colour, every
  * exclusion colour and the plot symbol colours (the test beside this file measures ΔE*ab).
  */
 export const PLOT_CHECK_SYMBOLS: Readonly<Record<PlotCheckSymbolKey, PlotCheckSymbol>> = {
-  fail: { key: 'fail', solid: true, mark: true, fill: '#ffe600', ink: PLOT_INK, label: 'Checked plot that fails: click it for the reasons', short: 'Fails the check' },
-  pass: { key: 'pass', solid: false, mark: false, fill: '#ffffff', ink: PLOT_INK, label: 'Checked plot that passes every check', short: 'Passes the check' },
+  fail: { key: 'fail', solid: true, mark: 'exclamation', fill: '#ffe600', ink: PLOT_INK, label: 'Checked plot that fails: click it for the reasons', short: 'Fails the check' },
+  pass: { key: 'pass', solid: false, mark: 'tick', fill: '#ffffff', ink: PLOT_INK, label: 'Checked plot that passes every check', short: 'Passes the check' },
 };
 
 /** Sizes of the symbol parts in units of the symbol radius (our own). */
@@ -40,7 +42,17 @@ export const PLOT_CHECK_SYMBOL_MEASURES = {
   barBottom: 0.1,
   dotY: 0.33,
   dotR: 0.1,
+  /** The tick: a polyline through these points and its half width. */
+  tick: [[-0.34, 0.02], [-0.1, 0.27], [0.36, -0.24]] as readonly (readonly [number, number])[],
+  tickHalfW: 0.085,
 } as const;
+
+function segmentDistance(x: number, y: number, a: readonly [number, number], b: readonly [number, number]): number {
+  const dx = b[0] - a[0];
+  const dy = b[1] - a[1];
+  const t = Math.max(0, Math.min(1, ((x - a[0]) * dx + (y - a[1]) * dy) / (dx * dx + dy * dy)));
+  return Math.hypot(x - a[0] - t * dx, y - a[1] - t * dy);
+}
 
 /**
  * Which part of a checked-plot symbol covers (x, y), in units of its radius from the centre, y down:
@@ -53,6 +65,7 @@ export function plotCheckSymbolCover(s: PlotCheckSymbol, x: number, y: number): 
   if (d > m.apothem + m.haloW) return null;
   if (d > m.apothem) return 'white';
   if (d > m.apothem - m.bandW) return 'ink';
-  if (s.mark && ((Math.abs(x) <= m.barHalfW && y >= m.barTop && y <= m.barBottom) || Math.hypot(x, y - m.dotY) <= m.dotR)) return 'ink';
+  if (s.mark === 'exclamation' && ((Math.abs(x) <= m.barHalfW && y >= m.barTop && y <= m.barBottom) || Math.hypot(x, y - m.dotY) <= m.dotR)) return 'ink';
+  if (s.mark === 'tick' && Math.min(segmentDistance(x, y, m.tick[0], m.tick[1]), segmentDistance(x, y, m.tick[1], m.tick[2])) <= m.tickHalfW) return 'ink';
   return s.solid ? 'fill' : 'white';
 }

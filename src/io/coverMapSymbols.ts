@@ -218,7 +218,7 @@ export function drawPlotSymbol(doc: jsPDF, key: PlotFieldStateKey, x: number, y:
 /**
  * Draws a checked plot's symbol (core/plotCheckSymbols) centred on (x, y) with radius `rMm`, with the
  * measures the raster icons use: a hexagon with flat top and bottom, solid yellow with a dark
- * band and an exclamation mark when the plot fails, open when it passes, and a white halo.
+ * band and an exclamation mark when the plot fails, open with a tick when it passes, and a white halo.
  */
 export function drawPlotCheckSymbol(doc: jsPDF, key: PlotCheckSymbolKey, x: number, y: number, rMm: number): void {
   const s = PLOT_CHECK_SYMBOLS[key];
@@ -240,10 +240,15 @@ export function drawPlotCheckSymbol(doc: jsPDF, key: PlotCheckSymbolKey, x: numb
   if (s.solid) fillHex(doc, s.fill);
   else fillGrey(doc, 255);
   hexagon(m.apothem - m.bandW);
-  if (s.mark) {
-    fillHex(doc, s.ink);
+  fillHex(doc, s.ink);
+  if (s.mark === 'exclamation') {
     doc.rect(x - m.barHalfW * rMm, y + m.barTop * rMm, 2 * m.barHalfW * rMm, (m.barBottom - m.barTop) * rMm, 'F');
     doc.circle(x, y + m.dotY * rMm, m.dotR * rMm, 'F');
+  } else {
+    doc.setDrawColor(Number.parseInt(s.ink.slice(1, 3), 16), Number.parseInt(s.ink.slice(3, 5), 16), Number.parseInt(s.ink.slice(5, 7), 16));
+    doc.setLineWidth(2 * m.tickHalfW * rMm);
+    doc.lines([[(m.tick[1][0] - m.tick[0][0]) * rMm, (m.tick[1][1] - m.tick[0][1]) * rMm], [(m.tick[2][0] - m.tick[1][0]) * rMm, (m.tick[2][1] - m.tick[1][1]) * rMm]], x + m.tick[0][0] * rMm, y + m.tick[0][1] * rMm, [1, 1], 'S');
+    doc.setDrawColor(0);
   }
   fillGrey(doc, 0);
 }
