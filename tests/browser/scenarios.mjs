@@ -2,6 +2,7 @@ import { booleanPointInPolygon } from '@turf/turf';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
+import { PLOT_CHECK_SCENARIO } from './plotCheck.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, drawSquare, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -298,4 +299,5 @@ export const SCENARIOS = [
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
   FIELD_STATE_SCENARIO,
+  PLOT_CHECK_SCENARIO,
 ];

@@ -1,6 +1,7 @@
 import { EXCLUSION_KINDS } from '../../core/types';
 import { usePlanner } from '../usePlanner';
 import { EXCLUSION_COLOURS } from './palette';
+import { PlotCheckKey } from '../plotCheck/PlotCheckKey';
 import { PlotSymbolKey } from './PlotSymbolKey';
 
 /** The key to the map: strata by colour, code and name; exclusion kinds by colour and hatch; plot symbols. */
@@ -29,6 +30,7 @@ export function MapLegend() {
         ))}
       </ul>
       {hasPlots ? <PlotSymbolKey compact /> : null}
+      <PlotCheckKey />
     </details>
   );
 }
