@@ -127,6 +127,15 @@ describe('plotsCheck', () => {
     expect(plotCheckRecordsBySeverity(report.plots).map((r) => r.id)).toEqual(['POND', 'WELL', 'HOLE', 'TWIN', 'TWIN-2', 'RES', 'OK']);
   });
 
+  it('says a plot far from the site is far away instead of measuring it in the site frame', () => {
+    const r = plotsCheck(site(), [plot('OK', 300, 330), { id: 'SWAPPED', where: 'row 2', lon: -35.1, lat: 147.2 - 180 + 90 }], options);
+    expect(r.plots[1].problems.map((p) => p.code)).toEqual(['outside-strata']);
+    expect(r.plots[1].problems[0].text).toMatch(/^Plot SWAPPED lies outside every mapped stratum, \d+ km from the site: check its coordinates/);
+    expect(r.plots[1].nearestByKind).toEqual({});
+    expect(r.plots[0].nearestPlot).toBeNull();
+    expect(r.plots[0].ok).toBe(true);
+  });
+
   it('refuses bad options and an empty set with a message', () => {
     for (const bad of [() => plotsCheck(site(), [], options), () => plotsCheck(site(), plots, { ...options, spacingM: -1 }), () => plotsCheck(site(), [{ ...plots[0], lat: 95 }], options)]) {
       try {

@@ -12,6 +12,7 @@ import {
   PLOT_SAME_POSITION_M,
   type PlotCheckRecord,
   type PlotNearestExclusion,
+  type PlotProblem,
   type PlotsCheckOptions,
   type PlotsCheckReport,
   type PlotToCheck,
@@ -62,6 +63,26 @@ function checkOptions(plots: readonly PlotToCheck[], o: PlotsCheckOptions): void
   }
 }
 
+/** Plots farther than this from the site's centre (metres) are only said to be far away. Common practice, no source. */
+export const PLOT_FAR_FROM_SITE_M = 100_000;
+
+/** A sample plot: any plot of a plain file; of a stratplot plot file, a primary or promoted reserve not rejected. */
+function counted(p: PlotToCheck): boolean {
+  return p.role === undefined ? p.status !== 'rejected' : plotIsActive({ role: p.role, status: p.status, replaces: p.replaces } as PlotProperties);
+}
+
+/** The record of a plot far from the site: outside every stratum, with how far it is and a hint about its coordinates. */
+function farRecord(p: PlotToCheck, i: number, farM: number, idCounts: Map<string, number>, isCounted: boolean): PlotCheckRecord {
+  const problems: PlotProblem[] = [{ code: 'outside-strata', text: `Plot ${p.id} lies outside every mapped stratum, ${(farM / 1000).toFixed(0)} km from the site: check its coordinates (latitude and longitude swapped, or another coordinate system?).` }];
+  const idCount = idCounts.get(p.id) ?? 1;
+  if (idCount > 1) problems.push({ code: 'duplicate-id', text: `Plot id ${p.id} is used by ${idCount} plots in the file.` });
+  return {
+    index: i, id: p.id, where: p.where, lon: p.lon, lat: p.lat, ok: false, severity: plotCheckSeverity(problems), problems,
+    stratum: null, holeIn: null, edgeM: null, edgeBroken: false, exclusions: [], nearestByKind: {}, nearestPlot: null, spacingBroken: false, samePosition: [], idCount, access: null, counted: isCounted,
+    ...(p.status ? { status: p.status } : {}),
+  };
+}
+
 /** Plots by severity (most serious first), then by number of problems, then in file order. */
 export function plotCheckRecordsBySeverity(records: readonly PlotCheckRecord[]): PlotCheckRecord[] {
   return [...records].sort((a, b) => b.severity - a.severity || b.problems.length - a.problems.length || a.index - b.index);
@@ -97,7 +118,9 @@ export function plotsCheck(site: Site, plots: readonly PlotToCheck[], options: P
     const [x, y] = frame.toXY(p.lon, p.lat);
     xs[i] = x;
     ys[i] = y;
-    tree.add(x, y, x, y);
+    // A position the frame cannot project still takes a box; isFar keeps it out of every search.
+    if (Number.isFinite(x) && Number.isFinite(y)) tree.add(x, y, x, y);
+    else tree.add(0, 0, 0, 0);
   });
   tree.finish();
   const idCounts = new Map<string, number>();
@@ -108,9 +131,16 @@ export function plotsCheck(site: Site, plots: readonly PlotToCheck[], options: P
   const ids = plots.map((p) => p.id);
   const wheres = plots.map((p) => p.where);
 
+  const box = c.strata.reduce((b, st) => [Math.min(b[0], st.bbox[0]), Math.min(b[1], st.bbox[1]), Math.max(b[2], st.bbox[2]), Math.max(b[3], st.bbox[3])], [Infinity, Infinity, -Infinity, -Infinity]);
+  const [lonC, latC] = frame.toLonLat((box[0] + box[2]) / 2, (box[1] + box[3]) / 2);
+  const farM = plots.map((p) => geodesicDistanceM(lonC, latC, p.lon, p.lat));
+  const isFar = plots.map((_, i) => farM[i] > PLOT_FAR_FROM_SITE_M || !Number.isFinite(xs[i]) || !Number.isFinite(ys[i]));
+
   const records = plots.map((p, i): PlotCheckRecord => {
     const x = xs[i];
     const y = ys[i];
+    // Far from the site the UTM frame no longer measures: only the geodesic distance to the site is given.
+    if (isFar[i]) return farRecord(p, i, farM[i], idCounts, counted(p));
     const s = clear.stratumAt(x, y);
     const hole = s < 0 ? holeAt(x, y) : -1;
     const edge = s >= 0 ? clear.edge(s, x, y) : null;
@@ -122,12 +152,12 @@ export function plotsCheck(site: Site, plots: readonly PlotToCheck[], options: P
     for (const [kind, hit] of Object.entries(clear.nearestOfEachKind(x, y)) as [ExclusionKind, { exclusion: number; distanceM: number }][]) {
       nearestByKind[kind] = { exclusionId: site.exclusions[hit.exclusion].id, name: exclusionName(hit.exclusion), distanceM: hit.distanceM };
     }
-    const [j] = n > 1 ? tree.neighbors(x, y, 1, Number.POSITIVE_INFINITY, (k) => k !== i) : [];
+    const [j] = n > 1 ? tree.neighbors(x, y, 1, Number.POSITIVE_INFINITY, (k) => k !== i && !isFar[k]) : [];
     const nearestPlot = j === undefined ? null : { index: j, id: plots[j].id, distanceM: geodesicDistanceM(p.lon, p.lat, plots[j].lon, plots[j].lat) };
     // Placement's own spacing test: grid distance against the spacing times the site's scale factor.
     const spacingBroken = j !== undefined && options.spacingM > 0 && isClearanceShort(Math.hypot(xs[j] - x, ys[j] - y), spacingGrid, slackM * c.scale);
     const samePosition = tree
-      .neighbors(x, y, Number.POSITIVE_INFINITY, PLOT_SAME_POSITION_M * 2, (k) => k !== i)
+      .neighbors(x, y, Number.POSITIVE_INFINITY, PLOT_SAME_POSITION_M * 2, (k) => k !== i && !isFar[k])
       .filter((k) => geodesicDistanceM(p.lon, p.lat, plots[k].lon, plots[k].lat) <= PLOT_SAME_POSITION_M)
       .sort((a, b) => a - b)
       .map((k) => ({ index: k, id: plots[k].id, where: plots[k].where }));
@@ -135,7 +165,6 @@ export function plotsCheck(site: Site, plots: readonly PlotToCheck[], options: P
     const access = row
       ? { accessPointId: row.accessPointId, accessPointName: row.accessPointName, distanceM: row.distanceM, bearingTrueDeg: row.bearingTrueDeg, bearingMagDeg: row.bearingMagDeg, declinationDeg: nav!.declinationDegByAccess[row.accessPointId] }
       : null;
-    const counted = p.role === undefined ? p.status !== 'rejected' : plotIsActive({ role: p.role, status: p.status, replaces: p.replaces } as PlotProperties);
     const measured = {
       index: i,
       id: p.id,
@@ -153,7 +182,7 @@ export function plotsCheck(site: Site, plots: readonly PlotToCheck[], options: P
       samePosition,
       idCount: idCounts.get(p.id) ?? 1,
       access,
-      counted,
+      counted: counted(p),
       ...(p.status ? { status: p.status } : {}),
     };
     const problems = plotCheckProblems(measured, { spacingM: options.spacingM, footprint: options.footprint, edgeBufferM: options.edgeBufferM, ids, wheres });
