@@ -37,6 +37,40 @@ export interface PlacementConstraints {
   check(s: number, x: number, y: number, knownInside?: boolean): FitResult;
   /** Nearest exclusion to a point (ground metres from its centre), or null when there are none. */
   nearestExclusion(x: number, y: number): { distanceM: number; kind: ExclusionKind } | null;
+  /** The edge buffer in grid metres (ground metres × scale). */
+  edgeBufferGrid: number;
+  /** Latitude of the site centre, degrees (for the point scale factor at a position). */
+  lat0: number;
+  /** The exclusions as `check` tests them, for measuring how close a plot comes (see plotClearances). */
+  exclusionParts: ExclusionPartsXY;
+  /** Grid distance from the footprint centred at (x, y) to segment `o` (offset of x1) of `arr`; 0 when they touch. */
+  footprintDistance(x: number, y: number, o: number, arr: Float64Array): number;
+  /** Indexes into `site.exclusions` of every exclusion polygon holding (x, y) (holes count as outside). */
+  exclusionPolygonsAt(x: number, y: number): number[];
+}
+
+/** Exclusion geometry in frame metres: every segment with its buffer, kind and owner, and the polygons. */
+export interface ExclusionPartsXY {
+  /** Segments x1, y1, x2, y2 (points are zero-length segments). */
+  seg: Float64Array;
+  /** Buffer of each segment's exclusion in grid metres (ground metres × scale). */
+  buf: Float64Array;
+  kind: ExclusionKind[];
+  /** Index into `site.exclusions` of each segment's exclusion. */
+  owner: Int32Array;
+  /** Segment boxes widened by their buffers; null when there are no exclusions. */
+  index: Flatbush | null;
+  /** Largest buffer, grid metres. */
+  maxBuf: number;
+}
+
+/**
+ * The one rule for "too close", shared by placement and by checking plots made elsewhere: with a
+ * positive limit (buffer, edge buffer) a clearance shorter than it, less `slack`; with no limit, a
+ * footprint that touches. All in grid metres. Placement uses no slack.
+ */
+export function isClearanceShort(clearance: number, limit: number, slack = 0): boolean {
+  return limit > 0 ? clearance < limit - slack : clearance <= 0;
 }
 
 function geometryLines(g: ExclusionGeometry): { lines: LonLat[][]; polygons: LonLat[][][] } {
@@ -106,11 +140,14 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
   const segs: number[] = [];
   const segBuf: number[] = [];
   const segKind: ExclusionKind[] = [];
+  const segOwner: number[] = [];
+  const polyOwner: number[] = [];
   const polyXY: number[] = [];
   const polyRings: number[] = []; // per ring: start, end (value offsets into polyXY), owner polygon
   const polyBoxes: number[] = [];
   let polyCount = 0;
-  for (const ex of site.exclusions) {
+  for (let owner = 0; owner < site.exclusions.length; owner++) {
+    const ex = site.exclusions[owner];
     const { lines, polygons } = geometryLines(ex.geometry);
     const buf = ex.bufferM * scale;
     for (const line of lines) {
@@ -119,11 +156,13 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
         segs.push(pts[0][0], pts[0][1], pts[0][0], pts[0][1]);
         segBuf.push(buf);
         segKind.push(ex.kind);
+        segOwner.push(owner);
       }
       for (let i = 1; i < pts.length; i++) {
         segs.push(pts[i - 1][0], pts[i - 1][1], pts[i][0], pts[i][1]);
         segBuf.push(buf);
         segKind.push(ex.kind);
+        segOwner.push(owner);
       }
     }
     for (const poly of polygons) {
@@ -144,6 +183,7 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
         polyRings.push(start, polyXY.length, polyCount);
       }
       polyBoxes.push(bx0, by0, bx1, by1);
+      polyOwner.push(owner);
       polyCount++;
     }
   }
@@ -190,6 +230,18 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
     return hit;
   };
 
+  const exclusionPolygonsAt = (x: number, y: number): number[] => {
+    if (!polyIndex) return [];
+    const owners: number[] = [];
+    for (const p of polyIndex.search(x, y, x, y)) {
+      const rings = ringsOf[p];
+      let inside = false;
+      for (let r = 0; r < rings.length; r += 2) if (isInRingFlat(x, y, polyXYArr, rings[r], rings[r + 1])) inside = !inside;
+      if (inside && !owners.includes(polyOwner[p])) owners.push(polyOwner[p]);
+    }
+    return owners;
+  };
+
   const footprintDistance = (x: number, y: number, o: number, arr: Float64Array): number => {
     const d =
       footprint.vx.length > 0
@@ -209,19 +261,14 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
       const near = st.edgeIndex.collides(x - r, y - r, x + r, y + r, (k) => {
         const end = Math.min(edges.length, (k + 1) * EDGE_CHUNK * 4);
         for (let o = k * EDGE_CHUNK * 4; o < end; o += 4) {
-          const d = footprintDistance(x, y, o, edges);
-          if (edgeGrid > 0 ? d < edgeGrid : d <= 0) return true;
+          if (isClearanceShort(footprintDistance(x, y, o, edges), edgeGrid)) return true;
         }
         return false;
       });
       if (near) return FIT_NEAR_EDGE;
     }
     if (segIndex) {
-      const hit = segIndex.collides(x - h, y - h, x + h, y + h, (i) => {
-        const d = footprintDistance(x, y, i * 4, segArr);
-        const b = bufArr[i];
-        return b > 0 ? d < b : d <= 0;
-      });
+      const hit = segIndex.collides(x - h, y - h, x + h, y + h, (i) => isClearanceShort(footprintDistance(x, y, i * 4, segArr), bufArr[i]));
       if (hit) return FIT_EXCLUDED;
     }
     if (isInExclusionPolygon(x, y) >= 0) return FIT_EXCLUDED;
@@ -249,5 +296,6 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
     return { distanceM: best / k, kind: bestKind };
   };
 
-  return { frame, scale, convergenceDeg, strata, footprint, check, nearestExclusion };
+  const exclusionParts: ExclusionPartsXY = { seg: segArr, buf: bufArr, kind: segKind, owner: Int32Array.from(segOwner), index: segIndex, maxBuf };
+  return { frame, scale, convergenceDeg, strata, footprint, check, nearestExclusion, edgeBufferGrid: edgeGrid, lat0, exclusionParts, footprintDistance, exclusionPolygonsAt };
 }

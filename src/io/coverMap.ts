@@ -9,6 +9,15 @@ import { drawBuffers, drawExclusion, drawPlotSymbol, fillGrey, haloText, strokeR
 
 export type { PageBox };
 
+/** A point drawn over the map by the caller (e.g. plots checked from another file), with a label. */
+export interface CoverMapMark {
+  lon: number;
+  lat: number;
+  label: string;
+  /** Draws the symbol centred on (x, y), page mm. */
+  draw(doc: jsPDF, x: number, y: number): void;
+}
+
 /** How the map was laid out, for callers and tests. */
 export interface CoverMapLayout {
   frame: LocalFrame | null;
@@ -30,7 +39,8 @@ const TICK_MARGIN = 5;
  * buffers outlined in grey, plots in the shared symbol code of their field state (primary,
  * reserve, promoted, rejected struck through), each labelled, access points as squares,
  * a scale bar, a true-north arrow, UTM grid ticks at round metres, and a legend strip below.
- * Positions are projected to the site's UTM zone (north up = grid north).
+ * Positions are projected to the site's UTM zone (north up = grid north). `marks` are drawn over
+ * the plots, labelled, and kept inside the map's extent.
  * @param box where to draw, mm; the legend strip takes the bottom 20 mm.
  * @param font family registered by pdfFontRegister.
  */
@@ -40,6 +50,7 @@ export function coverMapDraw(
   site: Site | null,
   box: PageBox,
   font: string,
+  marks: readonly CoverMapMark[] = [],
 ): CoverMapLayout {
   const plots = collection?.features ?? [];
   const frame = site?.parts.length
@@ -90,6 +101,8 @@ export function coverMapDraw(
     }
   }
   for (const p of plotXY) grow(p.at);
+  const markXY = marks.map((k) => ({ k, at: xy([k.lon, k.lat]) }));
+  for (const k of markXY) grow(k.at);
   for (const a of accessXY) grow(a.at);
   const spanX = Math.max(maxX - minX, 50);
   const spanY = Math.max(maxY - minY, 50);
@@ -138,6 +151,11 @@ export function coverMapDraw(
     drawPlotSymbol(doc, states.get(p.plot_id)?.key ?? (p.role === 'reserve' ? 'reserve' : 'primary'), x, y, 1.2);
     placed.push({ x: x - 1.1, y: y - 1.1, w: 2.2, h: 2.2 });
   }
+  for (const { k, at } of markXY) {
+    const [x, y] = [px(at[0]), py(at[1])];
+    k.draw(doc, x, y);
+    placed.push({ x: x - 1.4, y: y - 1.4, w: 2.8, h: 2.8 });
+  }
   doc.setFontSize(6.5);
   for (const { a, at } of accessXY) {
     const [x, y] = [px(at[0]), py(at[1])];
@@ -149,6 +167,7 @@ export function coverMapDraw(
   }
   doc.setFontSize(5.5);
   for (const { p, at } of plotXY) placeLabel(doc, p.plot_id, px(at[0]), py(at[1]), 1.3, map, placed);
+  for (const { k, at } of markXY) placeLabel(doc, k.label, px(at[0]), py(at[1]), 1.6, map, placed);
   doc.restoreGraphicsState();
   doc.setLineDashPattern([], 0);
   doc.setLineWidth(0.3);

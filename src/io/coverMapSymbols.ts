@@ -1,4 +1,5 @@
 import type { jsPDF } from 'jspdf';
+import { PLOT_CHECK_SYMBOL_MEASURES, PLOT_CHECK_SYMBOLS, type PlotCheckSymbolKey } from '../core/plotCheckSymbols';
 import type { PlotFieldStateKey } from '../core/plotFieldState';
 import { PLOT_SYMBOL_MEASURES, PLOT_SYMBOLS } from '../core/plotSymbols';
 import type { Exclusion, LonLat } from '../core/types';
@@ -209,6 +210,44 @@ export function drawPlotSymbol(doc: jsPDF, key: PlotFieldStateKey, x: number, y:
     doc.setLineWidth(m.crossW * rMm);
     doc.line(x - a, y - a, x + a, y + a);
     doc.line(x - a, y + a, x + a, y - a);
+    doc.setDrawColor(0);
+  }
+  fillGrey(doc, 0);
+}
+
+/**
+ * Draws a checked plot's symbol (core/plotCheckSymbols) centred on (x, y) with radius `rMm`, with the
+ * measures the raster icons use: a hexagon with flat top and bottom, solid yellow with a dark
+ * band and an exclamation mark when the plot fails, open with a tick when it passes, and a white halo.
+ */
+export function drawPlotCheckSymbol(doc: jsPDF, key: PlotCheckSymbolKey, x: number, y: number, rMm: number): void {
+  const s = PLOT_CHECK_SYMBOLS[key];
+  const m = PLOT_CHECK_SYMBOL_MEASURES;
+  const hexagon = (apothem: number) => {
+    const r = (apothem * rMm) / Math.cos(Math.PI / 6);
+    for (let i = 0; i < 6; i++) {
+      const a = (i * Math.PI) / 3;
+      if (i === 0) doc.moveTo(x + r * Math.cos(a), y + r * Math.sin(a));
+      else doc.lineTo(x + r * Math.cos(a), y + r * Math.sin(a));
+    }
+    doc.close();
+    doc.fill();
+  };
+  fillGrey(doc, 255);
+  hexagon(m.apothem + m.haloW);
+  fillHex(doc, s.ink);
+  hexagon(m.apothem);
+  if (s.solid) fillHex(doc, s.fill);
+  else fillGrey(doc, 255);
+  hexagon(m.apothem - m.bandW);
+  fillHex(doc, s.ink);
+  if (s.mark === 'exclamation') {
+    doc.rect(x - m.barHalfW * rMm, y + m.barTop * rMm, 2 * m.barHalfW * rMm, (m.barBottom - m.barTop) * rMm, 'F');
+    doc.circle(x, y + m.dotY * rMm, m.dotR * rMm, 'F');
+  } else {
+    doc.setDrawColor(Number.parseInt(s.ink.slice(1, 3), 16), Number.parseInt(s.ink.slice(3, 5), 16), Number.parseInt(s.ink.slice(5, 7), 16));
+    doc.setLineWidth(2 * m.tickHalfW * rMm);
+    doc.lines([[(m.tick[1][0] - m.tick[0][0]) * rMm, (m.tick[1][1] - m.tick[0][1]) * rMm], [(m.tick[2][0] - m.tick[1][0]) * rMm, (m.tick[2][1] - m.tick[1][1]) * rMm]], x + m.tick[0][0] * rMm, y + m.tick[0][1] * rMm, [1, 1], 'S');
     doc.setDrawColor(0);
   }
   fillGrey(doc, 0);

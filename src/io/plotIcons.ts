@@ -1,3 +1,4 @@
+import { PLOT_CHECK_SYMBOLS, type PlotCheckSymbolKey, plotCheckSymbolCover } from '../core/plotCheckSymbols';
 import type { PlotFieldStateKey } from '../core/plotFieldState';
 import { PLOT_SYMBOLS, plotSymbolCover } from '../core/plotSymbols';
 import { pngEncodeRgba } from './pngEncodeRgba';
@@ -15,7 +16,15 @@ function hex(c: string): [number, number, number] {
  */
 export function plotIconRgba(key: PlotFieldStateKey, size = 32): Uint8Array {
   const sym = PLOT_SYMBOLS[key];
-  const colours = { fill: hex(sym.fill), ink: hex(sym.ink), white: [255, 255, 255] as [number, number, number] };
+  return symbolIconRgba((x, y) => plotSymbolCover(sym, x, y), { fill: sym.fill, ink: sym.ink }, size);
+}
+
+/**
+ * Straight RGBA pixels, `size` square, of a symbol given by its cover function (which part covers a
+ * point, in units of the symbol radius from its centre, y down), anti-aliased by 4×4 supersampling.
+ */
+export function symbolIconRgba(cover: (x: number, y: number) => 'fill' | 'ink' | 'white' | null, ink: { fill: string; ink: string }, size: number): Uint8Array {
+  const colours = { fill: hex(ink.fill), ink: hex(ink.ink), white: [255, 255, 255] as [number, number, number] };
   const rgba = new Uint8Array(size * size * 4);
   const c = size / 2;
   const unit = size / 2;
@@ -25,7 +34,7 @@ export function plotIconRgba(key: PlotFieldStateKey, size = 32): Uint8Array {
       let hits = 0;
       for (let sy = 0; sy < 4; sy++) {
         for (let sx = 0; sx < 4; sx++) {
-          const part = plotSymbolCover(sym, (x + 0.125 + sx * 0.25 - c) / unit, (y + 0.125 + sy * 0.25 - c) / unit);
+          const part = cover((x + 0.125 + sx * 0.25 - c) / unit, (y + 0.125 + sy * 0.25 - c) / unit);
           if (!part) continue;
           const rgb = colours[part];
           sum[0] += rgb[0];
@@ -48,4 +57,15 @@ export function plotIconRgba(key: PlotFieldStateKey, size = 32): Uint8Array {
 /** The marker of {@link plotIconRgba} as a PNG file (32×32), for KMZ icons. */
 export function plotIconPng(key: PlotFieldStateKey, size = 32): Uint8Array {
   return pngEncodeRgba(size, size, plotIconRgba(key, size));
+}
+
+/** A checked plot's marker (core/plotCheckSymbols: a solid yellow hexagon with a mark when it fails, open when it passes) as RGBA pixels. */
+export function plotCheckIconRgba(key: PlotCheckSymbolKey, size = 32): Uint8Array {
+  const sym = PLOT_CHECK_SYMBOLS[key];
+  return symbolIconRgba((x, y) => plotCheckSymbolCover(sym, x, y), { fill: sym.fill, ink: sym.ink }, size);
+}
+
+/** The marker of {@link plotCheckIconRgba} as a PNG file. */
+export function plotCheckIconPng(key: PlotCheckSymbolKey, size = 32): Uint8Array {
+  return pngEncodeRgba(size, size, plotCheckIconRgba(key, size));
 }

@@ -2,6 +2,8 @@ import * as Comlink from 'comlink';
 import type { DesignSettings, PlotCollection } from '../core/designTypes';
 import { designRun } from '../core/designRun';
 import { isInputError } from '../core/InputError';
+import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheckTypes';
+import { plotsCheck } from '../core/plotsCheck';
 import { siteValidate } from '../core/siteValidate';
 import type { Site } from '../core/types';
 import { type GeotiffImageOptions, geotiffImageWarp } from '../io/geotiffImage';
@@ -35,6 +37,15 @@ const api = {
         },
       });
       return { ok: true, collection };
+    } catch (e) {
+      if (isInputError(e)) return { ok: false, message: (e as Error).message };
+      throw e;
+    }
+  },
+  /** Checks plots from a file against the site (plotsCheck), off the page's thread. */
+  check(site: Site, plots: PlotToCheck[], options: PlotsCheckOptions): { ok: true; report: PlotsCheckReport } | { ok: false; message: string } {
+    try {
+      return { ok: true, report: plotsCheck(site, plots, options) };
     } catch (e) {
       if (isInputError(e)) return { ok: false, message: (e as Error).message };
       throw e;

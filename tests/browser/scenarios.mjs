@@ -7,6 +7,7 @@ import { LAYOUT_SCENARIO } from './layout.scenario.mjs';
 import { NOTHING_LOST_SCENARIO } from './nothingLost.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
+import { PLOT_CHECK_SCENARIO } from './plotCheck.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, drawSquare, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -308,4 +309,5 @@ export const SCENARIOS = [
   NOTHING_LOST_SCENARIO,
   EXPORTS_SCENARIO,
   GUIDANCE_SCENARIO,
+  PLOT_CHECK_SCENARIO,
 ];

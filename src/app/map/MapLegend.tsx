@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { EXCLUSION_KINDS } from '../../core/types';
 import { usePlanner } from '../usePlanner';
 import { EXCLUSION_COLOURS } from './palette';
+import { PlotCheckKey } from '../plotCheck/PlotCheckKey';
 import { PlotSymbolKey } from './PlotSymbolKey';
 
 /** True on a tablet or phone, where the map is too small to give the open key room of its own. */
@@ -39,6 +40,7 @@ export function MapLegend() {
         ))}
       </ul>
       {hasPlots ? <PlotSymbolKey compact /> : null}
+      <PlotCheckKey />
     </details>
   );
 }

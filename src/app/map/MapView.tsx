@@ -19,6 +19,7 @@ import { siteLayersAdd } from './siteLayers';
 import { EXCLUSION_COLOURS } from './palette';
 import { syncSiteToMap } from './syncSiteToMap';
 import { resultsMapLayerInstall } from '../results/resultsMapLayer';
+import { PLOT_CHECK_LAYER, plotCheckMapLayerInstall } from '../plotCheck/plotCheckMapLayer';
 
 setWorkerUrl(workerUrl);
 
@@ -29,7 +30,7 @@ declare global {
   }
 }
 
-const CLICK_LAYERS = ['sp-plots', 'sp-access', 'sp-exclusions-point', 'sp-exclusions-line', 'sp-exclusions-fill', 'sp-strata-fill'];
+const CLICK_LAYERS = [PLOT_CHECK_LAYER, 'sp-plots', 'sp-access', 'sp-exclusions-point', 'sp-exclusions-line', 'sp-exclusions-fill', 'sp-strata-fill'];
 
 /** Mounts the map, keeps its sources in step with the store, and turns clicks into selections and popups. */
 export function MapView() {
@@ -73,6 +74,7 @@ export function MapView() {
       siteLayersAdd(map);
       cleanups.push(syncSiteToMap(map, plannerStore));
       cleanups.push(resultsMapLayerInstall(map, plannerStore));
+      cleanups.push(plotCheckMapLayerInstall(map));
       cleanups.push(drawControlInstall(map, plannerStore, notify));
       const b = siteBounds(plannerStore.getState().site);
       if (b) map.fitBounds(b, { padding: mapFitPadding(map), duration: 0 });
@@ -86,6 +88,8 @@ export function MapView() {
         if (plannerStore.getState().tool !== 'none') return;
         const hits = map.queryRenderedFeatures(e.point, { layers: CLICK_LAYERS.filter((l) => map.getLayer(l)) });
         const hit = hits[0];
+        // Checked plots open their own popup (plotCheckMapLayer).
+        if (hit?.layer.id === PLOT_CHECK_LAYER) return;
         if (!hit) {
           plannerStore.setState({ selection: null });
           popup.remove();

@@ -3,6 +3,7 @@ import { Fragment, useMemo, useState } from 'react';
 import type { PlotProperties } from '../../core/designTypes';
 import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/plotFieldState';
 import { plotRestore } from '../../state/plotRestore';
+import { PlotCheckBox } from '../plotCheck/PlotCheckBox';
 import { PlotSymbolKey } from '../map/PlotSymbolKey';
 import { plannerStore } from '../plannerStoreInstance';
 import { attempt, usePlanner } from '../usePlanner';
@@ -68,7 +69,8 @@ export function PlotsPanel() {
         <h2 id="plots-title">
           <span className="step-no">4</span> Plots
         </h2>
-        <p className="lead">Make a design in step 3 first; its plots are listed here.</p>
+        <p className="lead">Make a design in step 3 first; its plots are listed here. Plots made elsewhere can be checked against the site now.</p>
+        <PlotCheckBox />
       </section>
     );
   }
@@ -169,6 +171,7 @@ export function PlotsPanel() {
         </>
       ) : null}
       <ExportBox />
+      <PlotCheckBox />
     </section>
   );
 }
