@@ -4,14 +4,17 @@ import { allocateProportional } from './allocateProportional';
 import type { AllocationResult } from './allocateWithMinimum';
 import { designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
+import { designCapacityCheck, designSizeCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from './designTypes';
 import { footprintAreaM2 } from './footprintParse';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
 import { InputError } from './InputError';
 import { placementConstraintsBuild } from './placementConstraints';
 import { plotIdsFor } from './plotIds';
 import { plotRecord } from './plotRecord';
+import { plotsInStrataCheck } from './plotsInStrataCheck';
 import { rngCreate } from './rng';
 import { sampleSizeForTarget } from './sampleSizeForTarget';
 import { siteLocalFrame } from './siteLocalFrame';
@@ -59,6 +62,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     if (options.isCancelled?.()) throw cancelled();
   };
   if (site.strata.length === 0) throw new InputError('the site has no strata');
+  designSizeCheck(settings, site.strata.length);
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
@@ -101,6 +105,9 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
         minPerStratum: settings.minPerStratum,
         plotAreaM2: plotArea > 0 ? plotArea : null,
       });
+      if (size.n > MAX_DESIGN_PLOTS) {
+        throw limitExceeded('target half-width', `reaching it takes ${limitNumber(size.n)} plots`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`);
+      }
       allocation = { plots: size.plots, quotas: size.plots, raisedToMinimum: [] };
       extraStatements.push(
         `Sample size: ${size.n} plots is the smallest design whose ${settings.allocation} allocation gives a 95 % CI half-width of at most ${round(d, 6)} (expected ${round(size.halfwidth, 6)} from the pilot SDs; the continuous formula gave ${round(size.formulaN, 2)}). ` +
@@ -128,6 +135,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   tick();
   progress(0.3, 'placing');
   const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
   const rng = rngCreate(settings.seed);
   let ticks = 0;
   const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, rng, {
@@ -162,6 +170,13 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   });
   // Stratum by stratum, primaries then reserves, each in rank order (a stable sort keeps the rank order).
   drafts.sort((a, b) => a.order - b.order);
+  plotsInStrataCheck(
+    site,
+    drafts.map(({ draft }) => {
+      const [lon, lat] = constraints.frame.toLonLat(draft.x, draft.y);
+      return { id: draft.plotId, stratum: draft.stratum, lon, lat };
+    }),
+  );
   const features = drafts.map((d) => plotRecord(constraints, d.draft));
   const rows: AllocationRow[] = keys.map((key, i) => ({
     stratum: key,
