@@ -109,3 +109,17 @@ export function limitShown(value: unknown, max = 60): string {
   }
   return text.length > max ? `${text.slice(0, max)}…` : text;
 }
+
+/** Whether a parsed JSON value nests objects or arrays deeper than `max`, found without recursion. */
+export function jsonDepthOver(value: unknown, max: number): boolean {
+  const stack: [unknown, number][] = [[value, 1]];
+  while (stack.length > 0) {
+    const [v, depth] = stack.pop()!;
+    if (v === null || typeof v !== 'object') continue;
+    if (depth > max) return true;
+    for (const child of Array.isArray(v) ? v : Object.values(v)) {
+      if (child !== null && typeof child === 'object') stack.push([child, depth + 1]);
+    }
+  }
+  return false;
+}

@@ -1,5 +1,5 @@
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
-import { limitExceeded, MAX_NESTING_DEPTH } from '../core/inputLimits';
+import { jsonDepthOver, limitExceeded, MAX_NESTING_DEPTH } from '../core/inputLimits';
 import { InputError } from '../core/InputError';
 import { featuresToWgs84 } from './featuresToWgs84';
 import { jsonErrorOffset } from './jsonErrorOffset';
@@ -159,16 +159,3 @@ function positionShown(c: unknown): string {
   return `[${items.join(', ')}${c.length > 3 ? ', …' : ''}]`;
 }
 
-/** Whether a parsed JSON value nests objects or arrays deeper than `max`, found without recursion. */
-function jsonDepthOver(value: unknown, max: number): boolean {
-  const stack: [unknown, number][] = [[value, 1]];
-  while (stack.length > 0) {
-    const [v, depth] = stack.pop()!;
-    if (v === null || typeof v !== 'object') continue;
-    if (depth > max) return true;
-    for (const child of Array.isArray(v) ? v : Object.values(v)) {
-      if (child !== null && typeof child === 'object') stack.push([child, depth + 1]);
-    }
-  }
-  return false;
-}
