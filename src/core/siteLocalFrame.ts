@@ -67,7 +67,7 @@ export function siteLongitudeUnwrap(parts: readonly StratumPart[]): (lon: number
  * central meridian (distance on the sphere of mean radius, asin(cos φ · sin Δλ) · R).
  * Source of the centroid formula: the shoelace moments (common practice, no source).
  * Throws InputError when there are no parts, the site lies outside UTM's 80°S–84°N, or it is too
- * large for one UTM frame (naming its reach, its span of longitude and the limit).
+ * large for one UTM frame (naming its reach and the limit).
  */
 export function siteLocalFrame(parts: readonly StratumPart[]): LocalFrame {
   let minLon = Infinity;
@@ -126,12 +126,12 @@ export function siteLocalFrame(parts: readonly StratumPart[]): LocalFrame {
     throw new InputError(`the site centre ${lon.toFixed(5)}, ${lat.toFixed(5)} is outside UTM's 80°S–84°N (polar sites are not supported)`);
   }
   const frame = localFrameAt(lon, lat);
-  frameReachChecked(frame, rings, eastLon - westLon);
+  frameReachChecked(frame, rings);
   return frame;
 }
 
 /** Refuses a site whose farthest vertex lies more than MAX_FRAME_REACH_KM from the frame's central meridian. */
-function frameReachChecked(frame: LocalFrame, rings: readonly (readonly LonLat[])[], spanDeg: number): void {
+function frameReachChecked(frame: LocalFrame, rings: readonly (readonly LonLat[])[]): void {
   const meridian = 6 * frame.zone - 183;
   const limit = Math.sin(MAX_FRAME_REACH_KM / EARTH_RADIUS_KM);
   let worst = 0;
@@ -151,7 +151,7 @@ function frameReachChecked(frame: LocalFrame, rings: readonly (readonly LonLat[]
   const km = Math.asin(Math.min(1, worst)) * EARTH_RADIUS_KM;
   throw limitExceeded(
     'the site',
-    `it is too large for one UTM frame: its strata span ${spanDeg.toFixed(1)}° of longitude and reach ${Math.round(km)} km from the central meridian of UTM zone ${frame.zone}; split it into smaller sites`,
+    `it is too large for one UTM frame: its strata reach ${limitNumber(km)} km from the central meridian of UTM zone ${frame.zone} (${frame.zone * 6 - 183}°); split it into smaller sites`,
     `${limitNumber(MAX_FRAME_REACH_KM)} km from the central meridian`,
   );
 }
