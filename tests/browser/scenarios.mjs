@@ -1,4 +1,5 @@
 import { booleanPointInPolygon } from '@turf/turf';
+import { HOSTILE_IMPORT_SCENARIO } from './hostileImport.scenario.mjs';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
@@ -312,4 +313,5 @@ export const SCENARIOS = [
   },
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
+  HOSTILE_IMPORT_SCENARIO,
 ];
