@@ -241,6 +241,12 @@ describe('design size', () => {
     await refused(/reserve plots per stratum: 1,000,000 reserves in each of 2 strata and 10 primaries make 2,000,010 plots/, 'plan', 'site.geojson', '--plots', '10', '--reserve', '1000000', '--seed', '1');
   });
 
+  it('refuses a million trap grids at once instead of trying each', async () => {
+    const started = Date.now();
+    await refused(/trap grids: 2,000,000 grids of 5 × 5 stations make 50,000,000 stations; stratplot's limit is 100,000 plots in one design/, 'traps', 'site.geojson', '--grids', '1000000', '--rows', '5', '--cols', '5', '--spacing', '10', '--seed', '1');
+    expect(Date.now() - started).toBeLessThan(2000);
+  });
+
   it('refuses more plots than the strata can hold at the spacing, before placing any', async () => {
     await refused(/5,000 plots \(primaries and reserves\) cannot fit at 50 m spacing: the strata have room for at most \d+ plots/, 'plan', 'site.geojson', '--plots', '5000', '--spacing', '50', '--seed', '1');
   });
