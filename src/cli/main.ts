@@ -55,10 +55,32 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
       fail(error.message);
       return error.status;
     }
+    const fsError = fileSystemProblem(error, io.cwd);
+    if (fsError) {
+      fail(fsError);
+      return 2;
+    }
     const message = error instanceof Error ? error.message : String(error);
     fail(`internal error: ${message} (please report this with the input that caused it)`);
     return 1;
   }
+}
+
+/** Why a file named on the command line could not be written (or read), when the error is the file system's. */
+function fileSystemProblem(error: unknown, cwd: string): string | null {
+  const e = error as NodeJS.ErrnoException;
+  if (!(error instanceof Error) || typeof e.code !== 'string' || typeof e.path !== 'string') return null;
+  const path = e.path.startsWith(`${cwd}/`) ? e.path.slice(cwd.length + 1) : e.path;
+  const why: Record<string, string> = {
+    ENOENT: 'its folder does not exist',
+    EACCES: 'permission denied',
+    EPERM: 'permission denied',
+    EISDIR: 'it is a folder',
+    ENOTDIR: 'a part of its path is not a folder',
+    ENOSPC: 'the disk is full',
+    EROFS: 'the disk is read-only',
+  };
+  return `cannot ${e.syscall === 'open' || e.syscall === 'write' ? 'write' : (e.syscall ?? 'use')} ${path}: ${why[e.code] ?? e.code}`;
 }
 
 /** A message on one line: line breaks (from a reader's message or a name in the file) become spaces. */

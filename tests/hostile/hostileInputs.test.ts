@@ -279,6 +279,10 @@ describe('design size', () => {
     expect(r.err).not.toMatch(/seed/);
   });
 
+  it('says why an output file cannot be written, in one line', async () => {
+    await refused(/^stratplot plan: cannot write no-such-folder\/plots\.geojson: its folder does not exist\n$/, 'plan', 'site.geojson', '--plots', '4', '--seed', '1', '--out', 'no-such-folder/plots.geojson');
+  });
+
   it('refuses option values that Number would misread: 0x10, Infinity, 1e400', async () => {
     for (const v of ['0x10', 'Infinity', '1e400', '12abc']) await refused(new RegExp(`--spacing needs a number, got "${v}"`), 'plan', 'site.geojson', '--plots', '4', '--spacing', v);
   });
