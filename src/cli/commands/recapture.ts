@@ -23,7 +23,8 @@ function count(values: Record<string, string | boolean | undefined>, name: strin
   const text = values[name];
   if (typeof text !== 'string') throw new InputError(`--${name} is required`);
   const v = optionNumber(text);
-  if (!/^\s*\d+\s*$/.test(text) || Number.isNaN(v)) throw new InputError(`--${name} must be a whole number ≥ 0, got "${text.slice(0, 40)}"`);
+  // Beyond 2⁵³ a count is no longer a whole number in floating point, so it would be rounded silently.
+  if (!/^\s*\d+\s*$/.test(text) || !Number.isSafeInteger(v)) throw new InputError(`--${name} must be a whole number ≥ 0, got "${text.slice(0, 40)}"`);
   return v;
 }
 
