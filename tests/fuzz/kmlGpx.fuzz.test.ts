@@ -39,8 +39,9 @@ function independentAreas(text: string): Map<string, number> | null {
   };
   for (const pm of text.match(/<Placemark>[\s\S]*?<\/Placemark>/g) ?? []) {
     const name = /<name>([\s\S]*?)<\/name>/.exec(pm)?.[1]?.trim() ?? '';
-    const outer = /<outerBoundaryIs>\s*<LinearRing>\s*<coordinates>([\s\S]*?)<\/coordinates>/.exec(pm)?.[1];
-    const inner = /<innerBoundaryIs>\s*<LinearRing>\s*<coordinates>([\s\S]*?)<\/coordinates>/.exec(pm)?.[1];
+    // Stray text between the tags (an edit can leave "0" there) does not stop a KML reader from reading the ring.
+    const outer = /<outerBoundaryIs>[^<]*<LinearRing>[^<]*<coordinates>([^<]*)<\/coordinates>/.exec(pm)?.[1];
+    const inner = /<innerBoundaryIs>[^<]*<LinearRing>[^<]*<coordinates>([^<]*)<\/coordinates>/.exec(pm)?.[1];
     if (outer === undefined) continue;
     const rings = [tuples(outer), ...(inner === undefined ? [] : [tuples(inner)])];
     if (rings.some((r) => r === null)) return null;

@@ -60,7 +60,10 @@ describe('fuzz: plan option values', () => {
         const plots = JSON.parse(readFileSync(join(dir, 'plots.geojson'), 'utf8')).features as Feature<Point, { stratum: string; plot_id: string }>[];
         for (const p of plots) {
           const home = site.features.filter((f) => f.properties?.stratum === p.properties.stratum);
-          if (!home.some((f) => booleanPointInPolygon(p.geometry.coordinates, f.geometry as never))) {
+          const [lon, lat] = p.geometry.coordinates;
+          // Coordinates are written to 7 decimals (about 1 cm): a plot on its stratum's edge may round 1e-7° across it.
+          const near = [0, 1e-7, -1e-7].flatMap((dx) => [0, 1e-7, -1e-7].map((dy) => [lon + dx, lat + dy]));
+          if (!home.some((f) => near.some((q) => booleanPointInPolygon(q, f.geometry as never)))) {
             throw new Error(`plot ${p.properties.plot_id} lies outside its stratum`);
           }
         }
