@@ -60,6 +60,7 @@ const KML_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 function coordinatesChecked(fileName: string, doc: Document): void {
   const placemarks = Array.from(doc.getElementsByTagName('Placemark'));
   placemarks.forEach((pm, index) => {
+    polygonRingsChecked(fileName, pm, index);
     for (const el of Array.from(pm.getElementsByTagName('coordinates'))) {
       const tuples = (el.textContent ?? '').trim().split(/\s+/).filter((t) => t !== '');
       tuples.forEach((tuple, k) => {
@@ -71,14 +72,46 @@ function coordinatesChecked(fileName: string, doc: Document): void {
           Math.abs(numbers[0]) <= 180 &&
           Math.abs(numbers[1]) <= 90;
         if (ok) return;
-        const name = pm.getElementsByTagName('name')[0]?.textContent?.trim();
         const shown = tuple.length > 40 ? `${tuple.slice(0, 40)}…` : tuple;
-        throw new InputError(
-          `${fileName}: placemark ${index}${name ? ` ("${name.slice(0, 60)}")` : ''}: coordinate ${k + 1} "${shown}" is not longitude,latitude[,altitude] in WGS84 degrees`,
-        );
+        throw new InputError(`${fileName}: ${placemarkShown(pm, index)}: coordinate ${k + 1} "${shown}" is not longitude,latitude[,altitude] in WGS84 degrees`);
       });
     }
   });
+}
+
+/** "placemark 3 ("Heath")" for messages. */
+function placemarkShown(pm: Element, index: number): string {
+  const name = pm.getElementsByTagName('name')[0]?.textContent?.trim();
+  return `placemark ${index}${name ? ` ("${name.slice(0, 60)}")` : ''}`;
+}
+
+/**
+ * Each Polygon must have one outer ring first, then holes, each a LinearRing inside
+ * <outerBoundaryIs> or <innerBoundaryIs> (OGC KML 2.2 §10.8), with at least 4 positions once closed:
+ * togeojson takes every LinearRing in document order as outer-then-holes and drops a ring of fewer
+ * positions, so a misplaced or short ring would change the area without a word.
+ */
+function polygonRingsChecked(fileName: string, pm: Element, index: number): void {
+  for (const polygon of Array.from(pm.getElementsByTagName('Polygon'))) {
+    const rings = Array.from(polygon.getElementsByTagName('LinearRing'));
+    rings.forEach((ring, k) => {
+      const holder = (ring.parentNode as Element | null)?.localName;
+      const where = `${fileName}: ${placemarkShown(pm, index)}: ring ${k}`;
+      if (holder !== 'outerBoundaryIs' && holder !== 'innerBoundaryIs') {
+        throw new InputError(`${where} is not inside <outerBoundaryIs> or <innerBoundaryIs> (it is in <${holder ?? '?'}>)`);
+      }
+      if ((holder === 'outerBoundaryIs') !== (k === 0)) {
+        throw new InputError(`${where}: a Polygon needs exactly one outer boundary, before its inner boundaries`);
+      }
+      const text = Array.from(ring.getElementsByTagName('coordinates')).map((c) => c.textContent ?? '').join(' ');
+      const tuples = text.trim().split(/\s+/).filter((t) => t !== '');
+      const closed = tuples.length > 0 && tuples[0] === tuples[tuples.length - 1];
+      const positions = tuples.length + (closed ? 0 : 1);
+      if (tuples.length === 0 || positions < 4) {
+        throw new InputError(`${where} has ${tuples.length} positions; a ring needs at least 3 corners and the closing position`);
+      }
+    });
+  }
 }
 
 function kmlDocument(fileName: string, bytes: Uint8Array): { doc: Document; ours: Row[] | null } {

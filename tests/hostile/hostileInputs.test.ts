@@ -115,6 +115,17 @@ describe('KML and GPX text', () => {
     await refused(/tuple\.kml: placemark 0 \("Heath \(invented\)"\): coordinate 3 "abc,def" is not longitude,latitude\[,altitude\]/, 'areas', 'tuple.kml', '--field', 'name');
   });
 
+  it('refuses a hole of too few positions (a KML reader would drop it) and a ring outside the boundary elements', async () => {
+    const outer = kmlRingText();
+    const hole = `${X0 + 0.001},${Y0 + 0.001} ${X0 + 0.002},${Y0 + 0.001} ${X0 + 0.001},${Y0 + 0.001}`;
+    const kml = (inner: string) =>
+      `<kml xmlns="http://www.opengis.net/kml/2.2"><Placemark><name>Heath</name><Polygon><outerBoundaryIs><LinearRing><coordinates>${outer}</coordinates></LinearRing></outerBoundaryIs>${inner}</Polygon></Placemark></kml>`;
+    put('shorthole.kml', kml(`<innerBoundaryIs><LinearRing><coordinates>${hole}</coordinates></LinearRing></innerBoundaryIs>`));
+    await refused(/shorthole\.kml: placemark 0 \("Heath"\): ring 1 has 3 positions; a ring needs at least 3 corners and the closing position/, 'areas', 'shorthole.kml', '--field', 'name');
+    put('stray.kml', kml(`<innerBoundary><LinearRing><coordinates>${kmlRingText(boxRing(X0 + 0.001, Y0 + 0.001, 0.001, 0.001))}</coordinates></LinearRing></innerBoundary>`));
+    await refused(/stray\.kml: placemark 0 \("Heath"\): ring 1 is not inside <outerBoundaryIs> or <innerBoundaryIs> \(it is in <innerBoundary>\)/, 'areas', 'stray.kml', '--field', 'name');
+  });
+
   it('refuses folders and MultiGeometry nested deeper than the XML depth limit', async () => {
     put('folders.kml', kmlDeepFolders(50_000));
     await refused(new RegExp(`folders\\.kml: its elements are nested more than ${MAX_XML_DEPTH} levels deep; stratplot's limit is ${MAX_XML_DEPTH} levels`), 'areas', 'folders.kml');
