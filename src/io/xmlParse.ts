@@ -41,11 +41,19 @@ export function xmlParse(fileName: string, text: string): Document {
     return depthChecked(fileName, doc);
   }
   let doc: Document;
+  let first: string | null = null;
   try {
-    // onError keeps xmldom from printing to the console; fatal errors still throw.
-    doc = new XmlDomParser({ onError: () => {} }).parseFromString(body, 'text/xml') as unknown as Document;
+    // Recoverable errors (a bare "<" in text, say) are refused too, as the browser's parser refuses them,
+    // so the command line and the planner read the same files; warnings are not printed.
+    doc = new XmlDomParser({
+      onError: (level: string, message: string) => {
+        if (level === 'warning') return;
+        first ??= message;
+        throw new Error(message);
+      },
+    }).parseFromString(body, 'text/xml') as unknown as Document;
   } catch (error) {
-    const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
+    const message = (first ?? (error instanceof Error ? error.message : String(error))).split('\n')[0].replace(/^\[xmldom \w+\]\s*/, '');
     const at = (error as { locator?: { lineNumber?: number; columnNumber?: number } }).locator;
     const where = at?.lineNumber ? ` at line ${at.lineNumber}, column ${at.columnNumber}` : '';
     throw new InputError(`${fileName}: not well-formed XML${where} (${message})`);

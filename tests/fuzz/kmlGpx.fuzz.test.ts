@@ -37,11 +37,12 @@ function independentAreas(text: string): Map<string, number> | null {
     if (!list.every((v) => (v.length === 2 || v.length === 3) && v.every((x) => NUMBER.test(x)))) return null;
     return list.map((v) => v.map(Number));
   };
-  for (const pm of text.match(/<Placemark>[\s\S]*?<\/Placemark>/g) ?? []) {
-    const name = /<name>([\s\S]*?)<\/name>/.exec(pm)?.[1]?.trim() ?? '';
+  // Tags as XML allows them: white space may stand before the closing ">" of a tag.
+  for (const pm of text.match(/<Placemark\s*>[\s\S]*?<\/Placemark\s*>/g) ?? []) {
+    const name = /<name\s*>([^<]*)<\/name\s*>/.exec(pm)?.[1]?.trim() ?? '';
     // Stray text between the tags (an edit can leave "0" there) does not stop a KML reader from reading the ring.
-    const outer = /<outerBoundaryIs>[^<]*<LinearRing>[^<]*<coordinates>([^<]*)<\/coordinates>/.exec(pm)?.[1];
-    const inner = /<innerBoundaryIs>[^<]*<LinearRing>[^<]*<coordinates>([^<]*)<\/coordinates>/.exec(pm)?.[1];
+    const outer = /<outerBoundaryIs\s*>[^<]*<LinearRing\s*>[^<]*<coordinates\s*>([^<]*)<\/coordinates\s*>/.exec(pm)?.[1];
+    const inner = /<innerBoundaryIs\s*>[^<]*<LinearRing\s*>[^<]*<coordinates\s*>([^<]*)<\/coordinates\s*>/.exec(pm)?.[1];
     if (outer === undefined) continue;
     const rings = [tuples(outer), ...(inner === undefined ? [] : [tuples(inner)])];
     if (rings.some((r) => r === null)) return null;
