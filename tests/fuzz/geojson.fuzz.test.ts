@@ -91,7 +91,8 @@ function mutate(doc: Json, m: { op: string; [k: string]: unknown }): Json {
 function expectedAreas(text: string): Map<string, number> | null {
   let doc: Json;
   try {
-    doc = JSON.parse(text);
+    // A leading byte-order mark may be ignored (RFC 8259 §8.1), as stratplot does.
+    doc = JSON.parse(text.replace(/^\ufeff/, ''));
   } catch {
     return null;
   }
