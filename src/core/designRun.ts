@@ -4,7 +4,7 @@ import { allocateProportional } from './allocateProportional';
 import type { AllocationResult } from './allocateWithMinimum';
 import { designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
-import { designCapacityCheck, designSizeCheck } from './designSizeCheck';
+import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from './designTypes';
@@ -63,6 +63,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   };
   if (site.strata.length === 0) throw new InputError('the site has no strata');
   designSizeCheck(settings, site.strata.length);
+  placementPolygonsCheck(site);
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);

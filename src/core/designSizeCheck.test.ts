@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { designSettingsDefault } from './designSettingsDefault';
-import { designSizeCheck, stratumCapacityBound } from './designSizeCheck';
+import { designSizeCheck, placementPolygonsCheck, stratumCapacityBound } from './designSizeCheck';
 import { localFrameAt } from './localFrame';
 import { placementConstraintsBuild } from './placementConstraints';
 import type { Site } from './types';
@@ -32,5 +32,17 @@ describe('designSizeCheck', () => {
     expect(() => designSizeCheck(designSettingsDefault({ plots: 10, reservePerStratum: 50_000 }), 3)).toThrow('reserve plots per stratum: 50,000 reserves in each of 3 strata and 10 primaries make 150,010 plots');
     expect(() => designSizeCheck(designSettingsDefault({ plots: 10, minPerStratum: 40_000 }), 3)).toThrow('minimum plots per stratum: 40,000 in each of 3 strata make 120,000 plots');
     expect(() => designSizeCheck(designSettingsDefault({ plots: 100_000 }), 3)).not.toThrow();
+  });
+});
+
+describe('placementPolygonsCheck', () => {
+  it('refuses a polygon of more vertices than placement triangulates in good time, naming the count and the limit', () => {
+    // One shared position repeated keeps the test light; the check counts positions.
+    const ring = new Array<number[]>(200_001).fill([150.5, -35.1]);
+    const big: Site = { ...square, parts: [{ id: 'p', stratum: 'Heath', geometry: { type: 'Polygon', coordinates: [ring] } }] };
+    expect(() => placementPolygonsCheck(big)).toThrow(
+      'stratum "Heath", feature 0: 200,001 vertices is more than placement triangulates in good time (its area is measured all the same); simplify the outline; stratplot\'s limit is 200,000 vertices per polygon in a design',
+    );
+    expect(() => placementPolygonsCheck(square)).not.toThrow();
   });
 });

@@ -1,7 +1,28 @@
 import type { DesignSettings } from './designTypes';
-import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS, MAX_POLYGON_VERTICES } from './inputLimits';
 import { InputError } from './InputError';
 import type { PlacementConstraints } from './placementConstraints';
+import type { Site } from './types';
+
+/**
+ * Refuses, before placement triangulates them, stratum polygons of more than
+ * {@link MAX_POLYGON_VERTICES} vertices (shell and holes together).
+ * Throws InputError naming the stratum feature, its vertex count and the limit.
+ */
+export function placementPolygonsCheck(site: Site): void {
+  site.parts.forEach((part, i) => {
+    const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
+    polys.forEach((rings, k) => {
+      const n = rings.reduce((a, r) => a + r.length, 0);
+      if (n <= MAX_POLYGON_VERTICES) return;
+      throw limitExceeded(
+        `stratum "${part.stratum}", feature ${i}${polys.length > 1 ? `, polygon ${k}` : ''}`,
+        `${limitNumber(n)} vertices is more than placement triangulates in good time (its area is measured all the same); simplify the outline`,
+        `${limitNumber(MAX_POLYGON_VERTICES)} vertices per polygon in a design`,
+      );
+    });
+  });
+}
 
 /**
  * Refuses, before any placement, a design larger than {@link MAX_DESIGN_PLOTS}: the plots asked

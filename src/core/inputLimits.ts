@@ -24,6 +24,14 @@ export const MAX_ZIP_TOTAL_BYTES = 512 * 1024 * 1024;
 /** Vertices (positions) in one map file; a later speed-up may raise it. */
 export const MAX_FILE_VERTICES = 2_000_000;
 
+/**
+ * Vertices in one stratum polygon (shell and holes) that placement triangulates: ear clipping
+ * slows down faster than the vertex count on long wavy rings (a 200 000-vertex ring takes about 4 s
+ * here, a 2 000 000-vertex one about 6 min), so larger polygons are refused for designs until a
+ * faster triangulation lands; areas are measured for them all the same.
+ */
+export const MAX_POLYGON_VERTICES = 200_000;
+
 /** Access points in one site (the nearest one is looked up for every plot). */
 export const MAX_ACCESS_POINTS = 1_000;
 

@@ -2,6 +2,7 @@ import type { Feature, Point } from 'geojson';
 import { STRATPLOT_VERSION } from './designRun';
 import { designSettingsDefault } from './designSettingsDefault';
 import type { AllocationRow, PlotCollection, PlotProperties } from './designTypes';
+import { placementPolygonsCheck } from './designSizeCheck';
 import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
 import { InputError } from './InputError';
 import { FIT_OK, placementConstraintsBuild } from './placementConstraints';
@@ -103,6 +104,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   }
   const angleDeg = options.angleDeg ?? 0;
   if (!Number.isFinite(angleDeg)) throw new InputError(`grid angle must be a number of degrees, got ${angleDeg}`);
+  placementPolygonsCheck(site);
   const frame = siteLocalFrame(site.parts);
   const widthM = Math.max((cols - 1) * spacingM, 1e-3);
   const heightM = Math.max((rows - 1) * spacingM, 1e-3);
