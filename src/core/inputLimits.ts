@@ -15,6 +15,9 @@ export const MAX_NESTING_DEPTH = 32;
 /** Depth of XML elements in a KML or GPX document (a real KML file is about 10 deep). */
 export const MAX_XML_DEPTH = 100;
 
+/** Bytes of one file named on the command line (a JavaScript string holds at most about 512 Mi characters). */
+export const MAX_FILE_BYTES = 512 * 1024 * 1024;
+
 /** Bytes one zip entry (a .shp, .dbf or the KML of a KMZ) may inflate to. */
 export const MAX_ZIP_ENTRY_BYTES = 256 * 1024 * 1024;
 
