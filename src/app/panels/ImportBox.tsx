@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../../core/inputLimits';
 import type { FeatureFileOptions } from '../../io/parseFeatureFile';
 import type { ExclusionMapping } from '../../state/exclusionPropertiesMap';
 import { type ImportPreview, importAccess, importAttempt, importExclusions, importFieldGuess, importStrata } from '../../state/importActions';
@@ -73,6 +74,10 @@ export function ImportBox({ kind: role }: { kind: Role }) {
     if (!file) return;
     setStep(null);
     setProblem(null);
+    if (file.size > MAX_FILE_BYTES) {
+      refuse(limitExceeded(file.name, `the file is ${limitBytes(file.size)}`, `${limitBytes(MAX_FILE_BYTES)} per file`).message);
+      return;
+    }
     let bytes: Uint8Array;
     try {
       bytes = new Uint8Array(await file.arrayBuffer());
