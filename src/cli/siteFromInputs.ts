@@ -1,4 +1,5 @@
 import { basename } from 'node:path';
+import { limitExceeded, limitNumber, limitText, MAX_ACCESS_POINTS, MAX_NAME_LENGTH } from '../core/inputLimits';
 import { InputError } from '../core/InputError';
 import { siteValidate } from '../core/siteValidate';
 import type { AreaGeometry, Exclusion, Problem, Site, StratumInfo, StratumPart } from '../core/types';
@@ -51,6 +52,7 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   };
   const strataFile = await load(inputs.strata, true);
   const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });
+  if (inputs.name !== undefined) limitText(inputs.name.trim(), MAX_NAME_LENGTH, '--site-name', 'the site name');
   const empty: Site = { name: inputs.name?.trim() || basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
   const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
 
@@ -58,7 +60,7 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   for (const path of inputs.exclude ?? []) {
     const file = await load(path);
     const found = exclusionsFromFeatures(file.fc, { fileName: file.name });
-    warnings.push(...failOn(file.name, siteValidate({ ...empty, exclusions: found })));
+    for (const w of failOn(file.name, siteValidate({ ...empty, exclusions: found }))) warnings.push(w);
     const taken = new Set(exclusions.map((e) => e.id));
     for (const e of found) exclusions.push(taken.has(e.id) ? { ...e, id: `${file.name}:${e.id}` } : e);
   }
@@ -66,8 +68,12 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   for (const path of inputs.access ?? []) {
     const file = await load(path);
     const found = accessFromFeatures(file.fc, { fileName: file.name });
-    warnings.push(...failOn(file.name, siteValidate({ ...empty, access: found })));
-    access.push(...found);
+    for (const w of failOn(file.name, siteValidate({ ...empty, access: found }))) warnings.push(w);
+    // A loop, not a spread: a call cannot take a very long list as arguments.
+    for (const a of found) access.push(a);
+    if (access.length > MAX_ACCESS_POINTS) {
+      throw limitExceeded(file.name, `with it the site has ${limitNumber(access.length)} access points`, `${limitNumber(MAX_ACCESS_POINTS)} access points`);
+    }
   }
   let boundary: AreaGeometry | null = null;
   if (inputs.boundary) {
@@ -77,13 +83,13 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
       throw new InputError(`${file.name}: a boundary file must hold exactly one Polygon or MultiPolygon feature (it has ${file.fc.features.length} features, ${polys.length} polygonal)`);
     }
     boundary = polys[0].geometry as AreaGeometry;
-    warnings.push(...failOn(file.name, siteValidate({ ...empty, boundary })));
+    for (const w of failOn(file.name, siteValidate({ ...empty, boundary }))) warnings.push(w);
   }
   const site: Site = { ...empty, strata, parts, exclusions, access, boundary };
   if (boundary) {
     // Gaps need strata and boundary together; the strata file's own problems were reported above.
     const gaps = siteValidate(site).filter((p) => p.code === 'boundary-gap');
-    warnings.push(...gaps.map((p) => `${inputs.boundary}: ${p.message}`));
+    for (const w of gaps.map((p) => `${inputs.boundary}: ${p.message}`)) warnings.push(w);
   }
   return { site, warnings };
 }

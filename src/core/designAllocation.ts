@@ -5,6 +5,7 @@ import { type AllocationStratum, allocateProportional } from './allocateProporti
 import type { AllocationResult } from './allocateWithMinimum';
 import type { DesignSettings } from './designTypes';
 import { footprintAreaM2 } from './footprintParse';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
 import { sampleSizeForTarget, stratifiedPrecision } from './sampleSizeForTarget';
 
 /** The expected precision of a design from its pilot SDs. */
@@ -64,6 +65,9 @@ export function designAllocation(strata: readonly AllocationStratum[], settings:
     const t = settings.targetHalfwidth;
     const d = t.relative ? t.value * (settings.pilotMean as number) : t.value;
     const size = sampleSizeForTarget({ strata, sd: settings.sd, cost: settings.cost, allocation: settings.allocation, halfwidth: d, minPerStratum: settings.minPerStratum, plotAreaM2 });
+    if (size.n > MAX_DESIGN_PLOTS) {
+      throw limitExceeded('target half-width', `reaching it takes ${limitNumber(size.n)} plots`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`);
+    }
     allocation = { plots: size.plots, quotas: size.plots, raisedToMinimum: [] };
     sized = { n: size.n, halfwidth: size.halfwidth, df: size.df, halfwidthNormal: size.halfwidthNormal };
     statements.push(
@@ -73,6 +77,8 @@ export function designAllocation(strata: readonly AllocationStratum[], settings:
   } else if (settings.budget) {
     const costPerPlot = keys.map((k) => settings.cost[k] ?? 1);
     const b = allocateBudget({ keys, weights, costPerPlot, total: settings.budget.total, overhead: settings.budget.overhead, minPerStratum: settings.minPerStratum });
+    const n = b.plots.reduce((a, v) => a + v, 0);
+    if (n > MAX_DESIGN_PLOTS) throw limitExceeded('budget', `it pays for ${limitNumber(n)} plots`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`);
     allocation = { plots: b.plots, quotas: b.quotas, raisedToMinimum: [] };
     budget = { total: settings.budget.total, overhead: settings.budget.overhead, plotsCost: b.plotsCost, formulaN: b.formulaN };
     const rule =

@@ -1,5 +1,6 @@
 import { allocateLargestRemainder } from './allocateLargestRemainder';
 import type { DesignSettings } from './designTypes';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
 import type { PlacementConstraints } from './placementConstraints';
 import { plotsPlaceBalanced } from './plotsPlaceBalanced';
 import { gridLayoutRandom, plotsPlaceGrid } from './plotsPlaceGrid';
@@ -79,6 +80,11 @@ export function designPlace(
   if (s.method === 'grid') {
     const total = basisM2.reduce((a, b) => a + b, 0);
     const spacingM = s.gridSpacingM ?? Math.round(Math.sqrt(total / Math.max(1, s.plots)) * 10) / 10;
+    // One plot per cell of spacing²: a spacing that gives far more plots than the limit is refused before the grid is walked.
+    const expected = total / (spacingM * spacingM);
+    if (expected > MAX_DESIGN_PLOTS) {
+      throw limitExceeded(`grid spacing ${spacingM} m`, `it gives about ${limitNumber(expected)} plots over the strata`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`);
+    }
     if (s.gridSpacingM === null) statements.push(`Grid spacing ${spacingM} m was chosen to give about ${s.plots} plots over the basis area.`);
     const layout = gridLayoutRandom(c, spacingM, s.gridAngleDeg, streams.stream('grid-origin'));
     statements.push(
@@ -103,7 +109,12 @@ export function designPlace(
 
   const tallies: PlacementTally[] = [];
   for (let i = 0; i < h; i++) {
-    const t = plotsPlaceSequential(c, i, fixedLayout ? Number.POSITIVE_INFINITY : wanted[i], primarySource(i), spacing, placed, false, hooks);
+    // A layout keeps every position that fits, up to one past the limit so that an oversized one is caught.
+    const count = fixedLayout ? MAX_DESIGN_PLOTS + 1 - placed.x.length : wanted[i];
+    const t = plotsPlaceSequential(c, i, count, primarySource(i), spacing, placed, false, hooks);
+    if (fixedLayout && placed.x.length > MAX_DESIGN_PLOTS) {
+      throw limitExceeded(`the ${s.method} layout`, `it gives more than ${limitNumber(MAX_DESIGN_PLOTS)} plots`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design; use wider intervals`);
+    }
     tallies.push(t);
     primaries[i] = t.placed;
     if (t.gaveUp) full[i] = true;

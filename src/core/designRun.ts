@@ -2,6 +2,7 @@ import type { AllocationResult } from './allocateWithMinimum';
 import { designAllocation } from './designAllocation';
 import { designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
+import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from './designTypes';
@@ -10,6 +11,7 @@ import { placementConstraintsBuild } from './placementConstraints';
 import { plotIdsFor } from './plotIds';
 import { plotRecord } from './plotRecord';
 import { rngStreams, rngVersionOf, rngVersionText } from './rngStreams';
+import { plotsInStrataCheck } from './plotsInStrataCheck';
 import { siteLocalFrame } from './siteLocalFrame';
 import type { Site } from './types';
 
@@ -55,6 +57,8 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     if (options.isCancelled?.()) throw cancelled();
   };
   if (site.strata.length === 0) throw new InputError('the site has no strata');
+  designSizeCheck(settings, site.strata.length);
+  placementPolygonsCheck(site);
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
@@ -93,6 +97,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   tick();
   progress(0.3, 'placing');
   const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
   const rngVersion = rngVersionOf(settings);
   const streams = rngStreams(settings.seed, rngVersion);
   let ticks = 0;
@@ -128,6 +133,13 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   });
   // Stratum by stratum, primaries then reserves, each in rank order (a stable sort keeps the rank order).
   drafts.sort((a, b) => a.order - b.order);
+  plotsInStrataCheck(
+    site,
+    drafts.map(({ draft }) => {
+      const [lon, lat] = constraints.frame.toLonLat(draft.x, draft.y);
+      return { id: draft.plotId, stratum: draft.stratum, lon, lat };
+    }),
+  );
   const features = drafts.map((d) => plotRecord(constraints, d.draft));
   const rows: AllocationRow[] = keys.map((key, i) => ({
     stratum: key,

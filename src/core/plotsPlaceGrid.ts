@@ -1,3 +1,4 @@
+import { limitExceeded, limitNumber, MAX_LAYOUT_POSITIONS } from './inputLimits';
 import { InputError } from './InputError';
 import type { PlacementConstraints } from './placementConstraints';
 import type { CandidateSource } from './plotsPlaceSequential';
@@ -11,9 +12,6 @@ export interface GridLayout {
   /** Degrees clockwise from grid north (the user's angle from true north plus the convergence). */
   bearingDeg: number;
 }
-
-/** Most grid positions one stratum may ask for before the spacing counts as too fine (common practice, no source). */
-export const GRID_MAX_POSITIONS = 5_000_000;
 
 /**
  * A grid with a uniformly random origin within one cell of the site's south-west corner, so every
@@ -39,7 +37,7 @@ export function gridLayoutRandom(c: PlacementConstraints, spacingM: number, angl
  * Candidates for systematic grid placement in stratum `s`: every grid point over the stratum's
  * bounding box, row by row (the caller keeps those that fit); with `offset`, the points half a cell
  * across in both directions (cell centres), in a random order, for reserves.
- * Throws InputError when the grid would need more than {@link GRID_MAX_POSITIONS} positions.
+ * Throws InputError when the grid would need more than {@link MAX_LAYOUT_POSITIONS} positions.
  */
 export function plotsPlaceGrid(c: PlacementConstraints, s: number, g: GridLayout, offset: { rng: Rng } | null): CandidateSource {
   const [x0, y0, x1, y1] = c.strata[s].bbox;
@@ -69,9 +67,11 @@ export function plotsPlaceGrid(c: PlacementConstraints, s: number, g: GridLayout
   const empty = !Number.isFinite(iMin);
   const ni = empty ? 0 : iMax - iMin + 1;
   const nj = empty ? 0 : jMax - jMin + 1;
-  if (ni * nj > GRID_MAX_POSITIONS) {
-    throw new InputError(
-      `a grid spacing of ${(g.spacing / c.scale).toFixed(1)} m gives ${ni * nj} positions over stratum "${c.strata[s].key}"; use a wider spacing`,
+  if (ni * nj > MAX_LAYOUT_POSITIONS) {
+    throw limitExceeded(
+      `grid spacing ${(g.spacing / c.scale).toFixed(1)} m`,
+      `it gives ${limitNumber(ni * nj)} positions over stratum "${c.strata[s].key}"; use a wider spacing`,
+      `${limitNumber(MAX_LAYOUT_POSITIONS)} layout positions`,
     );
   }
   const total = ni * nj;

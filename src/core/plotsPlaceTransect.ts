@@ -1,3 +1,4 @@
+import { limitExceeded, limitNumber, MAX_LAYOUT_POSITIONS } from './inputLimits';
 import { InputError } from './InputError';
 import type { PlacementConstraints } from './placementConstraints';
 import type { CandidateSource } from './plotsPlaceSequential';
@@ -23,7 +24,8 @@ export interface TransectLayout {
  * Introduction to Distance Sampling, 2001, §7.2; Cochran 1977, ch. 8).
  * @param baselineLonLat at least two WGS84 [lon, lat] vertices
  * @param intervalM ground metres between transects; @param quadratIntervalM ground metres between quadrats
- * Throws InputError for a baseline of fewer than two distinct vertices or intervals not > 0.
+ * Throws InputError for a baseline of fewer than two distinct vertices, intervals not > 0, or
+ * intervals so small that the layout would need more than MAX_LAYOUT_POSITIONS positions.
  */
 export function transectLayoutRandom(
   c: PlacementConstraints,
@@ -47,24 +49,43 @@ export function transectLayoutRandom(
   let length = 0;
   for (let i = 2; i < baseline.length; i += 2) length += Math.hypot(baseline[i] - baseline[i - 2], baseline[i + 1] - baseline[i - 1]);
   const step = intervalM * c.scale;
+  // Refused before the loops: a tiny interval would otherwise lay out transects for ever.
+  if (length / step > MAX_LAYOUT_POSITIONS) {
+    throw limitExceeded(`transect interval ${intervalM} m`, `it gives ${limitNumber(length / step)} transects along the baseline`, `${limitNumber(MAX_LAYOUT_POSITIONS)} layout positions`);
+  }
   const along: number[] = [];
   for (let t = rng.float() * step; t <= length; t += step) along.push(t);
   let minX = Infinity;
   let minY = Infinity;
   let maxX = -Infinity;
   let maxY = -Infinity;
+  for (let i = 0; i + 1 < baseline.length; i += 2) {
+    minX = Math.min(minX, baseline[i]);
+    maxX = Math.max(maxX, baseline[i]);
+    minY = Math.min(minY, baseline[i + 1]);
+    maxY = Math.max(maxY, baseline[i + 1]);
+  }
   for (const s of c.strata) {
-    minX = Math.min(minX, s.bbox[0], ...baseline.filter((_, i) => i % 2 === 0));
-    minY = Math.min(minY, s.bbox[1], ...baseline.filter((_, i) => i % 2 === 1));
-    maxX = Math.max(maxX, s.bbox[2], ...baseline.filter((_, i) => i % 2 === 0));
-    maxY = Math.max(maxY, s.bbox[3], ...baseline.filter((_, i) => i % 2 === 1));
+    minX = Math.min(minX, s.bbox[0]);
+    minY = Math.min(minY, s.bbox[1]);
+    maxX = Math.max(maxX, s.bbox[2]);
+    maxY = Math.max(maxY, s.bbox[3]);
+  }
+  const maxChainageM = Math.hypot(maxX - minX, maxY - minY) / c.scale;
+  const positions = along.length * 2 * (maxChainageM / quadratIntervalM);
+  if (positions > MAX_LAYOUT_POSITIONS) {
+    throw limitExceeded(
+      `quadrat interval ${quadratIntervalM} m`,
+      `with ${along.length} transects it gives ${limitNumber(positions)} quadrat positions to try`,
+      `${limitNumber(MAX_LAYOUT_POSITIONS)} layout positions`,
+    );
   }
   return {
     baseline,
     along: Float64Array.from(along),
     quadratIntervalM,
     quadratStartM: (1 - rng.float()) * quadratIntervalM,
-    maxChainageM: Math.hypot(maxX - minX, maxY - minY) / c.scale,
+    maxChainageM,
   };
 }
 

@@ -47,7 +47,9 @@ export function isPresenceWord(text: string): boolean {
 /**
  * Guesses the kind of a results column: presence when every filled cell is a presence word or
  * 0/1 and at least one is a word; cover when the name mentions cover or %; count when it says
- * count, number or abundance; otherwise a plain measurement. The CLI lets the user override it.
+ * count, number or abundance and no filled cell has a fractional part (a count is whole, so a
+ * column holding 1.5 is a measurement whatever its name); otherwise a plain measurement. The CLI
+ * lets the user override it.
  */
 export function resultsKindGuess(column: string, cells: readonly string[]): ResultKind {
   const filled = cells.map((c) => c.trim()).filter((c) => c !== '');
@@ -55,6 +57,6 @@ export function resultsKindGuess(column: string, cells: readonly string[]): Resu
     return 'presence';
   }
   if (/cover|%|pct|percent/i.test(column)) return 'cover';
-  if (/count|number|abundance|^n_|_n$|individuals|stems/i.test(column)) return 'count';
+  if (/count|number|abundance|^n_|_n$|individuals|stems/i.test(column) && !filled.some((c) => /[.,]\d*[1-9]/.test(c))) return 'count';
   return 'measure';
 }

@@ -85,10 +85,10 @@ describe('resultsCheck', () => {
     );
   });
 
-  it('refuses cover outside 0–100 and negative counts, and warns about fractional counts', () => {
+  it('refuses cover outside 0–100 and negative counts, fractional counts and magnitudes beyond the limit', () => {
     expect(messages('plot_id,cover\nHEA-01,101\n', 'cover', 'cover')[0]).toBe('error: field.csv row 2, column cover: cover 101 is outside 0–100 %');
     expect(messages('plot_id,n\nHEA-01,-2\n', 'count', 'n')[0]).toBe('error: field.csv row 2, column n: count -2 is negative');
-    expect(messages('plot_id,n\nHEA-01,2.5\n', 'count', 'n')[0]).toBe('warning: field.csv row 2, column n: count 2.5 is not a whole number');
+    expect(messages('plot_id,n\nHEA-01,2.5\n', 'count', 'n')[0]).toBe('error: field.csv row 2, column n: count 2.5 is not a whole number (if the column is not a count, give --kind measure)');
   });
 
   it('reads presence words and refuses others', () => {

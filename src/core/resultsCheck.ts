@@ -1,5 +1,6 @@
 import type { PlotCollection, PlotProperties } from './designTypes';
 import { plotFieldStates } from './plotFieldState';
+import { MAX_RESULT_MAGNITUDE } from './inputLimits';
 import { type DecimalMark, type ResultKind, resultsCellNumber, resultsCellPresence } from './resultsCellParse';
 import type { Problem } from './types';
 
@@ -55,10 +56,13 @@ interface PlanPlot {
  * Checks a results table against the plot file and collects the measurements to estimate from.
  * Errors (the estimate must not run): ids not in the plan, duplicated ids, unknown status words,
  * a replacement that is not a reserve of the same stratum or is used twice, non-numeric values,
- * values out of range for the kind (cover outside 0–100, negative counts, presence words unknown).
- * Warnings: primaries with no result and no replacement, reserves used out of rank order (a reserve
- * of rank k used while a lower-ranked one of the same stratum is unused), reserves measured without
- * replacing anything, values given for rejected plots (ignored), fractional counts.
+ * values out of range for the kind (cover outside 0–100, negative or fractional counts, presence
+ * words unknown, magnitudes beyond MAX_RESULT_MAGNITUDE, e.g. 1e400), a table with no data rows,
+ * and a column with no value or no number at all (a text column).
+ * Warnings: primaries with no result and no replacement, rows marked done (or another status
+ * word) whose value is empty, reserves used out of rank order (a reserve of rank k used while a
+ * lower-ranked one of the same stratum is unused), reserves measured without replacing anything,
+ * values given for rejected plots (ignored).
  * Every message names the file, row, column and value; each Problem's `where` holds the spreadsheet
  * `row`, the `column` and the plot id, with `featureIndex` the 0-based data row (−1 when the problem
  * concerns a plot that has no row).
@@ -87,7 +91,13 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
   const hasReplaced = table.columns.includes(RESULTS_REPLACED_BY_COLUMN);
   const idCol = table.idColumn;
 
+  if (table.rows.length === 0) {
+    add('error', 'results-no-rows', `${table.fileName}: no data rows under the header; nothing to estimate`, null, idCol);
+    return { problems, observations };
+  }
+
   const rowOf = new Map<string, ResultsRow>();
+  const doneEmpty = new Set<string>();
   const rejected = new Set<string>();
   const replacement = new Map<string, { by: string; row: ResultsRow | null }>();
   const replacedBy = new Map<string, string>();
@@ -136,7 +146,13 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
       continue;
     }
     const value = readValue(cell, r, id);
-    if (value === undefined) continue;
+    if (value === undefined) {
+      if (cell.trim() === '' && statusText !== '') {
+        doneEmpty.add(id);
+        add('warning', 'results-done-empty', `${at(r, variable.column)}: plot ${id} is marked "${statusText}" but has no value; it is left out of the estimate`, r, variable.column, id);
+      }
+      continue;
+    }
     measured.add(id);
     observations.push({ plotId: id, stratum: planned.props.stratum, role: planned.props.role, value, row: r.row });
   }
@@ -165,6 +181,30 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
     replacedBy.set(by, id);
   }
 
+  /**
+   * A column that gave nothing to estimate and no error so far is empty, or a text column whose text
+   * sits on rejected rows only (where values are ignored): refused, naming its first non-numeric cell.
+   */
+  function columnKindChecked(): void {
+    const col = variable.column;
+    if (observations.length > 0 || problems.some((p) => p.severity === 'error')) return;
+    let firstText: ResultsRow | null = null;
+    for (const r of table.rows) {
+      const text = (r.cells[col] ?? '').trim();
+      if (text === '') continue;
+      const v = variable.kind === 'presence' ? resultsCellPresence(text) : resultsCellNumber(text, table.decimal);
+      if (v !== null && !Number.isNaN(v)) return;
+      firstText ??= r;
+    }
+    if (firstText === null) {
+      add('error', 'results-column-empty', `${table.fileName}, column ${col}: every cell is empty; nothing to estimate`, null, col);
+      return;
+    }
+    const text = (firstText.cells[col] ?? '').trim();
+    const want = variable.kind === 'presence' ? 'presence/absence values' : 'numbers';
+    add('error', 'results-text-column', `${at(firstText, col)}: "${text.slice(0, 60)}" is not a number, and no other cell of column ${col} is: it is a text column, and the estimate needs ${want}`, firstText, col);
+  }
+
   function readValue(cell: string, r: ResultsRow, id: string): number | undefined {
     const col = variable.column;
     const text = cell.trim();
@@ -178,6 +218,10 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
       add('error', 'results-not-a-number', `${at(r, col)}: "${text}" ${what}`, r, col, id);
       return undefined;
     }
+    if (!(Math.abs(value) <= MAX_RESULT_MAGNITUDE)) {
+      add('error', 'results-too-large', `${at(r, col)}: ${text.slice(0, 40)} is beyond ±${MAX_RESULT_MAGNITUDE} (stratplot's limit for a measured value)`, r, col, id);
+      return undefined;
+    }
     if (variable.kind === 'cover' && (value < 0 || value > 100)) {
       add('error', 'results-out-of-range', `${at(r, col)}: cover ${text} is outside 0–100 %`, r, col, id);
       return undefined;
@@ -187,16 +231,18 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
       return undefined;
     }
     if (variable.kind === 'count' && !Number.isInteger(value)) {
-      add('warning', 'results-fractional-count', `${at(r, col)}: count ${text} is not a whole number`, r, col, id);
+      add('error', 'results-fractional-count', `${at(r, col)}: count ${text} is not a whole number (if the column is not a count, give --kind measure)`, r, col, id);
+      return undefined;
     }
     return value;
   }
 
+  columnKindChecked();
   const reservesByStratum = new Map<string, PlotProperties[]>();
   for (const f of plots.features) {
     const p = f.properties;
     if (p.role === 'primary') {
-      if (measured.has(p.plot_id)) continue;
+      if (measured.has(p.plot_id) || doneEmpty.has(p.plot_id)) continue;
       const r = rowOf.get(p.plot_id) ?? null;
       const col = r ? variable.column : idCol;
       const rep = replacement.get(p.plot_id);

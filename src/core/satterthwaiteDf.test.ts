@@ -21,6 +21,14 @@ describe('satterthwaiteDf', () => {
     expect(satterthwaiteDf([t, t])).toBeCloseTo(10, 12);
   });
 
+  it('keeps its value for variances so small or so large that their squares would under- or overflow', () => {
+    // The ratio is scale-free (algebra, no source needed): the pooled case above, scaled by 1e-320 and 1e300.
+    for (const variance of [4e-320, 4e300]) {
+      const t = { coefficient: 1, variance, n: 6 };
+      expect(satterthwaiteDf([t, t])).toBeCloseTo(10, 9);
+    }
+  });
+
   it('returns null when every variance is zero', () => {
     expect(satterthwaiteDf([{ coefficient: 1, variance: 0, n: 5 }])).toBeNull();
   });

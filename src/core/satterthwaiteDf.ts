@@ -17,12 +17,21 @@ export interface SatterthwaiteTerm {
  * @throws RangeError when a term with a non-zero share has n < 2 (its variance is not estimable)
  */
 export function satterthwaiteDf(terms: readonly SatterthwaiteTerm[]): number | null {
+  // The ratio does not change when every term is scaled, so terms are divided by the largest one
+  // first: squares of very small (or very large) variances would otherwise underflow to 0/0.
+  let largest = 0;
+  for (const t of terms) {
+    const part = Math.abs(t.coefficient * t.variance);
+    if (part === 0) continue;
+    if (t.n < 2) throw new RangeError(`satterthwaiteDf: a term with n = ${t.n} has no variance estimate`);
+    if (part > largest) largest = part;
+  }
+  if (largest === 0) return null;
   let sum = 0;
   let sumSq = 0;
   for (const t of terms) {
-    const part = t.coefficient * t.variance;
+    const part = (t.coefficient * t.variance) / largest;
     if (part === 0) continue;
-    if (t.n < 2) throw new RangeError(`satterthwaiteDf: a term with n = ${t.n} has no variance estimate`);
     sum += part;
     sumSq += (part * part) / (t.n - 1);
   }

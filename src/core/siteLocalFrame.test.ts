@@ -30,6 +30,19 @@ describe('siteLocalFrame', () => {
     expect(siteLocalFrame([part(reversed), part(box(146.0, -35.1, 0.001))]).utmZone).toBe('56S');
   });
 
+  it('takes a site across the antimeridian where its ground is: zone 60 or 1, not zone 31', () => {
+    // Halves of one stratum split at ±180° (RFC 7946 §3.1.9), and one ring running 179.97° → −179.97°.
+    expect(['60S', '1S']).toContain(siteLocalFrame([part(box(179.95, -16.5, 0.05)), part(box(-180, -16.5, 0.05))]).utmZone);
+    const ring: Polygon = { type: 'Polygon', coordinates: [[[179.97, -16.5], [-179.97, -16.5], [-179.97, -16.48], [179.97, -16.48], [179.97, -16.5]]] };
+    expect(['60S', '1S']).toContain(siteLocalFrame([part(ring)]).utmZone);
+  });
+
+  it('refuses a site reaching more than 1 000 km from its zone meridian, naming the reach and the limit', () => {
+    expect(() => siteLocalFrame([part(box(150.2, -35.1, 0.5)), part(box(130, -35.1, 0.01))])).toThrow(
+      /^the site: it is too large for one UTM frame: its strata reach [\d,]+ km from the central meridian of UTM zone \d+ .*; stratplot's limit is 1,000 km from the central meridian$/,
+    );
+  });
+
   it('refuses a site with no polygons and polar sites', () => {
     expect(() => siteLocalFrame([])).toThrow('the site has no strata polygons');
     expect(() => siteLocalFrame([part(box(10, 85, 0.1))])).toThrow(/outside UTM's 80°S–84°N/);

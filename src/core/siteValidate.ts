@@ -1,6 +1,7 @@
 import type { Position } from 'geojson';
 import { coordinateProblems, type PositionedFeature } from './coordinateProblems';
 import { holeProblems } from './holeProblems';
+import { multiPolygonOverlaps } from './multiPolygonOverlaps';
 import { polygonSelfIntersections } from './polygonSelfIntersections';
 import { problemMake } from './problemMake';
 import { ringProblems } from './ringProblems';
@@ -23,6 +24,11 @@ function allPositions(g: AreaGeometry | ExclusionGeometry): Position[] {
   }
 }
 
+/** Appends every item of `items` to `list` in a loop: a spread of a very long list into push overflows the call stack. */
+function pushAll<T>(list: T[], items: readonly T[]): void {
+  for (const item of items) list.push(item);
+}
+
 /** A ring without duplicate consecutive vertices (a zero-length edge would meet its neighbours' neighbours). */
 function ringWithoutRepeats(ring: readonly Position[]): Position[] {
   return ring.filter((p, i) => i === 0 || p[0] !== ring[i - 1][0] || p[1] !== ring[i - 1][1]);
@@ -37,11 +43,11 @@ function polygonProblems(g: AreaGeometry, where: ProblemLocation): { problems: P
   }
   for (const rings of polys) {
     const ringIssues = rings.flatMap((ring, r) => ringProblems(ring, { ...where, ring: r }));
-    problems.push(...ringIssues);
+    pushAll(problems, ringIssues);
     if (ringIssues.some((p) => p.severity === 'error')) continue;
     const deduped = rings.map(ringWithoutRepeats);
-    problems.push(...holeProblems(deduped, where));
-    problems.push(...polygonSelfIntersections(deduped, where));
+    pushAll(problems, holeProblems(deduped, where));
+    pushAll(problems, polygonSelfIntersections(deduped, where));
   }
   return { problems, ok: !problems.some((p) => p.severity === 'error') };
 }
@@ -50,7 +56,8 @@ function polygonProblems(g: AreaGeometry, where: ProblemLocation): { problems: P
  * Everything wrong with a site's geometry, errors first in input order, then warnings:
  * coordinates out of range, swapped or in projected metres; rings unclosed, with duplicate
  * consecutive vertices, spikes or fewer than 3 distinct points; holes outside their shell;
- * self-intersections; overlapping strata features (with overlap area, m²); and gaps inside the
+ * self-intersections; overlapping polygons within one MultiPolygon and overlapping strata features
+ * (with overlap area, m²); and gaps inside the
  * site boundary that no stratum covers (warnings; only when the site has a boundary).
  * Each problem names the feature (layer, index in its layer, id) and a [lon, lat] to zoom to.
  * Geometry checks are skipped for features whose coordinates are unusable, and overlap/gap
@@ -63,23 +70,26 @@ export function siteValidate(site: Site): Problem[] {
 
   const strata = layerFeatures(site.parts, 'strata', (p) => p.geometry, (p) => p.id);
   const coordIssues = coordinateProblems(strata);
-  problems.push(...coordIssues);
+  pushAll(problems, coordIssues);
   const badCoords = new Set(coordIssues.map((p) => p.where.featureIndex));
   const clean: number[] = [];
   site.parts.forEach((part, i) => {
     if (badCoords.has(i)) return;
     const { problems: found, ok } = polygonProblems(part.geometry, strata[i].where);
-    problems.push(...found);
-    if (ok) clean.push(i);
+    pushAll(problems, found);
+    if (!ok) return;
+    const overlaps = multiPolygonOverlaps(part.geometry, strata[i].where);
+    pushAll(problems, overlaps);
+    if (overlaps.length === 0) clean.push(i);
   });
 
   const exclusions = layerFeatures(site.exclusions, 'exclusions', (e) => e.geometry, (e) => e.id);
   const exclusionCoordIssues = coordinateProblems(exclusions);
-  problems.push(...exclusionCoordIssues);
+  pushAll(problems, exclusionCoordIssues);
   const badExclusions = new Set(exclusionCoordIssues.map((p) => p.where.featureIndex));
   site.exclusions.forEach((e, i) => {
     if (badExclusions.has(i) || (e.geometry.type !== 'Polygon' && e.geometry.type !== 'MultiPolygon')) return;
-    problems.push(...polygonProblems(e.geometry, exclusions[i].where).problems);
+    pushAll(problems, polygonProblems(e.geometry, exclusions[i].where).problems);
   });
 
   problems.push(
@@ -90,18 +100,18 @@ export function siteValidate(site: Site): Problem[] {
   if (site.boundary) {
     const where: ProblemLocation = { featureIndex: 0, layer: 'boundary' };
     const issues = coordinateProblems([{ where, positions: allPositions(site.boundary) }]);
-    problems.push(...issues);
+    pushAll(problems, issues);
     if (issues.length === 0) {
       const { problems: found, ok } = polygonProblems(site.boundary, where);
-      problems.push(...found);
+      pushAll(problems, found);
       boundaryOk = ok;
     }
   }
 
   if (clean.length > 0) {
     const parts = clean.map((i) => site.parts[i]);
-    problems.push(...strataOverlaps(parts, clean));
-    if (site.boundary && boundaryOk) problems.push(...strataGaps(site.boundary, parts));
+    pushAll(problems, strataOverlaps(parts, clean));
+    if (site.boundary && boundaryOk) pushAll(problems, strataGaps(site.boundary, parts));
   }
   return [...problems.filter((p) => p.severity === 'error'), ...problems.filter((p) => p.severity === 'warning')];
 }

@@ -2,6 +2,8 @@ import type { Feature, Point } from 'geojson';
 import { STRATPLOT_VERSION } from './designRun';
 import { designSettingsDefault } from './designSettingsDefault';
 import type { AllocationRow, PlotCollection, PlotProperties } from './designTypes';
+import { placementPolygonsCheck } from './designSizeCheck';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from './inputLimits';
 import { InputError } from './InputError';
 import { FIT_OK, placementConstraintsBuild } from './placementConstraints';
 import { footprintShapeXY } from './placementFootprint';
@@ -76,7 +78,8 @@ function whole(name: string, v: number, min: number, max = Number.POSITIVE_INFIN
  * ground between stations is checked too, not only the stations. Station ids are grid + row letter +
  * column, e.g. "G1-A03"; grids are numbered in stratum order. Seeded: same inputs, same layout.
  * @throws InputError for sizes that are not whole numbers, more than 26 rows, a spacing or
- *   separation that is not a number ≥ 0, or an unknown stratum key in `gridsPerStratum`
+ *   separation that is not a number ≥ 0, an unknown stratum key in `gridsPerStratum`, or more
+ *   stations in all than MAX_DESIGN_PLOTS
  */
 export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLayout {
   const { rows, cols, spacingM, minSeparationM } = options;
@@ -95,7 +98,14 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
       whole(`grids in stratum "${k}"`, g, 0);
     }
   }
+  // Every grid asked for is tried (a bounded number of draws each), so the request itself is capped.
+  const gridsAsked = typeof perStratum === 'number' ? perStratum * keys.length : Object.values(perStratum).reduce((a, b) => a + b, 0);
+  if (gridsAsked * rows * cols > MAX_DESIGN_PLOTS) {
+    throw limitExceeded('trap grids', `${limitNumber(gridsAsked)} grids of ${rows} × ${cols} stations make ${limitNumber(gridsAsked * rows * cols)} stations`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`);
+  }
   const angleDeg = options.angleDeg ?? 0;
+  if (!Number.isFinite(angleDeg)) throw new InputError(`grid angle must be a number of degrees, got ${angleDeg}`);
+  placementPolygonsCheck(site);
   const frame = siteLocalFrame(site.parts);
   const widthM = Math.max((cols - 1) * spacingM, 1e-3);
   const heightM = Math.max((rows - 1) * spacingM, 1e-3);

@@ -7,7 +7,6 @@ const B = (1 - 1 / RF) * A;
 const ES = (A * A - B * B) / (A * A);
 const K0 = 0.9996;
 const D2R = 0.017453292519943295;
-const TWO_PI = Math.PI * 2;
 // Longitudes more than this from the central meridian are brought back by one turn first (PROJ's
 // threshold, a hair over π, kept so results match proj4 to the bit).
 // biome-ignore lint/suspicious/noApproximativeNumericConstant: the value is PROJ's, not an approximation of π
@@ -97,7 +96,9 @@ export function utmForwardArray(frame: Pick<LocalFrame, 'zone' | 'hemisphere'>, 
   const y0 = frame.hemisphere === 'S' ? 1e7 : 0;
   for (let i = 0; i < n; i += 2) {
     let lam = lonLat[i] * D2R - lam0;
-    if (!(Math.abs(lam) <= WRAP_RAD)) lam = lam - (lam < 0 ? -1 : 1) * TWO_PI;
+    // Across the antimeridian: wrap in degrees, so that −180° and +180° land on the same easting to the bit
+    // (the two halves of a stratum split there then share their edge exactly).
+    if (!(Math.abs(lam) <= WRAP_RAD)) lam = (lonLat[i] - (lam < 0 ? -360 : 360)) * D2R - lam0;
     const phi = lonLat[i + 1] * D2R;
     // Conformal latitude χ by a Clenshaw sum of sin(2kφ) terms.
     const cos2 = 2 * Math.cos(2 * phi);

@@ -1,10 +1,20 @@
-/** First characters that make a spreadsheet read a text cell as a formula (OWASP "CSV Injection"). */
-const FORMULA_START = /^[=+\-@\t\r]/;
+/**
+ * First characters that make a spreadsheet read a text cell as a formula (OWASP "CSV Injection"),
+ * with the full-width forms ＝ ＋ － ＠ (U+FF1D, U+FF0B, U+FF0D, U+FF20) that some spreadsheet
+ * programs fold to their ASCII twins.
+ */
+const FORMULA_START = /^[=+\-@\t\r\uFF1D\uFF0B\uFF0D\uFF20]/;
+
+/** Whether a spreadsheet would take text starting like this as a formula (see FORMULA_START). */
+export function isFormulaStart(text: string): boolean {
+  return FORMULA_START.test(text);
+}
 
 /**
  * A value ready for a CSV cell: numbers stay numbers (so -122.4 is written as a number, not
  * text), null/undefined become empty, objects become JSON, and text that starts with = + - @,
- * tab or CR is prefixed with an apostrophe so spreadsheets show it instead of evaluating it.
+ * tab or CR (or a full-width ＝ ＋ － ＠) is prefixed with an apostrophe so spreadsheets show it
+ * instead of evaluating it.
  * Source: OWASP, "CSV Injection" (owasp.org/www-community/attacks/CSV_Injection).
  */
 export function csvCell(value: unknown): string | number {

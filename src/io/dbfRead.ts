@@ -66,7 +66,7 @@ export function dbfRead(bytes: Uint8Array, where: string, encoding?: string): Db
   const records = view.getUint32(4, true);
   const headerLen = view.getUint16(8, true);
   const recordLen = view.getUint16(10, true);
-  if (headerLen > bytes.length || headerLen < 33) throw new InputError(`${where}: the .dbf header is damaged`);
+  if (headerLen > bytes.length || headerLen < 33) throw new InputError(`${where}: the .dbf header is damaged (header length ${headerLen})`);
   const decoder = textDecoderFor(encoding ?? 'utf-8', !encoding);
   const decode = (from: number, to: number, row: number, field: string): string => {
     try {
@@ -87,10 +87,27 @@ export function dbfRead(bytes: Uint8Array, where: string, encoding?: string): Db
     fields.push({ name, type: String.fromCharCode(bytes[offset + 11]), length: bytes[offset + 16], decimals: bytes[offset + 17] });
     offset += 32;
   }
+  let fieldBytes = fields.reduce((n, f) => n + f.length, 0);
+  if (recordLen !== 1 + fieldBytes) {
+    // Clipper and FoxPro write text fields longer than 255 bytes with the high byte in the decimals byte.
+    const wide = fields.map((f) => (f.type === 'C' ? { ...f, length: f.length + 256 * f.decimals, decimals: 0 } : f));
+    const wideBytes = wide.reduce((n, f) => n + f.length, 0);
+    if (recordLen === 1 + wideBytes) {
+      fields.splice(0, fields.length, ...wide);
+      fieldBytes = wideBytes;
+    }
+  }
+  // Each record is a deletion flag byte and the fields; any other record length misaligns every row.
+  if (recordLen !== 1 + fieldBytes) {
+    throw new InputError(`${where}: the .dbf header gives records of ${recordLen} bytes, but its ${fields.length} fields take ${1 + fieldBytes} (with the deletion flag); the table is damaged`);
+  }
+  const room = Math.floor((bytes.length - headerLen) / recordLen);
+  if (records > room) {
+    throw new InputError(`${where}: the .dbf header says ${records} records, but the file holds only ${room} (it is truncated or its header is damaged)`);
+  }
   const rows: DbfTable['rows'] = [];
   for (let r = 0; r < records; r++) {
     const start = headerLen + r * recordLen;
-    if (start + recordLen > bytes.length) throw new InputError(`${where}: the .dbf is truncated at record ${r + 1} of ${records}`);
     if (bytes[start] === 0x2a) {
       rows.push(null);
       continue;

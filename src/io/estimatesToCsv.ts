@@ -1,4 +1,5 @@
 import type { EstimateReport } from '../core/estimateFromResults';
+import { isFormulaStart } from './csvCell';
 
 export interface EstimatesCsvOptions {
   /** ',' (default) or ';' — use ';' with decimal commas, as spreadsheets in many locales expect. */
@@ -30,14 +31,14 @@ const COLUMNS = [
  * stratified mean, CI, df, total and design effect, then "note" rows with the population statement,
  * warnings and formulas. Numbers are written in full precision with the chosen decimal mark; empty
  * cells mean "not available". Text cells are quoted when needed (RFC 4180) and text starting with
- * = + - @ is prefixed with ' so spreadsheets do not run it as a formula.
+ * = + - @ (or their full-width forms, see csvCell) is prefixed with ' so spreadsheets do not run it as a formula.
  */
 export function estimatesToCsv(report: EstimateReport, options: EstimatesCsvOptions = {}): string {
   const delimiter = options.delimiter ?? ',';
   const decimal = options.decimal ?? (delimiter === ';' ? ',' : '.');
   const num = (v: number | null | undefined) => (v === null || v === undefined ? '' : decimal === ',' ? String(v).replace('.', ',') : String(v));
   const text = (v: string) => {
-    const safe = /^[=+\-@]/.test(v) ? `'${v}` : v;
+    const safe = isFormulaStart(v) ? `'${v}` : v;
     return /["\r\n]/.test(safe) || safe.includes(delimiter) ? `"${safe.replace(/"/g, '""')}"` : safe;
   };
   const line = (cells: Partial<Record<(typeof COLUMNS)[number], string>>) => COLUMNS.map((c) => cells[c] ?? '').join(delimiter);

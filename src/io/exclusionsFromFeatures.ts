@@ -1,4 +1,5 @@
 import type { FeatureCollection } from 'geojson';
+import { limitExceeded, limitNumber, limitShown, limitText, MAX_BUFFER_M, MAX_ID_LENGTH, MAX_NAME_LENGTH, MAX_NOTE_LENGTH } from '../core/inputLimits';
 import { InputError } from '../core/InputError';
 import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type Exclusion, type ExclusionKind } from '../core/types';
 
@@ -51,8 +52,9 @@ export function exclusionKindParse(word: string): ExclusionKind | undefined {
 function bufferParse(file: string, index: number, value: unknown, kind: ExclusionKind): number {
   if (value === undefined || value === null || value === '') return DEFAULT_BUFFER_M[kind];
   const n = typeof value === 'number' ? value : typeof value === 'string' && value.trim() !== '' ? Number(value) : Number.NaN;
-  if (!Number.isFinite(n)) throw new InputError(`${file}: feature ${index}: buffer_m ${JSON.stringify(value)} is not a number of metres`);
+  if (!Number.isFinite(n)) throw new InputError(`${file}: feature ${index}: buffer_m ${limitShown(value)} is not a number of metres`);
   if (n < 0) throw new InputError(`${file}: feature ${index}: buffer_m ${n} is negative; give 0 or more metres`);
+  if (n > MAX_BUFFER_M) throw limitExceeded(`${file}: feature ${index}`, `buffer_m ${n} is wider than ${limitNumber(MAX_BUFFER_M)} m`, `${limitNumber(MAX_BUFFER_M)} m`);
   return n;
 }
 
@@ -84,15 +86,16 @@ export function exclusionsFromFeatures(fc: FeatureCollection, options: { fileNam
       throw new InputError(`${file}: feature ${i} has no kind; give kind = one of ${allowed}`);
     }
     const kind = typeof rawKind === 'string' ? exclusionKindParse(rawKind) : undefined;
-    if (!kind) throw new InputError(`${file}: feature ${i}: unknown kind ${JSON.stringify(rawKind)}; allowed kinds: ${allowed}`);
+    if (!kind) throw new InputError(`${file}: feature ${i}: unknown kind ${limitShown(rawKind)}; allowed kinds: ${allowed}`);
+    const at = `${file}: feature ${i}`;
     const exclusion: Exclusion = {
-      id: ids[i] && counts.get(ids[i]) === 1 ? ids[i] : `X${i + 1}`,
+      id: ids[i] && counts.get(ids[i]) === 1 ? limitText(ids[i], MAX_ID_LENGTH, at, 'its id') : `X${i + 1}`,
       kind,
       geometry: f.geometry as Exclusion['geometry'],
       bufferM: bufferParse(file, i, p.buffer_m, kind),
     };
-    if (typeof p.name === 'string' && p.name.trim()) exclusion.name = p.name.trim();
-    if (typeof p.notes === 'string' && p.notes.trim()) exclusion.notes = p.notes.trim();
+    if (typeof p.name === 'string' && p.name.trim()) exclusion.name = limitText(p.name.trim(), MAX_NAME_LENGTH, at, 'its name');
+    if (typeof p.notes === 'string' && p.notes.trim()) exclusion.notes = limitText(p.notes.trim(), MAX_NOTE_LENGTH, at, 'its notes');
     return exclusion;
   });
 }

@@ -130,7 +130,7 @@ describe('featuresToKml', () => {
 describe('parseKml on bad input', () => {
   it('names the placemark whose coordinates are not longitude,latitude', async () => {
     const text = `<kml xmlns="${KML_NS}"><Placemark><name>Stake</name><Point><coordinates>172.1,-143.1</coordinates></Point></Placemark></kml>`;
-    await expect(parseKml('bad.kml', new TextEncoder().encode(text))).rejects.toThrow('bad.kml: placemark 0 ("Stake"): a coordinate is not a WGS84 longitude,latitude');
+    await expect(parseKml('bad.kml', new TextEncoder().encode(text))).rejects.toThrow('bad.kml: placemark 0 ("Stake"): coordinate 1 "172.1,-143.1" is not longitude,latitude[,altitude] in WGS84 degrees');
   });
 
   it('says a file is not KML', async () => {

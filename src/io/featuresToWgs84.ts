@@ -1,5 +1,6 @@
 import type { FeatureCollection, Geometry, Position } from 'geojson';
 import { InputError } from '../core/InputError';
+import { crsDegreesCheck } from './crsDegreesCheck';
 import { crsResolveEpsg } from './crsResolve';
 
 /**
@@ -8,12 +9,13 @@ import { crsResolveEpsg } from './crsResolve';
  * datum shift included, comes from crsResolveEpsg, the one table of coordinate systems imports use.
  * Throws InputError naming the file for a code stratplot does not carry (listing the supported
  * ones), or naming the feature and position whose coordinates do not convert to a position on
- * Earth. Degrees given for a metres system do convert (to somewhere far away): callers check that
- * the result lies where the site is.
+ * Earth, or when every coordinate is degree-sized while the code names a projected system
+ * (crsDegreesCheck).
  */
 export function featuresToWgs84(fc: FeatureCollection, epsg: number, fileName: string): FeatureCollection {
   const crs = crsResolveEpsg(epsg, fileName);
   if (crs.epsg === 4326) return fc;
+  crsDegreesCheck(fc, crs, fileName);
   const features = fc.features.map((feature, index) => {
     let position = 0;
     const convert = (p: Position): Position => {

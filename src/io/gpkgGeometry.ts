@@ -1,4 +1,5 @@
 import type { Geometry, Position } from 'geojson';
+import { MAX_NESTING_DEPTH } from '../core/inputLimits';
 
 const WKB_TYPES = ['', 'Point', 'LineString', 'Polygon', 'MultiPoint', 'MultiLineString', 'MultiPolygon', 'GeometryCollection'] as const;
 
@@ -27,8 +28,17 @@ class Reader {
   }
 }
 
-function wkbRead(r: Reader): Geometry {
-  r.little = r.u8() === 1;
+/** A count read from the blob, refused when the bytes left cannot hold that many items of `minBytes` each. */
+function countRead(r: Reader, minBytes: number, what: string): number {
+  const n = r.u32();
+  if (n * minBytes > r.view.byteLength - r.at) throw new GpkgGeometryError(`geometry blob ends early (it claims ${n} ${what})`);
+  return n;
+}
+
+function wkbRead(r: Reader, depth = 0): Geometry {
+  const order = r.u8();
+  if (order > 1) throw new GpkgGeometryError(`invalid WKB byte order ${order}`);
+  r.little = order === 1;
   const raw = r.u32();
   // ISO WKB adds 1000/2000/3000 for Z/M/ZM; extended WKB sets high bits instead.
   let dims = 2;
@@ -37,6 +47,7 @@ function wkbRead(r: Reader): Geometry {
   if (raw & 0x40000000) dims++;
   if (code > 1000) {
     const flag = Math.floor(code / 1000);
+    if (flag > 3) throw new GpkgGeometryError(`unsupported WKB geometry type ${raw}`);
     dims = flag === 3 ? 4 : 3;
     code %= 1000;
   }
@@ -47,8 +58,8 @@ function wkbRead(r: Reader): Geometry {
     for (let d = 2; d < dims; d++) r.f64();
     return p;
   };
-  const points = (): Position[] => Array.from({ length: r.u32() }, point);
-  const rings = (): Position[][] => Array.from({ length: r.u32() }, points);
+  const points = (): Position[] => Array.from({ length: countRead(r, 8 * dims, 'points') }, point);
+  const rings = (): Position[][] => Array.from({ length: countRead(r, 4, 'rings') }, points);
   switch (kind) {
     case 'Point':
       return { type: 'Point', coordinates: point() };
@@ -57,7 +68,11 @@ function wkbRead(r: Reader): Geometry {
     case 'Polygon':
       return { type: 'Polygon', coordinates: rings() };
     default: {
-      const parts = Array.from({ length: r.u32() }, () => wkbRead(r));
+      if (depth >= MAX_NESTING_DEPTH) throw new GpkgGeometryError(`geometry collections are nested more than ${MAX_NESTING_DEPTH} deep (stratplot's limit)`);
+      const parts = Array.from({ length: countRead(r, 9, 'parts') }, () => wkbRead(r, depth + 1));
+      const member = kind === 'MultiPoint' ? 'Point' : kind === 'MultiLineString' ? 'LineString' : kind === 'MultiPolygon' ? 'Polygon' : null;
+      const stray = member ? parts.find((g) => g.type !== member) : undefined;
+      if (stray) throw new GpkgGeometryError(`a ${kind} holds a ${stray.type}`);
       if (kind === 'GeometryCollection') return { type: 'GeometryCollection', geometries: parts };
       const coords = parts.map((g) => (g as { coordinates: unknown }).coordinates);
       return { type: kind, coordinates: coords } as Geometry;

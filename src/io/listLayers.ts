@@ -3,7 +3,7 @@ import type { ImportOptions } from './importOptions';
 import { geoPackageLayers } from './parseGeoPackage';
 import { kmlLayers } from './parseKml';
 import { shapefileLayers } from './parseShapefileZip';
-import { zipEntries } from './zipEntries';
+import { zipEntryPaths } from './zipEntries';
 
 /**
  * Layer names of a map file that can hold several, for `options.layer`: the shapefiles in a zip,
@@ -14,7 +14,7 @@ export async function listLayers(fileName: string, bytes: Uint8Array, options: P
   const ext = fileName.slice(fileName.lastIndexOf('.') + 1).toLowerCase();
   switch (ext) {
     case 'zip':
-      return shapefileLayers(zipEntries(fileName, bytes));
+      return shapefileLayers(zipEntryPaths(fileName, bytes));
     case 'kml':
     case 'kmz':
       return kmlLayers(fileName, bytes);

@@ -1,5 +1,6 @@
 import type { FeatureCollection } from 'geojson';
-import { InputError } from '../core/InputError';
+import { InputError, isInputError } from '../core/InputError';
+import { featuresLimitCheck } from './featuresLimitCheck';
 import type { ImportOptions } from './importOptions';
 import { parseGeoJson } from './parseGeoJson';
 import { parseGeoPackage } from './parseGeoPackage';
@@ -60,8 +61,11 @@ const READERS: Record<string, Reader> = {
 
 /**
  * Reads a map file into a WGS84 GeoJSON FeatureCollection, choosing the reader by the file's
- * extension. Throws InputError for an unsupported extension (listing the supported ones) and for
- * anything the chosen reader finds wrong.
+ * extension, then checks it against the size limits (featuresLimitCheck). Throws InputError for an
+ * unsupported extension (listing the supported ones), for anything the chosen reader finds wrong,
+ * and for a limit reached. A library inside a reader that fails on a damaged file in its own way
+ * is reported the same way, as a file that cannot be read, so no reader's failure escapes as
+ * anything but an InputError.
  */
 export async function parseFeatureFile(
   fileName: string,
@@ -75,5 +79,14 @@ export async function parseFeatureFile(
     const supported = Object.keys(READERS).map((e) => `.${e}`).join(', ');
     throw new InputError(`${fileName}: unsupported file type${ext ? ` ".${ext}"` : ''}; supported: ${supported}`);
   }
-  return reader(fileName, bytes, options);
+  let fc: FeatureCollection;
+  try {
+    fc = await reader(fileName, bytes, options);
+  } catch (error) {
+    if (isInputError(error)) throw error;
+    const message = error instanceof Error ? error.message : String(error);
+    throw new InputError(`${fileName}: the file cannot be read (${message.split('\n')[0].slice(0, 200)})`);
+  }
+  featuresLimitCheck(fc, fileName);
+  return fc;
 }

@@ -1,4 +1,5 @@
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
+import { jsonDepthOver, limitExceeded, MAX_NESTING_DEPTH } from '../core/inputLimits';
 import { InputError } from '../core/InputError';
 import { featuresToWgs84 } from './featuresToWgs84';
 import { jsonErrorOffset } from './jsonErrorOffset';
@@ -113,13 +114,16 @@ function featureChecked(fileName: string, value: unknown, index: number): Featur
   if (properties !== null && properties !== undefined && (typeof properties !== 'object' || Array.isArray(properties))) {
     throw new InputError(`${fileName}: feature ${index}: "properties" must be an object or null`);
   }
+  if (properties && jsonDepthOver(properties, MAX_NESTING_DEPTH)) {
+    throw limitExceeded(`${fileName}: feature ${index}`, `its properties are nested more than ${MAX_NESTING_DEPTH} deep`, `${MAX_NESTING_DEPTH} levels`);
+  }
   const geometry = f.geometry === null || f.geometry === undefined ? null : geometryChecked(fileName, f.geometry, index);
   const feature: Feature = { type: 'Feature', properties: (properties as Record<string, unknown>) ?? {}, geometry: geometry as Geometry };
   if (typeof f.id === 'string' || typeof f.id === 'number') feature.id = f.id;
   return feature;
 }
 
-function geometryChecked(fileName: string, value: unknown, index: number): Geometry {
+function geometryChecked(fileName: string, value: unknown, index: number, depth = 0): Geometry {
   const g = value as Record<string, unknown>;
   const type = g?.type;
   if (typeof type !== 'string' || !GEOMETRY_TYPES.has(type)) {
@@ -127,7 +131,10 @@ function geometryChecked(fileName: string, value: unknown, index: number): Geome
   }
   if (type === 'GeometryCollection') {
     if (!Array.isArray(g.geometries)) throw new InputError(`${fileName}: feature ${index}: GeometryCollection has no "geometries"`);
-    return { type, geometries: g.geometries.map((member) => geometryChecked(fileName, member, index)) };
+    if (depth >= MAX_NESTING_DEPTH) {
+      throw limitExceeded(`${fileName}: feature ${index}`, `GeometryCollections are nested more than ${MAX_NESTING_DEPTH} deep`, `${MAX_NESTING_DEPTH} levels`);
+    }
+    return { type, geometries: g.geometries.map((member) => geometryChecked(fileName, member, index, depth + 1)) };
   }
   coordinatesChecked(fileName, index, type, g.coordinates, NESTING[type]);
   return { type, coordinates: g.coordinates } as Geometry;
@@ -137,10 +144,18 @@ function coordinatesChecked(fileName: string, index: number, type: string, c: un
   if (depth === 0) {
     const ok = Array.isArray(c) && c.length >= 2 && c.every((v) => typeof v === 'number' && Number.isFinite(v));
     if (!ok) {
-      throw new InputError(`${fileName}: feature ${index}: ${type} has a position that is not [lon, lat] numbers: ${JSON.stringify(c)?.slice(0, 60)}`);
+      throw new InputError(`${fileName}: feature ${index}: ${type} has a position that is not [lon, lat] numbers: ${positionShown(c)}`);
     }
     return;
   }
   if (!Array.isArray(c)) throw new InputError(`${fileName}: feature ${index}: ${type} coordinates are not nested arrays`);
   for (const member of c) coordinatesChecked(fileName, index, type, member, depth - 1);
 }
+
+/** A short picture of a bad position, without walking into arrays nested arbitrarily deep. */
+function positionShown(c: unknown): string {
+  if (!Array.isArray(c)) return JSON.stringify(c ?? null)?.slice(0, 60) ?? String(c);
+  const items = c.slice(0, 3).map((v) => (Array.isArray(v) ? '[…]' : typeof v === 'number' || typeof v === 'boolean' || v === null ? String(v) : JSON.stringify(v)?.slice(0, 20)));
+  return `[${items.join(', ')}${c.length > 3 ? ', …' : ''}]`;
+}
+

@@ -1,6 +1,7 @@
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
 import type { Database, SqlValue } from 'sql.js';
 import { InputError } from '../core/InputError';
+import { crsDegreesCheck } from './crsDegreesCheck';
 import { crsFromPrj } from './crsFromPrj';
 import { type CrsTransform, crsProj4Definition, crsResolveEpsg, crsWgs84 } from './crsResolve';
 import { geometryMapPositions } from './featuresToWgs84';
@@ -8,13 +9,21 @@ import { GpkgGeometryError, gpkgGeometryRead } from './gpkgGeometry';
 import type { ImportOptions } from './importOptions';
 import { sqlJsLoad } from './sqlJsLoad';
 
-function rows(db: Database, sql: string, params: SqlValue[] = []): Record<string, SqlValue>[] {
-  const stmt = db.prepare(sql);
+/** Rows of a query; SQLite's own refusal (a damaged page, a table that is not there) is said as the file's problem, naming `where`. */
+function rows(db: Database, sql: string, params: SqlValue[] = [], where = 'the GeoPackage'): Record<string, SqlValue>[] {
+  let stmt: ReturnType<Database['prepare']>;
+  try {
+    stmt = db.prepare(sql);
+  } catch (error) {
+    throw new InputError(`${where}: the GeoPackage cannot be read (SQLite: ${(error as Error).message})`);
+  }
   try {
     stmt.bind(params);
     const out: Record<string, SqlValue>[] = [];
     while (stmt.step()) out.push(stmt.getAsObject());
     return out;
+  } catch (error) {
+    throw new InputError(`${where}: the GeoPackage cannot be read (SQLite: ${(error as Error).message})`);
   } finally {
     stmt.free();
   }
@@ -29,7 +38,13 @@ async function openGeoPackage(fileName: string, bytes: Uint8Array, options: Impo
   } catch {
     throw new InputError(`${fileName}: not a GeoPackage (not an SQLite database)`);
   }
-  const has = rows(db, "SELECT name FROM sqlite_master WHERE type IN ('table','view') AND name IN ('gpkg_contents','gpkg_geometry_columns','gpkg_spatial_ref_sys')");
+  let has: Record<string, SqlValue>[];
+  try {
+    has = rows(db, "SELECT name FROM sqlite_master WHERE type IN ('table','view') AND name IN ('gpkg_contents','gpkg_geometry_columns','gpkg_spatial_ref_sys')", [], fileName);
+  } catch (error) {
+    db.close();
+    throw error;
+  }
   if (has.length < 3) {
     db.close();
     throw new InputError(`${fileName}: not a GeoPackage (an SQLite file without the gpkg_contents, gpkg_geometry_columns and gpkg_spatial_ref_sys tables)`);
@@ -37,15 +52,15 @@ async function openGeoPackage(fileName: string, bytes: Uint8Array, options: Impo
   return db;
 }
 
-function featureLayers(db: Database): string[] {
-  return rows(db, "SELECT table_name FROM gpkg_contents WHERE lower(data_type) = 'features' ORDER BY table_name").map((r) => String(r.table_name));
+function featureLayers(db: Database, fileName: string): string[] {
+  return rows(db, "SELECT table_name FROM gpkg_contents WHERE lower(data_type) = 'features' ORDER BY table_name", [], fileName).map((r) => String(r.table_name));
 }
 
 /** Names of the vector feature tables of a GeoPackage (gpkg_contents rows of data_type "features"). */
 export async function geoPackageLayers(fileName: string, bytes: Uint8Array, options: ImportOptions = {}): Promise<string[]> {
   const db = await openGeoPackage(fileName, bytes, options);
   try {
-    return featureLayers(db);
+    return featureLayers(db, fileName);
   } finally {
     db.close();
   }
@@ -55,7 +70,7 @@ function layerCrs(db: Database, srsId: number, where: string, epsg: number | und
   if (epsg !== undefined) return crsResolveEpsg(epsg, where);
   if (srsId === 0 || srsId === 4326) return crsWgs84();
   if (srsId === -1) throw new InputError(`${where}: the layer's coordinates are in an undefined cartesian system; give the EPSG code (--epsg)`);
-  const [srs] = rows(db, 'SELECT organization, organization_coordsys_id, definition FROM gpkg_spatial_ref_sys WHERE srs_id = ?', [srsId]);
+  const [srs] = rows(db, 'SELECT organization, organization_coordsys_id, definition FROM gpkg_spatial_ref_sys WHERE srs_id = ?', [srsId], where);
   if (!srs) throw new InputError(`${where}: srs_id ${srsId} is missing from gpkg_spatial_ref_sys`);
   const code = Number(srs.organization_coordsys_id);
   if (String(srs.organization).toUpperCase() === 'EPSG' && crsProj4Definition(code)) return crsResolveEpsg(code, where);
@@ -74,7 +89,7 @@ function layerCrs(db: Database, srsId: number, where: string, epsg: number | und
 export async function parseGeoPackage(fileName: string, bytes: Uint8Array, options: ImportOptions = {}): Promise<FeatureCollection> {
   const db = await openGeoPackage(fileName, bytes, options);
   try {
-    const layers = featureLayers(db);
+    const layers = featureLayers(db, fileName);
     if (layers.length === 0) throw new InputError(`${fileName}: the GeoPackage has no vector feature layers`);
     let layer = options.layer;
     if (layer === undefined) {
@@ -84,24 +99,29 @@ export async function parseGeoPackage(fileName: string, bytes: Uint8Array, optio
     const name = layers.find((l) => l === layer) ?? layers.find((l) => l.toLowerCase() === layer!.toLowerCase());
     if (!name) throw new InputError(`${fileName}: no layer "${layer}"; layers are: ${layers.join(', ')}`);
     const where = `${fileName} (layer ${name})`;
-    const [gc] = rows(db, 'SELECT column_name, srs_id FROM gpkg_geometry_columns WHERE table_name = ?', [name]);
+    const [table] = rows(db, "SELECT name FROM sqlite_master WHERE type IN ('table','view') AND name = ?", [name], where);
+    if (!table) throw new InputError(`${where}: gpkg_contents lists the layer, but the file has no table "${name}" (the GeoPackage is damaged)`);
+    const [gc] = rows(db, 'SELECT column_name, srs_id FROM gpkg_geometry_columns WHERE table_name = ?', [name], where);
     if (!gc) throw new InputError(`${where}: no entry in gpkg_geometry_columns`);
     const geomCol = String(gc.column_name);
     const crs = layerCrs(db, Number(gc.srs_id), where, options.epsg);
-    const info = rows(db, `PRAGMA table_info("${name.replace(/"/g, '""')}")`);
+    const info = rows(db, `PRAGMA table_info("${name.replace(/"/g, '""')}")`, [], where);
+    if (!info.some((c) => String(c.name) === geomCol)) throw new InputError(`${where}: gpkg_geometry_columns names the column "${geomCol}", which the table does not have`);
     const pk = info.find((c) => Number(c.pk) === 1 && String(c.type).toUpperCase() === 'INTEGER')?.name;
     const booleans = new Set(info.filter((c) => String(c.type).toUpperCase() === 'BOOLEAN').map((c) => String(c.name)));
-    const features: Feature[] = rows(db, `SELECT * FROM "${name.replace(/"/g, '""')}"`).map((row, i) => {
-      let geometry: Geometry | null = null;
+    const read: { row: Record<string, SqlValue>; geometry: Geometry | null }[] = rows(db, `SELECT * FROM "${name.replace(/"/g, '""')}"`, [], where).map((row, i) => {
       const blob = row[geomCol];
-      if (blob instanceof Uint8Array) {
-        try {
-          geometry = gpkgGeometryRead(blob).geometry;
-        } catch (error) {
-          if (error instanceof GpkgGeometryError) throw new InputError(`${where}: row ${i + 1}: ${error.message}`);
-          throw error;
-        }
+      if (blob === null || blob === undefined) return { row, geometry: null };
+      if (!(blob instanceof Uint8Array)) throw new InputError(`${where}: row ${i + 1}: the geometry column "${geomCol}" holds ${typeof blob === 'string' ? 'text' : 'a number'}, not a geometry blob`);
+      try {
+        return { row, geometry: gpkgGeometryRead(blob).geometry };
+      } catch (error) {
+        if (error instanceof GpkgGeometryError) throw new InputError(`${where}: row ${i + 1}: ${error.message}`);
+        throw error;
       }
+    });
+    crsDegreesCheck({ type: 'FeatureCollection', features: read.map((r) => ({ type: 'Feature', properties: {}, geometry: r.geometry as Geometry })) }, crs, where);
+    const features: Feature[] = read.map(({ row, geometry }, i) => {
       if (geometry && !(crs.epsg === 4326 && crs.isGeographic)) {
         geometry = geometryMapPositions(geometry, (p) => {
           const [lon, lat] = crs.toWgs84(p[0], p[1]);

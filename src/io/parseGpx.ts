@@ -3,7 +3,7 @@ import type { Feature, FeatureCollection, Geometry, Position } from 'geojson';
 import { InputError } from '../core/InputError';
 import { xmlParse } from './xmlParse';
 
-function restoreGeometry(g: Geometry, shape: string | undefined): Geometry {
+function restoreGeometry(g: Geometry, shape: string | undefined, where: string): Geometry {
   if (!shape) return g;
   const lines: Position[][] = g.type === 'LineString' ? [g.coordinates] : g.type === 'MultiLineString' ? g.coordinates : [];
   const [kind, layout] = shape.split(':');
@@ -11,6 +11,10 @@ function restoreGeometry(g: Geometry, shape: string | undefined): Geometry {
   if (kind === 'Polygon') return { type: 'Polygon', coordinates: lines };
   if (kind === 'MultiPolygon') {
     const counts = (layout ?? '').split(',').map(Number);
+    const total = counts.reduce((a, b) => a + b, 0);
+    if (!counts.every((n) => Number.isInteger(n) && n > 0) || total !== lines.length) {
+      throw new InputError(`${where}: its stratplot ring layout "${layout}" does not fit its ${lines.length} lines (the file is damaged)`);
+    }
     let at = 0;
     return { type: 'MultiPolygon', coordinates: counts.map((n) => lines.slice(at, (at += n))) };
   }
@@ -31,14 +35,17 @@ function checkPositions(fileName: string, index: number, g: Geometry): void {
   if ('coordinates' in g) walk(g.coordinates);
 }
 
-/** Every wpt/rtept/trkpt must carry a usable lat and lon; togeojson would silently skip the rest. */
+/** GPX 1.1 latitudeType and longitudeType are xsd:decimal: digits with an optional point, no exponent, no "0x". */
+const GPX_DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)$/;
+
+/** Every wpt/rtept/trkpt must carry a usable lat and lon; togeojson would silently skip the rest (or read "0x10" as 16). */
 function checkPointElements(fileName: string, doc: Document): void {
   for (const tag of ['wpt', 'rtept', 'trkpt']) {
     Array.from(doc.getElementsByTagName(tag)).forEach((el, i) => {
       for (const [attr, max] of [['lat', 90], ['lon', 180]] as const) {
         const raw = el.getAttribute(attr);
         const v = Number(raw);
-        if (raw === null || raw.trim() === '' || !Number.isFinite(v) || Math.abs(v) > max) {
+        if (raw === null || !GPX_DECIMAL.test(raw.trim()) || !Number.isFinite(v) || Math.abs(v) > max) {
           const name = el.getElementsByTagName('name')[0]?.textContent;
           throw new InputError(
             `${fileName}: <${tag}> ${i + 1}${name ? ` ("${name}")` : ''}: ${attr}=${raw === null ? 'missing' : `"${raw}"`} is not a ${attr === 'lat' ? 'latitude (−90 to 90)' : 'longitude (−180 to 180)'}`,
@@ -86,7 +93,7 @@ export async function parseGpx(fileName: string, bytes: Uint8Array): Promise<Fea
     }
     if (!f.geometry) return;
     if (f.geometry.type === 'Point') f.geometry.coordinates = stripAltitude(f.geometry.coordinates);
-    const geometry = restoreGeometry(f.geometry, shape);
+    const geometry = restoreGeometry(f.geometry, shape, `${fileName}: feature ${i}`);
     checkPositions(fileName, i, geometry);
     if (shape?.startsWith('MultiPoint:') && geometry.type === 'Point') {
       const group = multiPoints.get(shape);

@@ -20,7 +20,7 @@ function isZip(bytes: Uint8Array): boolean {
 /** The KML text of a .kml file or of the main document inside a .kmz (doc.kml, else the first .kml at the top). */
 function kmlText(fileName: string, bytes: Uint8Array): string {
   if (!isZip(bytes)) return new TextDecoder().decode(bytes);
-  const entries = zipEntries(fileName, bytes);
+  const entries = zipEntries(fileName, bytes, (p) => p.toLowerCase().endsWith('.kml'));
   const names = Object.keys(entries).filter((p) => p.toLowerCase().endsWith('.kml'));
   const main = names.find((p) => p.toLowerCase() === 'doc.kml') ?? names.sort((a, b) => a.split('/').length - b.split('/').length)[0];
   if (!main) throw new InputError(`${fileName}: the KMZ archive holds no .kml document`);
@@ -49,11 +49,77 @@ function ourRows(doc: Document): Row[] | null {
   });
 }
 
+/** A KML number (xsd:double as written in <coordinates>): no hexadecimal, no "NaN", no empty text. */
+const KML_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * Every tuple of every <coordinates> must be lon,lat[,alt] numbers in range (OGC KML 2.2 §16.9:
+ * tuples separated by white space, values by commas, no spaces inside a tuple); togeojson drops or
+ * misreads a tuple it cannot parse, which turns a square into a triangle without a word.
+ */
+function coordinatesChecked(fileName: string, doc: Document): void {
+  const placemarks = Array.from(doc.getElementsByTagName('Placemark'));
+  placemarks.forEach((pm, index) => {
+    polygonRingsChecked(fileName, pm, index);
+    for (const el of Array.from(pm.getElementsByTagName('coordinates'))) {
+      const tuples = (el.textContent ?? '').trim().split(/\s+/).filter((t) => t !== '');
+      tuples.forEach((tuple, k) => {
+        const values = tuple.split(',');
+        const numbers = values.map(Number);
+        const ok =
+          (values.length === 2 || values.length === 3) &&
+          values.every((v) => KML_NUMBER.test(v)) &&
+          Math.abs(numbers[0]) <= 180 &&
+          Math.abs(numbers[1]) <= 90;
+        if (ok) return;
+        const shown = tuple.length > 40 ? `${tuple.slice(0, 40)}…` : tuple;
+        throw new InputError(`${fileName}: ${placemarkShown(pm, index)}: coordinate ${k + 1} "${shown}" is not longitude,latitude[,altitude] in WGS84 degrees`);
+      });
+    }
+  });
+}
+
+/** "placemark 3 ("Heath")" for messages. */
+function placemarkShown(pm: Element, index: number): string {
+  const name = pm.getElementsByTagName('name')[0]?.textContent?.trim();
+  return `placemark ${index}${name ? ` ("${name.slice(0, 60)}")` : ''}`;
+}
+
+/**
+ * Each Polygon must have one outer ring first, then holes, each a LinearRing inside
+ * <outerBoundaryIs> or <innerBoundaryIs> (OGC KML 2.2 §10.8), with at least 4 positions once closed:
+ * togeojson takes every LinearRing in document order as outer-then-holes and drops a ring of fewer
+ * positions, so a misplaced or short ring would change the area without a word.
+ */
+function polygonRingsChecked(fileName: string, pm: Element, index: number): void {
+  for (const polygon of Array.from(pm.getElementsByTagName('Polygon'))) {
+    const rings = Array.from(polygon.getElementsByTagName('LinearRing'));
+    rings.forEach((ring, k) => {
+      const holder = (ring.parentNode as Element | null)?.localName;
+      const where = `${fileName}: ${placemarkShown(pm, index)}: ring ${k}`;
+      if (holder !== 'outerBoundaryIs' && holder !== 'innerBoundaryIs') {
+        throw new InputError(`${where} is not inside <outerBoundaryIs> or <innerBoundaryIs> (it is in <${holder ?? '?'}>)`);
+      }
+      if ((holder === 'outerBoundaryIs') !== (k === 0)) {
+        throw new InputError(`${where}: a Polygon needs exactly one outer boundary, before its inner boundaries`);
+      }
+      const text = Array.from(ring.getElementsByTagName('coordinates')).map((c) => c.textContent ?? '').join(' ');
+      const tuples = text.trim().split(/\s+/).filter((t) => t !== '');
+      const closed = tuples.length > 0 && tuples[0] === tuples[tuples.length - 1];
+      const positions = tuples.length + (closed ? 0 : 1);
+      if (tuples.length === 0 || positions < 4) {
+        throw new InputError(`${where} has ${tuples.length} positions; a ring needs at least 3 corners and the closing position`);
+      }
+    });
+  }
+}
+
 function kmlDocument(fileName: string, bytes: Uint8Array): { doc: Document; ours: Row[] | null } {
   const doc = xmlParse(fileName, kmlText(fileName, bytes));
   if (doc.documentElement?.localName !== 'kml') {
     throw new InputError(`${fileName}: not a KML file (the root element is <${doc.documentElement?.nodeName}>, not <kml>)`);
   }
+  coordinatesChecked(fileName, doc);
   return { doc, ours: ourRows(doc) };
 }
 
@@ -99,8 +165,11 @@ function collect(children: (Folder | F)[], path: string, out: Map<string, F[]>, 
       const p = path ? `${path}/${name}` : name;
       const own: F[] = [];
       collect(child.children, p, out, own, order);
-      out.set(p, [...(out.get(p) ?? []), ...own]);
-      all.push(...own);
+      // Loops, not spreads: a folder may hold more placemarks than a call can take arguments.
+      const kept = out.get(p) ?? [];
+      for (const f of own) kept.push(f);
+      out.set(p, kept);
+      for (const f of own) all.push(f);
     } else {
       order.set(child, order.size);
       all.push(child);

@@ -14,6 +14,9 @@ const NORTH_NAMES = ['northing', 'north', 'n', 'utm_n', 'y_m'];
 /** Text that is a plain decimal number (no leading zeros, so ids like "007" stay text). */
 const NUMBER_TEXT = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?$/;
 
+/** A coordinate as a spreadsheet writes it: decimal digits, optional sign, point and exponent (no "0x10", no "Infinity"). */
+const COORDINATE_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
 function find(columns: string[], names: string[]): string | undefined {
   return names.map((n) => columns.find((c) => c.trim().toLowerCase() === n)).find((c) => c !== undefined);
 }
@@ -82,16 +85,18 @@ export async function parsePointCsv(fileName: string, bytes: Uint8Array, options
   }
   crs ??= zoneColumn ? null : crsWgs84();
   const zoneCrs = new Map<number, CrsTransform>();
+  let degreeSized = crs !== null && !crs.isGeographic;
   const features: Feature[] = parsed.data.map((row, i) => {
     const where = `${fileName}: row ${i + 1}`;
     const number = (column: string): number => {
       const raw = (row[column] ?? '').trim();
       const v = Number(raw);
-      if (raw === '' || !Number.isFinite(v)) throw new InputError(`${where}, column "${column}": "${raw}" is not a number`);
+      if (!COORDINATE_TEXT.test(raw) || !Number.isFinite(v)) throw new InputError(`${where}, column "${column}": "${raw.slice(0, 40)}" is not a number`);
       return v;
     };
     const vx = number(x!);
     const vy = number(y!);
+    if (Math.abs(vx) > 180 || Math.abs(vy) > 90) degreeSized = false;
     let rowCrs = crs;
     if (!rowCrs) {
       const code = utmZoneEpsg(row[zoneColumn!] ?? '');
@@ -107,5 +112,10 @@ export async function parsePointCsv(fileName: string, bytes: Uint8Array, options
     for (const c of columns) properties[c] = cellValue(row[c] ?? '');
     return { type: 'Feature', properties, geometry: { type: 'Point', coordinates: [lon, lat] } };
   });
+  if (degreeSized && features.length > 0) {
+    throw new InputError(
+      `${fileName}: columns "${x}"/"${y}" hold degree-sized values (row 1: ${parsed.data[0][x!]}, ${parsed.data[0][y!]}), but the coordinate system given is ${crs!.label}, a projected system in metres; give the coordinate system the file really uses`,
+    );
+  }
   return { type: 'FeatureCollection', features };
 }

@@ -43,6 +43,20 @@ describe('plotsToCsv', () => {
     expect(back.features[0].properties?.caution).toBe(caution);
   });
 
+  // Full-width forms (Unicode FF1D, FF0B, FF0D, FF20) that some spreadsheet programs read as = + - @
+  // (OWASP "CSV Injection" lists the ASCII ones; the full-width twins: common practice, no source).
+  it('neutralises full-width formula characters too, and reads them back unchanged', async () => {
+    const fc = samplePlots();
+    const notes = ['＝SUM(A1:A9)', '＋1 steep', '－2 m drop', '＠crew'];
+    fc.features.slice(0, 4).forEach((f, i) => {
+      (f.properties as unknown as Record<string, unknown>).notes = notes[i];
+    });
+    const parsed = Papa.parse<string[]>(plotsToCsv(fc), { skipEmptyLines: true }).data;
+    expect(parsed.slice(1, 5).map((r) => r[15])).toEqual(notes.map((n) => `'${n}`));
+    const back = await parsePointCsv('plots.csv', enc(plotsToCsv(fc)));
+    expect(back.features.slice(0, 4).map((f) => f.properties?.notes)).toEqual(notes);
+  });
+
   it('adds a UTF-8 byte-order mark only when asked', () => {
     expect(plotsToCsv(samplePlots(), { bom: true }).charCodeAt(0)).toBe(0xfeff);
     expect(plotsToCsv(samplePlots()).charCodeAt(0)).toBe(0x70);

@@ -1,4 +1,5 @@
 import type { FeatureCollection } from 'geojson';
+import { limitShown, limitText, MAX_ID_LENGTH, MAX_NAME_LENGTH } from '../core/inputLimits';
 import { InputError } from '../core/InputError';
 import type { StratumInfo, StratumPart } from '../core/types';
 import { stratumCodeDerive } from './stratumCodeDerive';
@@ -72,14 +73,16 @@ export function strataFromFeatures(
     const p = (f.properties ?? {}) as Record<string, unknown>;
     const key = textProp(p, field);
     if (key === undefined) throw new InputError(`${file}: feature ${i} has no value in the field "${field}"`);
+    limitText(key, MAX_NAME_LENGTH, `${file}: feature ${i}`, `its stratum name (field "${field}")`);
     const label = textProp(p, 'label');
+    if (label !== undefined) limitText(label, MAX_NAME_LENGTH, `${file}: feature ${i}`, 'its label');
     const code = textProp(p, 'code')?.toUpperCase();
     const colourRaw = textProp(p, 'colour', 'color');
     if (colourRaw !== undefined && !COLOUR_RE.test(colourRaw)) {
-      throw new InputError(`${file}: feature ${i}: colour "${colourRaw}" is not a #rrggbb colour`);
+      throw new InputError(`${file}: feature ${i}: colour ${limitShown(colourRaw)} is not a #rrggbb colour`);
     }
     if (code !== undefined && !/^[A-Z0-9]{1,6}$/.test(code)) {
-      throw new InputError(`${file}: feature ${i}: code "${code}" must be 1–6 letters or digits`);
+      throw new InputError(`${file}: feature ${i}: code ${limitShown(code)} must be 1–6 letters or digits`);
     }
     const colour = colourRaw === undefined ? undefined : colourNormalised(colourRaw);
     let g = given.get(key);
@@ -98,7 +101,7 @@ export function strataFromFeatures(
       g[name] = value;
     }
     const rawId = f.id ?? p.id;
-    const id = typeof rawId === 'string' || typeof rawId === 'number' ? String(rawId) : '';
+    const id = typeof rawId === 'string' || typeof rawId === 'number' ? limitText(String(rawId), MAX_ID_LENGTH, `${file}: feature ${i}`, 'its id') : '';
     if (id) idCount.set(id, (idCount.get(id) ?? 0) + 1);
     parts.push({ id, stratum: key, geometry: f.geometry as StratumPart['geometry'], properties: { ...p } });
   });

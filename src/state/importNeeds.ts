@@ -6,7 +6,7 @@ import { listLayers } from '../io/listLayers';
 import { type FeatureFileOptions, parseFeatureFile } from '../io/parseFeatureFile';
 import { shapefileLayers } from '../io/parseShapefileZip';
 import { textDecoderFor } from '../io/textDecoderFor';
-import { zipEntries, zipEntryNoCase } from '../io/zipEntries';
+import { zipEntries, zipEntryNoCase, zipEntryPaths } from '../io/zipEntries';
 
 /** The choices a file still needs from the user before it can be read. */
 export interface ImportNeeds {
@@ -58,10 +58,12 @@ function isDbfUtf8Refused(dbf: Uint8Array, where: string): boolean {
 }
 
 function shapefileNeeds(fileName: string, bytes: Uint8Array, options: FeatureFileOptions, needs: ImportNeeds): void {
-  const entries = zipEntries(fileName, bytes);
-  const layers = shapefileLayers(entries);
+  const layers = shapefileLayers(zipEntryPaths(fileName, bytes));
   const layer = options.layer ?? (layers.length === 1 ? layers[0] : undefined);
   if (layer === undefined || !layers.includes(layer)) return;
+  // Only the small sidecar files say what is missing; the .shp itself is not inflated here.
+  const wanted = ['.prj', '.dbf', '.cpg'].map((ext) => `${layer}${ext}`.toLowerCase());
+  const entries = zipEntries(fileName, bytes, (p) => wanted.includes(p.toLowerCase()));
   const where = `${fileName} (${layer}.shp)`;
   if (options.epsg === undefined) {
     const prj = zipEntryNoCase(entries, `${layer}.prj`);

@@ -1,5 +1,6 @@
 import { booleanPointInPolygon } from '@turf/turf';
 import { DESIGN_SIZING_SCENARIO } from './designSizing.scenario.mjs';
+import { HOSTILE_IMPORT_SCENARIO } from './hostileImport.scenario.mjs';
 import { IMPORT_CHOICE_SCENARIO } from './importChoice.scenario.mjs';
 import { EXPORTS_SCENARIO } from './exports.scenario.mjs';
 import { GUIDANCE_SCENARIO } from './guidance.scenario.mjs';
@@ -310,4 +311,5 @@ export const SCENARIOS = [
   EXPORTS_SCENARIO,
   GUIDANCE_SCENARIO,
   PLOT_CHECK_SCENARIO,
+  HOSTILE_IMPORT_SCENARIO,
 ];

@@ -1,5 +1,6 @@
 import { countNoun } from '../../core/countNoun';
 import { useId, useState } from 'react';
+import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../../core/inputLimits';
 import type { FeatureFileOptions } from '../../io/parseFeatureFile';
 import type { ExclusionMapping } from '../../state/exclusionPropertiesMap';
 import { type ImportPreview, importAccess, importAttempt, importExclusions, importFieldGuess, importStrata } from '../../state/importActions';
@@ -31,13 +32,20 @@ export function ImportBox({ kind: role }: { kind: Role }) {
   const [step, setStep] = useState<Step | null>(null);
   const [field, setField] = useState<string>('');
   const [busy, setBusy] = useState(false);
+  // Why the last file was refused, shown beside this control as well as in the status line.
+  const [problem, setProblem] = useState<string | null>(null);
+  const refuse = (message: string) => {
+    setProblem(message);
+    notify('error', message);
+  };
 
   const add = (action: () => void) => {
     try {
       action();
       setStep(null);
+      setProblem(null);
     } catch (e) {
-      notify('error', (e as Error).message);
+      refuse((e as Error).message);
     }
   };
 
@@ -57,7 +65,7 @@ export function ImportBox({ kind: role }: { kind: Role }) {
       const message = (e as Error).message;
       // A refusal after a choice stays beside the choices, so the user can change them.
       if (round > 0) setStep((s) => (s && s.at === 'choice' ? { ...s, problem: message } : s));
-      else notify('error', message);
+      else refuse(message);
     } finally {
       setBusy(false);
     }
@@ -66,13 +74,37 @@ export function ImportBox({ kind: role }: { kind: Role }) {
   const onFile = async (file: File | undefined) => {
     if (!file) return;
     setStep(null);
-    await read(file.name, new Uint8Array(await file.arrayBuffer()), {}, 0);
+    setProblem(null);
+    if (file.size > MAX_FILE_BYTES) {
+      refuse(limitExceeded(file.name, `the file is ${limitBytes(file.size)}`, `${limitBytes(MAX_FILE_BYTES)} per file`).message);
+      return;
+    }
+    let bytes: Uint8Array;
+    try {
+      bytes = new Uint8Array(await file.arrayBuffer());
+    } catch (e) {
+      refuse(`${file.name}: the file cannot be read (${(e as Error).message})`);
+      return;
+    }
+    await read(file.name, bytes, {}, 0);
   };
 
   const noun = role === 'strata' ? 'strata' : role === 'exclusions' ? 'exclusions' : 'access points';
   return (
-    <div className="import-box">
-      <label htmlFor={inputId} className="file-label">
+    <div className="import-box" data-import-box={role}>
+      <label
+        htmlFor={inputId}
+        className="file-label"
+        onDragOver={(e) => {
+          if (e.dataTransfer.types.includes('Files')) e.preventDefault();
+        }}
+        onDrop={(e) => {
+          const file = e.dataTransfer.files[0];
+          if (!file) return;
+          e.preventDefault();
+          void onFile(file);
+        }}
+      >
         {busy ? 'Reading…' : `Add ${noun} from a file`}
       </label>
       <input
@@ -86,7 +118,12 @@ export function ImportBox({ kind: role }: { kind: Role }) {
           e.currentTarget.value = '';
         }}
       />
-      <p className="fine">GeoJSON, zipped shapefile, KML/KMZ, GPX, GeoPackage or CSV. Files are read here and never leave this computer.</p>
+      <p className="fine">GeoJSON, zipped shapefile, KML/KMZ, GPX, GeoPackage or CSV (choose one, or drop it on the button). Files are read here and never leave this computer.</p>
+      {problem ? (
+        <p className="problem import-problem" role="alert">
+          {problem}
+        </p>
+      ) : null}
       {step?.at === 'choice' ? (
         <ImportChoiceForm
           key={step.round}

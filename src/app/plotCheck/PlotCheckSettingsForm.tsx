@@ -27,7 +27,7 @@ export function PlotCheckSettingsForm() {
       </div>
       <NumberField label="Edge buffer" unit="m" min={0} value={settings.edgeBufferM} onCommit={(v) => plotCheckSettingsSet(plotCheckStore, { edgeBufferM: v ?? 0 })} />
       <div className="field">
-        <label htmlFor={`${id}-date`}>Survey date</label>
+        <label htmlFor={`${id}-date`}>Visit date (for magnetic bearings)</label>
         <input id={`${id}-date`} type="date" value={settings.surveyDate} onChange={(e) => plotCheckSettingsSet(plotCheckStore, { surveyDate: e.currentTarget.value })} />
       </div>
       {loaded ? (

@@ -38,7 +38,8 @@ describe('stratplot estimate', () => {
     expect(Object.keys(j).slice(0, 10)).toEqual(['variable', 'strata', 'mean', 'se', 'ci95', 'df', 'total', 'total_ci95', 'deff', 'kind']);
     expect(Object.keys(j.strata[0])).toEqual(['stratum', 'n', 'mean', 'sd', 'se', 'weight']);
     expect(j.variable).toBe('stems');
-    expect(j.kind).toBe('count');
+    // "stems" holds 1,5, so it is read as a measurement, not a count (counts are whole).
+    expect(j.kind).toBe('measure');
     // By hand: heath 3, 5, 4, 8 → 5; saltmarsh 1.5, 0, 2 → 7/6; W = 5/8, 3/8.
     expect(j.mean).toBeCloseTo(5 * 0.625 + (7 / 6) * 0.375, 12);
     expect(j.strata.map((s: { n: number }) => s.n)).toEqual([4, 3]);
@@ -51,7 +52,7 @@ describe('stratplot estimate', () => {
     const dir = workdir(RESULTS);
     const r = await run(['estimate', 'plots.geojson', 'results.csv', '--value', 'stems'], dir);
     expect(r.code).toBe(0);
-    expect(r.out).toContain('Stratified estimate of stems (count)');
+    expect(r.out).toContain('Stratified estimate of stems (measure)');
     expect(r.out).toContain('Coastal heath');
     expect(r.out).toContain('Estimates cover the usable area');
     // By hand (Cochran 1977 ch. 5, docs/references.md §3): heath 3, 5, 4, 8 → ȳ 5, s² 14/3, n 4, f 0.008;

@@ -10,6 +10,7 @@ import { estimatesToCsv } from '../../io/estimatesToCsv';
 import { parsePlotFile } from '../../io/parsePlotFile';
 import { parseResultsCsv } from '../../io/parseResultsCsv';
 import type { CliIo, Command } from '../command';
+import { optionNumber } from '../optionNumber';
 import { readInputFile } from '../readInput';
 
 const USAGE = `stratplot estimate <plots-file> <results.csv> --value FIELD [options]
@@ -60,7 +61,7 @@ function printTable(r: EstimateReport, io: CliIo): void {
 /** Next season's sizes, or the reason they cannot be given (a stratum without an SD, say). */
 function nextSeason(r: EstimateReport, text: string): NextSeasonSampleSize | string {
   const relative = text.trim().endsWith('%');
-  const value = Number(relative ? text.trim().slice(0, -1) : text);
+  const value = optionNumber(relative ? text.trim().slice(0, -1) : text);
   if (text.trim() === '' || !(value > 0)) throw new InputError(`--next-halfwidth must be a number > 0, optionally with %, got "${text}"`);
   try {
     return nextSeasonSampleSize(

@@ -8,6 +8,7 @@ import { designOutputBytes } from '../../io/designOutput';
 import { parsePlotFile } from '../../io/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsHelp, importFlagsRead } from '../importFlags';
+import { optionNumber } from '../optionNumber';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
 
@@ -149,8 +150,8 @@ export const exportCommand: Command = {
 function positiveNumber(values: Record<string, unknown>, flag: string, scale = 1): number | undefined {
   const text = values[flag];
   if (text === undefined) return undefined;
-  const n = Number(text);
-  if (!(n > 0) || !Number.isFinite(n)) throw new InputError(`--${flag} needs a positive number, got "${text}"`);
+  const n = optionNumber(String(text));
+  if (!(n > 0)) throw new InputError(`--${flag} needs a positive number, got "${text}"`);
   return n * scale;
 }
 

@@ -10,8 +10,9 @@ import { plotCollectionNamed } from '../../core/plotCollectionNamed';
 import { RNG_VERSION_CURRENT, rngSeedFromClock } from '../../core/rng';
 import { rngVersionOf, rngVersionText } from '../../core/rngStreams';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
-import type { CliIo, Command } from '../command';
+import { type CliIo, type Command, CommandStatus, EXIT_SHORT } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOtherFile } from '../importFlags';
+import { optionNumber } from '../optionNumber';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
 
@@ -62,7 +63,12 @@ ${Object.entries(DESIGN_OUTPUT_FORMATS)
   .map(([ext, what]) => `                              .${ext.padEnd(8)} ${what}`)
   .join('\n')}
   --json                    print the design summary as JSON to stdout
+  --allow-short             exit 0 even when fewer plots or reserves fit than were asked for
 Without --out the plot GeoJSON goes to stdout.
+
+Exit status: 0 done; 2 bad input (one line on stderr says what and where); ${EXIT_SHORT} the design was
+made and written but holds fewer plots or reserves than asked for (the shortfall per stratum is in
+the output), unless --allow-short is given.
 
 ${importFlagsHelp('<strata-file>')}
 
@@ -71,8 +77,8 @@ and your employer's safety plan.`;
 
 function numberOption(v: string | undefined, name: string): number | undefined {
   if (v === undefined) return undefined;
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError(`${name} needs a number, got "${v}"`);
+  const x = optionNumber(v);
+  if (Number.isNaN(x)) throw new InputError(`${name} needs a number, got "${v.slice(0, 40)}"`);
   return x;
 }
 
@@ -96,9 +102,9 @@ function keyValues(v: string | undefined, name: string, keys: readonly string[])
     const at = item.lastIndexOf('=');
     if (at <= 0) throw new InputError(`${name}: "${item}" is not KEY=VALUE`);
     const key = item.slice(0, at).trim();
-    const value = Number(item.slice(at + 1));
+    const value = optionNumber(item.slice(at + 1));
     if (!keys.includes(key)) throw new InputError(`${name}: no stratum "${key}"; strata are ${keys.map((k) => `"${k}"`).join(', ')}`);
-    if (!Number.isFinite(value)) throw new InputError(`${name}: the value for "${key}" is not a number`);
+    if (Number.isNaN(value)) throw new InputError(`${name}: the value for "${key}" is not a number`);
     out[key] = value;
   }
   return out;
@@ -229,7 +235,31 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   else io.out(`${geojson}\n`);
   if (o.json && !o.out) io.err('note: with --json and no --out, no plot file was written\n');
   for (const w of named.design.warnings) if (!o.json && !o.out) io.err(`warning: ${w}\n`);
+  const short = shortfall(collection, settings);
+  if (short && !o['allow-short']) {
+    throw new CommandStatus(EXIT_SHORT, `the design is short: ${short}; it was written with the shortfall per stratum in its summary; give --allow-short to accept a short design`);
+  }
   return 0;
+}
+
+/**
+ * What a design lacks against what was asked, in words, or null when it holds everything: the
+ * primaries asked for (random and balanced designs of a given size), the reserves of every stratum,
+ * and the strata where placement gave up.
+ */
+function shortfall(c: PlotCollection, s: DesignSettings): string | null {
+  const rows = c.design.allocation;
+  const placed = rows.reduce((a, r) => a + r.plots, 0);
+  const reserves = rows.reduce((a, r) => a + r.reserve, 0);
+  const wantedReserves = s.reservePerStratum * rows.length;
+  const sized = s.method === 'random' || s.method === 'balanced';
+  const gaveUp = rows.filter((r) => r.capacity !== null).map((r) => `"${r.stratum}" holds ${r.capacity}`);
+  const parts: string[] = [];
+  if (sized && !s.targetHalfwidth && placed < s.plots) parts.push(`${placed} of ${s.plots} plots placed`);
+  else if (sized && s.targetHalfwidth && gaveUp.length > 0 && !s.redistributeShortfall) parts.push(`${placed} plots placed, fewer than the target needs`);
+  if (reserves < wantedReserves) parts.push(`${reserves} of ${wantedReserves} reserves placed`);
+  if (parts.length === 0) return null;
+  return gaveUp.length > 0 ? `${parts.join(', ')} (${gaveUp.join(', ')})` : parts.join(', ');
 }
 
 function parse(argv: string[]) {
@@ -264,6 +294,7 @@ function parse(argv: string[]) {
       'transect-interval': { type: 'string' },
       'quadrat-interval': { type: 'string' },
       redistribute: { type: 'boolean' },
+      'allow-short': { type: 'boolean' },
       seed: { type: 'string' },
       'rng-version': { type: 'string' },
       out: { type: 'string' },

@@ -2,6 +2,7 @@ import { parseArgs } from 'node:util';
 import { InputError } from '../../core/InputError';
 import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/recapture';
 import type { CliIo, Command } from '../command';
+import { optionNumber } from '../optionNumber';
 
 const USAGE = `stratplot recapture --marked M --caught n --recaptured m [area options] [--json]
 
@@ -21,16 +22,17 @@ Options:
 function count(values: Record<string, string | boolean | undefined>, name: string): number {
   const text = values[name];
   if (typeof text !== 'string') throw new InputError(`--${name} is required`);
-  const v = Number(text);
-  if (!/^\s*\d+\s*$/.test(text)) throw new InputError(`--${name} must be a whole number ≥ 0, got "${text}"`);
+  const v = optionNumber(text);
+  // Beyond 2⁵³ a count is no longer a whole number in floating point, so it would be rounded silently.
+  if (!/^\s*\d+\s*$/.test(text) || !Number.isSafeInteger(v)) throw new InputError(`--${name} must be a whole number ≥ 0, got "${text.slice(0, 40)}"`);
   return v;
 }
 
 function positive(values: Record<string, string | boolean | undefined>, name: string): number {
   const text = values[name];
   if (typeof text !== 'string') throw new InputError(`--${name} is required with this grid`);
-  const v = Number(text);
-  if (text.trim() === '' || !Number.isFinite(v)) throw new InputError(`--${name} must be a number, got "${text}"`);
+  const v = optionNumber(text);
+  if (Number.isNaN(v)) throw new InputError(`--${name} must be a number, got "${text.slice(0, 40)}"`);
   return v;
 }
 

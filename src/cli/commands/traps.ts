@@ -7,6 +7,7 @@ import { type TrapGridLayout, trapGridsPlace } from '../../core/trapGridsPlace';
 import { designOutputBytes } from '../../io/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
+import { optionNumber } from '../optionNumber';
 import { siteFromInputs } from '../siteFromInputs';
 
 const USAGE = `stratplot traps <strata-file> --grids G --rows R --cols C --spacing S --separation D [options]
@@ -35,8 +36,8 @@ function num(v: string | undefined, name: string, fallback?: number): number {
     if (fallback === undefined) throw new InputError(`${name} is required (see stratplot traps --help)`);
     return fallback;
   }
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new InputError(`${name} needs a number, got "${v}"`);
+  const x = optionNumber(v);
+  if (Number.isNaN(x)) throw new InputError(`${name} needs a number, got "${v.slice(0, 40)}"`);
   return x;
 }
 
