@@ -1,7 +1,7 @@
 import Flatbush from 'flatbush';
 import { areaGeometryPlanar, type PolygonsLonLat } from './areaGeometryPlanar';
 import { strataOverlapCandidates } from './strataOverlapCandidates';
-import { partBox, strataPairOverlap } from './strataOverlapsByClipping';
+import { boxesMayOverlap, partBox, strataPairOverlap } from './strataOverlapsByClipping';
 import type { Problem, StratumPart } from './types';
 
 export { MIN_OVERLAP_M2 } from './strataOverlapsByClipping';
@@ -20,11 +20,28 @@ export { MIN_OVERLAP_M2 } from './strataOverlapsByClipping';
 export function strataOverlaps(parts: readonly StratumPart[], indices?: readonly number[]): Problem[] {
   if (parts.length < 2) return [];
   const boxes = parts.map(partBox);
-  const candidates = strataOverlapCandidates(parts, boxes);
-  if (candidates.size === 0) return [];
   const index = new Flatbush(parts.length);
   for (const b of boxes) index.add(b[0], b[1], b[2], b[3]);
   index.finish();
+  // Only parts whose box meets another part's box go through the screen (separate strata cost nothing).
+  const near = new Uint8Array(parts.length);
+  for (let i = 0; i < parts.length; i++) {
+    const b = boxes[i];
+    for (const j of index.search(b[0], b[1], b[2], b[3])) {
+      if (j === i || !boxesMayOverlap(b, boxes[j])) continue;
+      near[i] = 1;
+      near[j] = 1;
+    }
+  }
+  const screened = parts.map((_, i) => i).filter((i) => near[i]);
+  if (screened.length < 2) return [];
+  const found = strataOverlapCandidates(
+    screened.map((i) => parts[i]),
+    screened.map((i) => boxes[i]),
+  );
+  if (found.size === 0) return [];
+  const candidates = new Set<number>();
+  for (const k of found) candidates.add(screened[Math.floor(k / screened.length)] * parts.length + screened[k % screened.length]);
   const planar: (PolygonsLonLat | undefined)[] = [];
   const planarOf = (i: number) => (planar[i] ??= areaGeometryPlanar(parts[i].geometry));
   const problems: Problem[] = [];

@@ -26,6 +26,17 @@ export function partBox(part: StratumPart): [number, number, number, number] {
 }
 
 /**
+ * Whether two lon/lat boxes have a common part that could hold {@link MIN_OVERLAP_M2}: boxes that
+ * only touch (shared edges, the usual case for neighbouring strata) cannot. The common box's area
+ * is bounded generously (1.2 × 111.32 km per degree both ways).
+ */
+export function boxesMayOverlap(b: readonly number[], c: readonly number[]): boolean {
+  const w = Math.min(b[2], c[2]) - Math.max(b[0], c[0]);
+  const h = Math.min(b[3], c[3]) - Math.max(b[1], c[1]);
+  return w > 0 && h > 0 && w * h * BOX_M2_PER_DEG2 >= MIN_OVERLAP_M2;
+}
+
+/**
  * The overlap problem of parts `i` and `j` (the same message, area and position strataOverlaps
  * reports), or null when their boxes' common part cannot hold {@link MIN_OVERLAP_M2} or polyclip-ts
  * finds less than that in common. `planarOf` gives a part's rings as plane lon/lat (cached by the caller).
@@ -38,13 +49,7 @@ export function strataPairOverlap(
   j: number,
   indices?: readonly number[],
 ): Problem | null {
-  // Boxes that only touch (shared edges, the usual case for neighbouring strata) cannot overlap by
-  // MIN_OVERLAP_M2: bound the common box's area generously (1.2 × 111.32 km per degree both ways).
-  const b = boxes[i];
-  const c = boxes[j];
-  const w = Math.min(b[2], c[2]) - Math.max(b[0], c[0]);
-  const h = Math.min(b[3], c[3]) - Math.max(b[1], c[1]);
-  if (w <= 0 || h <= 0 || w * h * BOX_M2_PER_DEG2 < MIN_OVERLAP_M2) return null;
+  if (!boxesMayOverlap(boxes[i], boxes[j])) return null;
   const common = polyclip.intersection(planarOf(i), planarOf(j)) as PolygonsLonLat;
   if (common.length === 0) return null;
   const pieces = planarPieces(common);
