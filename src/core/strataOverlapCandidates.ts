@@ -52,10 +52,11 @@ function segmentsOf(parts: readonly StratumPart[]): Segments {
           const [x1, y1] = flip ? ring[ring.length - 1 - k] : ring[k];
           const [x2, y2] = flip ? ring[ring.length - 2 - k] : ring[k + 1];
           if (x1 === x2 && y1 === y2) continue;
-          s.ax[n] = x1;
-          s.ay[n] = y1;
-          s.bx[n] = x2;
-          s.by[n] = y2;
+          // + 0 turns −0 into 0, so equal coordinates also have equal bits for the hashes.
+          s.ax[n] = x1 + 0;
+          s.ay[n] = y1 + 0;
+          s.bx[n] = x2 + 0;
+          s.by[n] = y2 + 0;
           s.part[n] = p;
           s.ring[n] = ringId;
           n++;

@@ -9,7 +9,7 @@ import type { StratumPart } from './types';
 
 // The reference is strataOverlapsByClipping: polyclip-ts 0.16.8 (an outside, general-purpose exact
 // clipper) intersecting every pair of features whose boxes overlap, the method strataOverlaps used
-// before its screen. The screen must change nothing: the same problems, in the same order.
+// before its screen (docs/references.md §10). The screen must change nothing: the same problems, in the same order.
 
 const CELL_M = 100;
 const LAT0 = -34.6;
@@ -152,6 +152,14 @@ describe('strataOverlaps', () => {
     expect(strataOverlapsByClipping(parts)).toEqual([]);
     expect(strataOverlapCandidates(parts, parts.map(partBox)).size).toBe(0);
     expect(strataOverlaps(parts)).toEqual([]);
+  });
+
+  it('treats −0 and 0 as the same coordinate on an edge two strata share at the prime meridian', () => {
+    const west: StratumPart = { id: 'w', stratum: 'West', geometry: { type: 'Polygon', coordinates: [[[-0.001, 0.5], [-0, 0.5], [-0, 0.501], [-0.001, 0.501], [-0.001, 0.5]]] } };
+    const east: StratumPart = { id: 'e', stratum: 'East', geometry: { type: 'Polygon', coordinates: [[[0, 0.5], [0.001, 0.5], [0.001, 0.501], [0, 0.501], [0, 0.5]]] } };
+    const parts = [west, east];
+    expect(strataOverlapCandidates(parts, parts.map(partBox)).size).toBe(0);
+    expect(strataOverlaps(parts)).toEqual(strataOverlapsByClipping(parts));
   });
 
   it('reports every cell a thin strip crosses, as the clipper does', () => {
