@@ -1,4 +1,4 @@
-import { isInputError } from '../core/InputError';
+import { isInputError } from '../core/common/InputError';
 import { type CliIo, type Command, CommandStatus } from './command';
 import { COMMANDS } from './commands';
 

@@ -1,8 +1,8 @@
-import { countNoun } from '../core/countNoun';
-import type { PlanFile, PlanFileDocument } from '../core/designTypes';
-import { plotRejections } from '../core/plotFieldState';
-import { InputError } from '../core/InputError';
-import { sha256Hex } from '../core/sha256';
+import { countNoun } from '../core/common/countNoun';
+import type { PlanFile, PlanFileDocument } from '../core/model/designTypes';
+import { plotRejections } from '../core/field/plotFieldState';
+import { InputError } from '../core/common/InputError';
+import { sha256Hex } from '../core/common/sha256';
 import { planFileParse } from './planFile';
 
 /** The key-value calls the kept versions need (idb-keyval's get/set/del in the browser). */

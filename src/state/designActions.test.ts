@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { designRun } from '../core/designRun';
-import { designSettingsDefault } from '../core/designSettingsDefault';
+import { designRun } from '../core/design/designRun';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
 import { designResultSet, designSettingsSet } from './designActions';
 import { historyUndo } from './historyActions';
 import { plannerStoreCreate } from './plannerStore';
-import { plotRejections } from '../core/plotFieldState';
+import { plotRejections } from '../core/field/plotFieldState';
 import { plotReject } from './plotReject';
 import { plotRestore } from './plotRestore';
 import { stratumPartAdd } from './strataActions';

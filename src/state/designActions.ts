@@ -1,5 +1,5 @@
-import type { DesignSettings, PlotCollection } from '../core/designTypes';
-import { InputError } from '../core/InputError';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import { InputError } from '../core/common/InputError';
 import type { PlannerStore } from './plannerStore';
 
 /** Changes design settings (not part of the undo history: undo steps through map edits only). */

@@ -1,7 +1,7 @@
-import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/designTypes';
-import { InputError } from '../core/InputError';
-import { plotCollectionById, plotCollectionNamed } from '../core/plotCollectionNamed';
-import type { Site, StratumInfo, StratumPart } from '../core/types';
+import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/model/designTypes';
+import { InputError } from '../core/common/InputError';
+import { plotCollectionById, plotCollectionNamed } from '../core/field/plotCollectionNamed';
+import type { Site, StratumInfo, StratumPart } from '../core/model/types';
 import { planFileMigrateV1 } from './planFileMigrate';
 import type { PlannerState, PlannerStore } from './plannerStore';
 import { plannerPlotsNamed } from './plotsNamed';

@@ -1,4 +1,4 @@
-import type { DesignSettings, PlanFile } from '../core/designTypes';
+import type { DesignSettings, PlanFile } from '../core/model/designTypes';
 import { planFileApply } from './planFile';
 import type { PlannerState, PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';

@@ -1,7 +1,7 @@
 import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection, ResultsSnapshot } from '../core/designTypes';
-import type { Site } from '../core/types';
+import type { DesignSettings, PlotCollection, ResultsSnapshot } from '../core/model/designTypes';
+import type { Site } from '../core/model/types';
 import type { SiteAnalysis } from '../worker/siteAnalyse';
 
 /** Which kind of thing a drawing tool makes. */

@@ -1,12 +1,12 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { Footprint } from '../core/designTypes';
-import { footprintFormat, footprintParse } from '../core/footprintParse';
-import { InputError, isInputError } from '../core/InputError';
-import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheckTypes';
-import { plotsCheck } from '../core/plotsCheck';
-import type { Site } from '../core/types';
-import type { FeatureFileOptions } from '../io/parseFeatureFile';
-import { plotsFromFeatures } from '../io/plotsFromFeatures';
+import type { Footprint } from '../core/model/designTypes';
+import { footprintFormat, footprintParse } from '../core/design/footprintParse';
+import { InputError, isInputError } from '../core/common/InputError';
+import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheck/plotCheckTypes';
+import { plotsCheck } from '../core/plotCheck/plotsCheck';
+import type { Site } from '../core/model/types';
+import type { FeatureFileOptions } from '../io/site/parseFeatureFile';
+import { plotsFromFeatures } from '../io/plots/plotsFromFeatures';
 import { importAttempt } from './importActions';
 import type { ImportNeeds } from './importNeeds';
 

@@ -1,6 +1,6 @@
-import { RESULTS_REPLACED_BY_COLUMN, RESULTS_STATUS_COLUMN, type ResultsTable } from '../core/resultsCheck';
-import type { PlotCollection } from '../core/designTypes';
-import type { Problem } from '../core/types';
+import { RESULTS_REPLACED_BY_COLUMN, RESULTS_STATUS_COLUMN, type ResultsTable } from '../core/results/resultsCheck';
+import type { PlotCollection } from '../core/model/designTypes';
+import type { Problem } from '../core/model/types';
 import type { ResultsMapping } from './resultsStore';
 
 /** The column holding the most ids of the plot file (ties: plot_id, then the leftmost). */

@@ -1,12 +1,12 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core/designTypes';
-import { type EstimateReport, estimateFromResults } from '../core/estimateFromResults';
-import { isInputError } from '../core/InputError';
-import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/nextSeasonSampleSize';
-import { type ResultKind, resultsKindGuess } from '../core/resultsCellParse';
-import { type ResultsTable, resultsReview } from '../core/resultsCheck';
-import type { Problem } from '../core/types';
-import { parseResultsCsv } from '../io/parseResultsCsv';
+import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core/model/designTypes';
+import { type EstimateReport, estimateFromResults } from '../core/results/estimateFromResults';
+import { isInputError } from '../core/common/InputError';
+import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/results/nextSeasonSampleSize';
+import { type ResultKind, resultsKindGuess } from '../core/results/resultsCellParse';
+import { type ResultsTable, resultsReview } from '../core/results/resultsCheck';
+import type { Problem } from '../core/model/types';
+import { parseResultsCsv } from '../io/results/parseResultsCsv';
 import { headerNames, idColumnGuess, problemsInUserNames, tableForCore } from './resultsColumnMapping';
 
 /** Which results columns mean what; every other column is a variable of the given kind. */

@@ -1,9 +1,9 @@
-import { InputError } from '../core/InputError';
-import type { AreaGeometry, Site, StratumInfo } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import type { AreaGeometry, Site, StratumInfo } from '../core/model/types';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
-import { STRATUM_PALETTE } from '../io/strataFromFeatures';
-import { stratumCodeDerive } from '../io/stratumCodeDerive';
+import { STRATUM_PALETTE } from '../io/site/strataFromFeatures';
+import { stratumCodeDerive } from '../io/site/stratumCodeDerive';
 
 const COLOUR = /^#[0-9a-fA-F]{6}$/;
 

@@ -1,7 +1,7 @@
 import type { MultiPolygon, Polygon } from 'geojson';
 import * as polyclip from 'polyclip-ts';
-import { InputError } from '../core/InputError';
-import type { AreaGeometry } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import type { AreaGeometry } from '../core/model/types';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit } from './siteCommit';
 import { stratumPartAdd } from './strataActions';

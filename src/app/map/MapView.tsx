@@ -1,7 +1,7 @@
 import { Map as MapLibreMap, NavigationControl, Popup, ScaleControl, setWorkerUrl } from 'maplibre-gl';
 import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
 import { useEffect, useRef } from 'react';
-import { plotFieldStates } from '../../core/plotFieldState';
+import { plotFieldStates } from '../../core/field/plotFieldState';
 import type { PlannerState } from '../../state/plannerStore';
 import { DEMO_SITE_NAME } from '../demoSite';
 import { DEMO_IMAGE_NAME, imageryLoadDemo } from '../imageryLoad';

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { AllocationMethod, PlacementMethod } from '../../core/designTypes';
+import type { AllocationMethod, PlacementMethod } from '../../core/model/designTypes';
 import { designSeedFresh, designSettingsSet } from '../../state/designActions';
 import { designJobCancel, designJobStart } from '../designJob';
 import { plannerStore } from '../plannerStoreInstance';

@@ -1,7 +1,7 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { Fragment, useMemo, useState } from 'react';
-import type { PlotProperties } from '../../core/designTypes';
-import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/plotFieldState';
+import type { PlotProperties } from '../../core/model/designTypes';
+import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/field/plotFieldState';
 import { plotRestore } from '../../state/plotRestore';
 import { PlotCheckBox } from '../plotCheck/PlotCheckBox';
 import { PlotSymbolKey } from '../map/PlotSymbolKey';

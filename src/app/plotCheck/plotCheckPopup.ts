@@ -1,6 +1,6 @@
-import type { PlotCheckRecord } from '../../core/plotCheckTypes';
-import { EXCLUSION_KIND_LABELS } from '../../core/exclusionKindNotes';
-import { EXCLUSION_KINDS } from '../../core/types';
+import type { PlotCheckRecord } from '../../core/plotCheck/plotCheckTypes';
+import { EXCLUSION_KIND_LABELS } from '../../core/site/exclusionKindNotes';
+import { EXCLUSION_KINDS } from '../../core/model/types';
 import { el } from '../dom';
 
 function row(term: string, value: string): [HTMLElement, HTMLElement] {

@@ -1,11 +1,11 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotRejections } from '../../core/plotFieldState';
-import type { Site } from '../../core/types';
-import { designOutputBytes } from '../../io/designOutput';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotRejections } from '../../core/field/plotFieldState';
+import type { Site } from '../../core/model/types';
+import { designOutputBytes } from '../../io/plots/designOutput';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { optionNumber } from '../optionNumber';

@@ -1,6 +1,6 @@
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/recapture';
+import { InputError } from '../../core/common/InputError';
+import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/results/recapture';
 import type { CliIo, Command } from '../command';
 import { optionNumber } from '../optionNumber';
 

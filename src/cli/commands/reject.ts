@@ -1,9 +1,9 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotsRejectAndPromote } from '../../core/plotsRejectAndPromote';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotsRejectAndPromote } from '../../core/field/plotsRejectAndPromote';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { readInputFile } from '../readInput';
 

@@ -1,7 +1,7 @@
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotsRestore } from '../../core/plotsRestore';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotsRestore } from '../../core/field/plotsRestore';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { readInputFile } from '../readInput';
 import { plotFileWrite } from './reject';

@@ -1,10 +1,10 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { rngSeedFromClock } from '../../core/rng';
-import { type TrapGridLayout, trapGridsPlace } from '../../core/trapGridsPlace';
-import { designOutputBytes } from '../../io/designOutput';
+import { InputError } from '../../core/common/InputError';
+import { rngSeedFromClock } from '../../core/design/place/rng';
+import { type TrapGridLayout, trapGridsPlace } from '../../core/design/place/trapGridsPlace';
+import { designOutputBytes } from '../../io/plots/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { optionNumber } from '../optionNumber';

@@ -1,0 +1,59 @@
+import proj4 from 'proj4';
+import type { LonLat, XY } from '../model/types';
+
+/** A site's local metric frame: one UTM zone on WGS84, with its forward and inverse transforms. */
+export interface LocalFrame {
+  /** Zone number 1–60. */
+  zone: number;
+  hemisphere: 'N' | 'S';
+  /** Zone and hemisphere letter, e.g. "55S" (not the MGRS latitude band). */
+  utmZone: string;
+  /** EPSG code of the zone, e.g. 32755. */
+  epsg: number;
+  /** proj4 definition string of the zone. */
+  proj4: string;
+  toXY(lon: number, lat: number): XY;
+  toLonLat(x: number, y: number): LonLat;
+}
+
+/**
+ * UTM zone number of a WGS84 position, with the Norway (32V) and Svalbard (31X–37X) exceptions.
+ * Source: NGA.SIG.0012 (UTM/UPS grid definition), zone layout of the UTM system.
+ */
+export function utmZoneNumber(lon: number, lat: number): number {
+  const l = ((((lon + 180) % 360) + 360) % 360) - 180;
+  let zone = Math.floor((l + 180) / 6) + 1;
+  if (zone > 60) zone = 60;
+  if (lat >= 56 && lat < 64 && l >= 3 && l < 12) zone = 32;
+  if (lat >= 72 && lat < 84) {
+    if (l >= 0 && l < 9) zone = 31;
+    else if (l >= 9 && l < 21) zone = 33;
+    else if (l >= 21 && l < 33) zone = 35;
+    else if (l >= 33 && l < 42) zone = 37;
+  }
+  return zone;
+}
+
+/**
+ * The UTM frame for a position (use the site centroid): zone by {@link utmZoneNumber}, southern
+ * hemisphere for lat < 0. Transforms go through proj4 (Krüger series, sub-millimetre in the zone).
+ * Throws a RangeError outside UTM's latitude range (80°S–84°N).
+ */
+export function localFrameAt(lon: number, lat: number): LocalFrame {
+  if (!(lat >= -80 && lat <= 84) || !Number.isFinite(lon)) {
+    throw new RangeError(`position ${lon}, ${lat} is outside the UTM latitude range (80°S to 84°N)`);
+  }
+  const zone = utmZoneNumber(lon, lat);
+  const hemisphere = lat < 0 ? 'S' : 'N';
+  const def = `+proj=utm +zone=${zone}${hemisphere === 'S' ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`;
+  const converter = proj4('EPSG:4326', def);
+  return {
+    zone,
+    hemisphere,
+    utmZone: `${zone}${hemisphere}`,
+    epsg: (hemisphere === 'N' ? 32600 : 32700) + zone,
+    proj4: def,
+    toXY: (lonDeg, latDeg) => converter.forward([lonDeg, latDeg]) as unknown as XY,
+    toLonLat: (x, y) => converter.inverse([x, y]),
+  };
+}
