@@ -1,4 +1,4 @@
-import type { StratumAreaTable } from '../core/site/stratumAreaTable';
+import type { StratumAreaTable } from '../core/design/stratumAreaTable';
 import type { Site } from '../core/model/types';
 import { usePlanner } from './usePlanner';
 

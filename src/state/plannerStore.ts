@@ -2,7 +2,7 @@ import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import type { DesignSettings, PlotCollection, ResultsSnapshot } from '../core/model/designTypes';
 import type { Site } from '../core/model/types';
-import type { SiteAnalysis } from '../worker/siteAnalyse';
+import type { SiteAnalysis } from '../core/design/siteAnalyse';
 
 /** Which kind of thing a drawing tool makes. */
 export type DrawTool = 'none' | 'stratum' | 'stratum-beside' | 'hole' | 'cliff' | 'creek' | 'water' | 'private' | 'hazard' | 'access' | 'baseline' | 'edit';

@@ -1,6 +1,6 @@
 import type { PlotCollection, RecaptureGridSaved, ResultsSnapshot } from '../core/model/designTypes';
 import { InputError } from '../core/common/InputError';
-import { RESULT_KINDS, type ResultKind } from '../core/results/resultsCellParse';
+import { RESULT_KINDS, type ResultKind } from '../core/model/designTypes';
 import { type ResultsState, type ResultsStore, recaptureGridBlank, resultsClear, resultsLoad, resultsMappingSet, resultsOptionsSet } from './resultsStore';
 
 /** The fields of the results store a snapshot carries; a change to any of them is work to keep. */

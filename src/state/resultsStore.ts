@@ -3,19 +3,15 @@ import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core
 import { type EstimateReport, estimateFromResults } from '../core/results/estimateFromResults';
 import { isInputError } from '../core/common/InputError';
 import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/results/nextSeasonSampleSize';
-import { type ResultKind, resultsKindGuess } from '../core/results/resultsCellParse';
+import { resultsKindGuess } from '../core/results/resultsCellParse';
+import { type ResultKind } from '../core/model/designTypes';
 import { type ResultsTable, resultsReview } from '../core/results/resultsCheck';
 import type { Problem } from '../core/model/types';
 import { parseResultsCsv } from '../io/results/parseResultsCsv';
-import { headerNames, idColumnGuess, problemsInUserNames, tableForCore } from './resultsColumnMapping';
+import { headerNames, idColumnGuess, problemsInUserNames, type ResultsMapping, tableForCore } from './resultsColumnMapping';
 
-/** Which results columns mean what; every other column is a variable of the given kind. */
-export interface ResultsMapping {
-  idColumn: string;
-  statusColumn: string | null;
-  replacedByColumn: string | null;
-  kinds: Record<string, ResultKind>;
-}
+export type { ResultsMapping };
+
 
 /** A recapture grid as typed in the form: the same record the plan file keeps. */
 export type RecaptureGridForm = RecaptureGridSaved;

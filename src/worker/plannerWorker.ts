@@ -9,7 +9,7 @@ import type { Site } from '../core/model/types';
 import { type GeotiffImageOptions, geotiffImageWarp } from '../io/formats/raster/geotiffImage';
 import type { RgbaRaster } from '../io/formats/raster/rasterWarpToMercator';
 import { type WorldFileCrs, worldFileImageWarp } from '../io/formats/raster/worldFileImage';
-import { siteAnalyse } from './siteAnalyse';
+import { siteAnalyse } from '../core/design/siteAnalyse';
 
 /** A design's outcome as it crosses to the page: the plots, or a message for the user. */
 export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: false; message: string };

@@ -21,10 +21,10 @@ export async function plotCheckReportDownload(kind: 'pdf' | 'csv'): Promise<void
   try {
     const base = `${fileSafeName(s.name, 'site')}-plot-check`;
     if (kind === 'csv') {
-      const { plotCheckReportCsv } = await import('../../io/plots/plotCheckReportCsv');
+      const { plotCheckReportCsv } = await import('../../io/plotCheck/plotCheckReportCsv');
       downloadFile(`${base}.csv`, plotCheckReportCsv(report, meta), 'text/csv');
     } else {
-      const { plotCheckReportPdf } = await import('../../io/pdf/plotCheckReportPdf');
+      const { plotCheckReportPdf } = await import('../../io/plotCheck/plotCheckReportPdf');
       downloadFile(`${base}.pdf`, plotCheckReportPdf(report, s, meta, { paper: 'a4', design: showDesign ? result : null }), 'application/pdf');
     }
     notify('info', `${base}.${kind} written to your downloads.`);

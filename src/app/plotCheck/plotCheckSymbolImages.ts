@@ -1,5 +1,5 @@
 import type { PlotCheckSymbolKey } from '../../core/plotCheck/plotCheckSymbols';
-import { plotCheckIconPng } from '../../io/pdf/plotIcons';
+import { plotCheckIconPng } from '../../io/common/plotIcons';
 
 const urls = new Map<PlotCheckSymbolKey, string>();
 

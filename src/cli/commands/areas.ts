@@ -1,6 +1,6 @@
 import { parseArgs } from 'node:util';
 import { InputError } from '../../core/common/InputError';
-import { type StratumAreaTable, stratumAreaTable } from '../../core/site/stratumAreaTable';
+import { type StratumAreaTable, stratumAreaTable } from '../../core/design/stratumAreaTable';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { siteFromInputs } from '../siteFromInputs';

@@ -11,8 +11,8 @@ import { PLOT_CHECK_SLACK_M, type PlotCheckRecord, type PlotsCheckReport } from 
 import { plotCheckRecordsBySeverity, plotsCheck } from '../../core/plotCheck/plotsCheck';
 import { EXCLUSION_KINDS } from '../../core/model/types';
 import { parseFeatureFile } from '../../io/site/parseFeatureFile';
-import { type PlotCheckReportMeta, plotCheckReportCsv } from '../../io/plots/plotCheckReportCsv';
-import { plotCheckReportPdf } from '../../io/pdf/plotCheckReportPdf';
+import { type PlotCheckReportMeta, plotCheckReportCsv } from '../../io/plotCheck/plotCheckReportCsv';
+import { plotCheckReportPdf } from '../../io/plotCheck/plotCheckReportPdf';
 import { plotsFromFeatures } from '../../io/plots/plotsFromFeatures';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsRead, importOptionsFor } from '../importFlags';

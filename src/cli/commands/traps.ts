@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { InputError } from '../../core/common/InputError';
 import { rngSeedFromClock } from '../../core/design/place/rng';
-import { type TrapGridLayout, trapGridsPlace } from '../../core/design/place/trapGridsPlace';
+import { type TrapGridLayout, trapGridsPlace } from '../../core/design/trapGridsPlace';
 import { designOutputBytes } from '../../io/plots/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';

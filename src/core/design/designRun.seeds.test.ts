@@ -5,7 +5,7 @@ import { jStat } from 'jstat';
 import { describe, expect, it } from 'vitest';
 import { designRun } from './designRun';
 import { designSettingsDefault } from './designSettingsDefault';
-import type { RngVersion } from './place/rng';
+import type { RngVersion } from '../model/designTypes';
 import type { Site } from '../model/types';
 import strataText from '../../../demo-maps/ochre-spit-strata.geojson?raw';
 

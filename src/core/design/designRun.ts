@@ -9,9 +9,9 @@ import type { AllocationRow, DesignSettings, PlotCollection } from '../model/des
 import { InputError } from '../common/InputError';
 import { placementConstraintsBuild } from './place/placementConstraints';
 import { plotIdsFor } from './place/plotIds';
-import { plotRecord } from '../field/plotRecord';
+import { plotRecord } from './plotRecord';
 import { rngStreams, rngVersionOf, rngVersionText } from './place/rngStreams';
-import { plotsInStrataCheck } from '../plotCheck/plotsInStrataCheck';
+import { plotsInStrataCheck } from './plotsInStrataCheck';
 import { siteLocalFrame } from '../geo/siteLocalFrame';
 import type { Site } from '../model/types';
 

@@ -40,7 +40,7 @@ describe('designUsableAreas on many seeded sites', () => {
 
 describe('usableAreaByGrid', () => {
   it('counts the same usable area as exact clipping, within its stated error', async () => {
-    const { usableAreaByGrid } = await import('../site/usableAreaByGrid');
+    const { usableAreaByGrid } = await import('./usableAreaByGrid');
     const site = siteInventedRandom(4, 2, 6);
     const frame = siteLocalFrame(site.parts);
     const one = { ...site, parts: [site.parts[2]], strata: [site.strata[1]] };

@@ -3,7 +3,7 @@ import { exclusionBufferPartsXY } from '../geometry/exclusionBufferPartsXY';
 import type { LocalFrame } from '../geo/localFrame';
 import { polygonAreaM2 } from '../geo/polygonAreaM2';
 import { type PolygonsLonLat, polygonCoveredAreaM2 } from '../geometry/polygonCoveredAreaM2';
-import { usableAreaByGrid } from '../site/usableAreaByGrid';
+import { usableAreaByGrid } from './usableAreaByGrid';
 import type { ExclusionGeometry, LonLat, Site } from '../model/types';
 
 type Box = [number, number, number, number];

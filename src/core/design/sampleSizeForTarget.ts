@@ -3,8 +3,8 @@ import { allocateWithMinimum } from './allocate/allocateWithMinimum';
 import { neymanWeights } from './allocate/allocateNeyman';
 import type { AllocationStratum } from './allocate/allocateProportional';
 import { InputError } from '../common/InputError';
-import { satterthwaiteDf } from '../results/satterthwaiteDf';
-import { tQuantile95 } from '../results/tQuantile';
+import { satterthwaiteDf } from '../stats/satterthwaiteDf';
+import { tQuantile95 } from '../stats/tQuantile';
 
 /** z for a two-sided 95 % interval (standard normal 0.975 quantile; docs/references.md §7, t at ∞ df). */
 export const Z_95 = 1.959963984540054;

@@ -1,8 +1,8 @@
-import geodesic from 'geographiclib-geodesic';
+import { GEODESIC_MASK, WGS84_GEODESIC } from './geodesic';
 
-const WGS84 = geodesic.Geodesic.WGS84;
+const WGS84 = WGS84_GEODESIC;
 // Distance and both azimuths; no reduced length or area needed here.
-const MASK = geodesic.Geodesic.DISTANCE | geodesic.Geodesic.AZIMUTH;
+const MASK = GEODESIC_MASK.distance | GEODESIC_MASK.azimuth;
 
 /** Geodesic distance and true bearings between two WGS84 points. */
 export interface BearingDistance {
@@ -59,5 +59,5 @@ export function bearingDistanceUnchecked(lon1: number, lat1: number, lon2: numbe
 /** Geodesic distance in metres between two WGS84 points (see {@link bearingDistance}). */
 export function geodesicDistanceM(lon1: number, lat1: number, lon2: number, lat2: number): number {
   if (lon1 === lon2 && lat1 === lat2) return 0;
-  return WGS84.Inverse(lat1, lon1, lat2, lon2, geodesic.Geodesic.DISTANCE).s12 ?? 0;
+  return WGS84.Inverse(lat1, lon1, lat2, lon2, GEODESIC_MASK.distance).s12 ?? 0;
 }

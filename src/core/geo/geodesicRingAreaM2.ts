@@ -1,8 +1,8 @@
-import geodesic from 'geographiclib-geodesic';
+import { WGS84_GEODESIC } from './geodesic';
 import { ringAreaAuthalicM2 } from './ringAreaAuthalicM2';
 import type { LonLat } from '../model/types';
 
-const WGS84 = geodesic.Geodesic.WGS84;
+const WGS84 = WGS84_GEODESIC;
 
 /**
  * Signed area of one ring on the WGS84 ellipsoid, in m², edges taken as geodesics.

@@ -1,4 +1,4 @@
-import proj4 from 'proj4';
+import { projectionFrom } from './projection';
 import type { LonLat, XY } from '../model/types';
 
 /** A site's local metric frame: one UTM zone on WGS84, with its forward and inverse transforms. */
@@ -46,14 +46,14 @@ export function localFrameAt(lon: number, lat: number): LocalFrame {
   const zone = utmZoneNumber(lon, lat);
   const hemisphere = lat < 0 ? 'S' : 'N';
   const def = `+proj=utm +zone=${zone}${hemisphere === 'S' ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`;
-  const converter = proj4('EPSG:4326', def);
+  const projection = projectionFrom(def);
   return {
     zone,
     hemisphere,
     utmZone: `${zone}${hemisphere}`,
     epsg: (hemisphere === 'N' ? 32600 : 32700) + zone,
     proj4: def,
-    toXY: (lonDeg, latDeg) => converter.forward([lonDeg, latDeg]) as unknown as XY,
-    toLonLat: (x, y) => converter.inverse([x, y]),
+    toXY: (lonDeg, latDeg) => projection.forward(lonDeg, latDeg) as unknown as XY,
+    toLonLat: (x, y) => projection.inverse(x, y),
   };
 }

@@ -1,5 +1,5 @@
 import type { Position } from 'geojson';
-import * as polyclip from 'polyclip-ts';
+import { polygonsUnion } from './polygonClip';
 import { bufferCircleRing } from './bufferShapesXY';
 import type { LocalFrame } from '../geo/localFrame';
 import { planarBuffer } from './planarBuffer';
@@ -61,7 +61,7 @@ export function exclusionBufferXY(exclusion: Exclusion, frame: LocalFrame): Mult
   const origin: [number, number] = [Math.round(ox), Math.round(oy)];
   const pieces = exclusionBufferPiecesXY(exclusion, frame, origin);
   if (pieces.length === 0) return [];
-  const merged = pieces.length === 1 ? pieces : (polyclip.union(pieces[0], ...pieces.slice(1)) as MultiPolygonXY);
+  const merged = pieces.length === 1 ? pieces : (polygonsUnion(pieces[0], ...pieces.slice(1)) as MultiPolygonXY);
   return merged.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x + origin[0], y + origin[1]] as [number, number])));
 }
 

@@ -1,7 +1,16 @@
 import type { FeatureCollection, Point } from 'geojson';
-import type { ResultKind } from '../results/resultsCellParse';
-import type { RngVersion } from '../design/place/rng';
 import type { ExclusionKind, Site, StratumPart } from './types';
+
+/** The kinds of variable a crew records, which decide the range checks. */
+export const RESULT_KINDS = ['measure', 'cover', 'count', 'presence'] as const;
+export type ResultKind = (typeof RESULT_KINDS)[number];
+
+/**
+ * Which random streams made a design. 1: one xoroshiro128+ stream seeded almost directly by the seed
+ * (designs made before the version was recorded; neighbouring seeds give correlated designs).
+ * 2: the seed expanded by splitmix64, with a separate, named stream for each stratum and method.
+ */
+export type RngVersion = 1 | 2;
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
 export type Footprint =

@@ -6,7 +6,7 @@ import { estimateStratifiedProportion } from './estimateStratifiedProportion';
 import { estimateTotal } from './estimateTotal';
 import { footprintAreaM2 } from '../design/footprintParse';
 import { InputError } from '../common/InputError';
-import type { ResultKind } from './resultsCellParse';
+import type { ResultKind } from '../model/designTypes';
 import { type ResultsTable, resultsReview } from './resultsCheck';
 import { stratumStats } from './stratumStats';
 

@@ -1,6 +1,6 @@
 import { collapsedStrataVariance } from './collapsedStrataVariance';
-import { type SatterthwaiteTerm, satterthwaiteDf } from './satterthwaiteDf';
-import { tQuantile95 } from './tQuantile';
+import { type SatterthwaiteTerm, satterthwaiteDf } from '../stats/satterthwaiteDf';
+import { tQuantile95 } from '../stats/tQuantile';
 
 /** What the estimator needs to know about one stratum. */
 export interface StratumSummary {

@@ -1,5 +1,5 @@
 import { InputError } from '../common/InputError';
-import { tQuantile95 } from './tQuantile';
+import { tQuantile95 } from '../stats/tQuantile';
 
 /** Standard normal 0.975 quantile (t at infinite df). */
 const Z_95 = tQuantile95(Number.POSITIVE_INFINITY);

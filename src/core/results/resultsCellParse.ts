@@ -1,9 +1,8 @@
+import { RESULT_KINDS, type ResultKind } from '../model/designTypes';
+
 /** How a results table writes decimals: "3.5" or "3,5". */
 export type DecimalMark = '.' | ',';
 
-/** The kinds of variable a crew records, which decide the range checks. */
-export const RESULT_KINDS = ['measure', 'cover', 'count', 'presence'] as const;
-export type ResultKind = (typeof RESULT_KINDS)[number];
 
 const POINT_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const COMMA_NUMBER = /^[+-]?(\d+,?\d*|,\d+)([eE][+-]?\d+)?$/;

@@ -1,7 +1,7 @@
 import type { Position } from 'geojson';
 import { coordinateProblems, type PositionedFeature } from './coordinateProblems';
 import { holeProblems } from './holeProblems';
-import { multiPolygonOverlaps } from '../geometry/multiPolygonOverlaps';
+import { multiPolygonOverlaps } from './multiPolygonOverlaps';
 import { polygonSelfIntersections } from '../geometry/polygonSelfIntersections';
 import { problemMake } from '../common/problemMake';
 import { ringProblems } from './ringProblems';

@@ -1,4 +1,4 @@
-import * as polyclip from 'polyclip-ts';
+import { polygonsDifference } from '../geometry/polygonClip';
 import { areaGeometryPlanar, type PolygonsLonLat, planarPieces } from '../geometry/areaGeometryPlanar';
 import { problemMake } from '../common/problemMake';
 import type { AreaGeometry, Problem, StratumPart } from '../model/types';
@@ -16,7 +16,7 @@ export function strataGaps(boundary: AreaGeometry, parts: readonly StratumPart[]
   const outline = areaGeometryPlanar(boundary);
   if (outline.length === 0) return [];
   const strata = parts.map((p) => areaGeometryPlanar(p.geometry));
-  const gaps = (strata.length === 0 ? outline : polyclip.difference(outline, ...strata)) as PolygonsLonLat;
+  const gaps = (strata.length === 0 ? outline : polygonsDifference(outline, ...strata)) as PolygonsLonLat;
   return planarPieces(gaps)
     .filter((g) => g.areaM2 >= MIN_GAP_M2)
     .map((g) =>

@@ -1,5 +1,5 @@
 import Flatbush from 'flatbush';
-import * as polyclip from 'polyclip-ts';
+import { polygonsIntersection } from '../geometry/polygonClip';
 import { areaGeometryPlanar, type PolygonsLonLat, planarPieces } from '../geometry/areaGeometryPlanar';
 import { problemMake } from '../common/problemMake';
 import type { Problem, StratumPart } from '../model/types';
@@ -53,7 +53,7 @@ export function strataOverlaps(parts: readonly StratumPart[], indices?: readonly
       const w = Math.min(b[2], c[2]) - Math.max(b[0], c[0]);
       const h = Math.min(b[3], c[3]) - Math.max(b[1], c[1]);
       if (w <= 0 || h <= 0 || w * h * BOX_M2_PER_DEG2 < MIN_OVERLAP_M2) continue;
-      const common = polyclip.intersection(planarOf(i), planarOf(j)) as PolygonsLonLat;
+      const common = polygonsIntersection(planarOf(i), planarOf(j)) as PolygonsLonLat;
       if (common.length === 0) continue;
       const pieces = planarPieces(common);
       const areaM2 = pieces.reduce((s, p) => s + p.areaM2, 0);

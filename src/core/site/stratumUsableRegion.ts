@@ -1,5 +1,5 @@
 import type { MultiPolygon, Position } from 'geojson';
-import * as polyclip from 'polyclip-ts';
+import { polygonsDifference, polygonsUnion } from '../geometry/polygonClip';
 import { ARC_TOLERANCE_M } from '../geometry/bufferShapesXY';
 import { exclusionBufferPiecesXY, type MultiPolygonXY } from '../geometry/exclusionBufferXY';
 import { InputError } from '../common/InputError';
@@ -99,8 +99,8 @@ export function stratumUsableRegion(site: Site, stratumKey: string, frame: Local
     return { xy: partsXY, geometry, areaM2: polygonAreaM2(geometry) };
   }
   const local = partsXY.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x - origin[0], y - origin[1]] as [number, number])));
-  let region = polyclip.union(local[0], ...local.slice(1)) as MultiPolygonXY;
-  if (pieces.length > 0 && region.length > 0) region = polyclip.difference(region, ...pieces) as MultiPolygonXY;
+  let region = polygonsUnion(local[0], ...local.slice(1)) as MultiPolygonXY;
+  if (pieces.length > 0 && region.length > 0) region = polygonsDifference(region, ...pieces) as MultiPolygonXY;
   const xy = region.map((poly) => poly.map((ring) => ring.map(([x, y]) => [x + origin[0], y + origin[1]])));
   const geometry: MultiPolygon = {
     type: 'MultiPolygon',

@@ -1,4 +1,4 @@
-import proj4 from 'proj4';
+import { type ProjectionParsed, projectionParse } from '../../core/geo/projection';
 import { InputError } from '../../core/common/InputError';
 import { type CrsTransform, crsFromDefinition, crsResolveEpsg, crsWgs84 } from './crsResolve';
 
@@ -66,9 +66,9 @@ export function crsFromPrj(wkt: string, where: string): CrsTransform {
       // A code we do not carry: fall back to the WKT itself below.
     }
   }
-  let parsed: { datum?: { datum_type?: number; a?: number }; a?: number };
+  let parsed: ProjectionParsed;
   try {
-    parsed = proj4.Proj(text) as unknown as typeof parsed;
+    parsed = projectionParse(text);
   } catch {
     throw new InputError(`${where}: the coordinate system "${head[2]}" in the .prj is not understood; ${ask}`);
   }

@@ -1,4 +1,4 @@
-import proj4 from 'proj4';
+import { type Projection, projectionFrom, projectionParse } from '../../core/geo/projection';
 import { InputError } from '../../core/common/InputError';
 
 /** A coordinate reference system of an imported or exported file, with transforms to and from WGS84. */
@@ -68,11 +68,11 @@ export const SUPPORTED_EPSG_TEXT =
  * it by projecting a round trip. Throws InputError naming `where` when it did not.
  */
 export function crsFromDefinition(definition: string, label: string, epsg: number | null, where: string): CrsTransform {
-  let converter: proj4.Converter;
+  let converter: Projection;
   let isGeographic: boolean;
   try {
-    converter = proj4('EPSG:4326', definition);
-    const parsed = proj4.Proj(definition) as unknown as { projName?: string };
+    converter = projectionFrom(definition);
+    const parsed = projectionParse(definition);
     isGeographic = parsed.projName === 'longlat' || parsed.projName === 'identity';
   } catch {
     throw new InputError(`${where}: the coordinate system "${label}" is not understood; give its EPSG code (--epsg)`);
@@ -82,8 +82,8 @@ export function crsFromDefinition(definition: string, label: string, epsg: numbe
     epsg,
     definition,
     isGeographic,
-    toWgs84: (x, y) => converter.inverse([x, y]) as [number, number],
-    fromWgs84: (lon, lat) => converter.forward([lon, lat]) as [number, number],
+    toWgs84: (x, y) => converter.inverse(x, y),
+    fromWgs84: (lon, lat) => converter.forward(lon, lat),
   };
 }
 

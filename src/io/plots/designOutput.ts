@@ -18,8 +18,8 @@ import { featuresToShapefileFiles } from '../formats/shapefile/featuresToShapefi
 import { fieldSheetsPdf } from '../pdf/fieldSheetsPdf';
 import { plotsToCsv } from './plotsToCsv';
 import { isRejectedPlot, navigationDescription, plotGpxLabels } from '../formats/gpx/plotsToGpx';
-import { shapefileCautionText } from '../formats/shapefile/shapefileCautionText';
-import { siteLayers } from '../site/siteLayers';
+import { shapefileCautionText } from './shapefileCautionText';
+import { siteLayers } from './siteLayers';
 
 /** File extensions {@link designOutputBytes} writes, with what each holds. */
 export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {

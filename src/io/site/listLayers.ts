@@ -1,5 +1,5 @@
 import { InputError } from '../../core/common/InputError';
-import type { ImportOptions } from './importOptions';
+import type { ImportOptions } from '../common/importOptions';
 import { geoPackageLayers } from '../formats/geopackage/parseGeoPackage';
 import { kmlLayers } from '../formats/kml/parseKml';
 import { shapefileLayers } from '../formats/shapefile/parseShapefileZip';

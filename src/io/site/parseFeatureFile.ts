@@ -1,7 +1,7 @@
 import type { FeatureCollection } from 'geojson';
 import { InputError, isInputError } from '../../core/common/InputError';
 import { featuresLimitCheck } from './featuresLimitCheck';
-import type { ImportOptions } from './importOptions';
+import type { ImportOptions } from '../common/importOptions';
 import { parseGeoJson } from '../formats/geojson/parseGeoJson';
 import { parseGeoPackage } from '../formats/geopackage/parseGeoPackage';
 import { parseGpx } from '../formats/gpx/parseGpx';

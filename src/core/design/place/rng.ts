@@ -1,4 +1,5 @@
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
+import type { RngVersion } from '../../model/designTypes';
 import { fnv1a64, splitmix64, uint64Of } from './splitmix64';
 
 /** A seeded source of uniform random numbers; the only kind of randomness the design engine uses. */
@@ -11,12 +12,6 @@ export interface Rng {
   int(n: number): number;
 }
 
-/**
- * Which random streams made a design. 1: one xoroshiro128+ stream seeded almost directly by the seed
- * (designs made before the version was recorded; neighbouring seeds give correlated designs).
- * 2: the seed expanded by splitmix64, with a separate, named stream for each stratum and method.
- */
-export type RngVersion = 1 | 2;
 
 /** The generator version new designs use. */
 export const RNG_VERSION_CURRENT: RngVersion = 2;

@@ -1,4 +1,5 @@
-import { type Rng, type RngVersion, rngCreateLegacy, rngStream } from './rng';
+import { type Rng, rngCreateLegacy, rngStream } from './rng';
+import { type RngVersion } from '../../model/designTypes';
 
 /** The random streams of one design: one per purpose (method) and stratum. */
 export interface RngStreams {

@@ -3,7 +3,7 @@ import Papa from 'papaparse';
 import { InputError } from '../../../core/common/InputError';
 import { type CrsTransform, crsResolveEpsg, crsWgs84 } from '../../crs/crsResolve';
 import { csvCellUnescape } from '../../common/csvCell';
-import type { ImportOptions } from '../../site/importOptions';
+import type { ImportOptions } from '../../common/importOptions';
 import { textDecoderFor } from '../../common/textDecoderFor';
 
 const LON_NAMES = ['lon', 'lng', 'long', 'longitude', 'x'];

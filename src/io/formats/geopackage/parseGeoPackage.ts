@@ -6,7 +6,7 @@ import { crsFromPrj } from '../../crs/crsFromPrj';
 import { type CrsTransform, crsProj4Definition, crsResolveEpsg, crsWgs84 } from '../../crs/crsResolve';
 import { geometryMapPositions } from '../../crs/featuresToWgs84';
 import { GpkgGeometryError, gpkgGeometryRead } from './gpkgGeometry';
-import type { ImportOptions } from '../../site/importOptions';
+import type { ImportOptions } from '../../common/importOptions';
 import { sqlJsLoad } from './sqlJsLoad';
 
 /** Rows of a query; SQLite's own refusal (a damaged page, a table that is not there) is said as the file's problem, naming `where`. */

@@ -5,7 +5,7 @@ import { InputError } from '../../../core/common/InputError';
 import { PLOT_FIELD_STATE_KEYS, type PlotFieldStateKey } from '../../../core/field/plotFieldState';
 import { PLOT_SYMBOLS } from '../../../core/field/plotSymbols';
 import type { ExclusionKind } from '../../../core/model/types';
-import { plotIconPng } from '../../pdf/plotIcons';
+import { plotIconPng } from '../../common/plotIcons';
 import { xmlDecimal, xmlText } from '../../common/xmlText';
 
 /** One folder of a KML document. */

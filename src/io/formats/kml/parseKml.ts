@@ -2,7 +2,7 @@ import { type F, type Folder, kmlWithFolders } from '@tmcw/togeojson';
 import type { Feature, FeatureCollection, Geometry, Position } from 'geojson';
 import { InputError } from '../../../core/common/InputError';
 import { KML_SCHEMA_ID } from './featuresToKml';
-import type { ImportOptions } from '../../site/importOptions';
+import type { ImportOptions } from '../../common/importOptions';
 import { xmlParse } from '../../common/xmlParse';
 import { zipEntries } from '../../common/zipEntries';
 

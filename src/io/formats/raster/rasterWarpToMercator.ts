@@ -1,10 +1,9 @@
-import geodesic from 'geographiclib-geodesic';
+import { geodesicDistanceM } from '../../../core/geo/bearingDistance';
 import { InputError } from '../../../core/common/InputError';
 import type { LonLat } from '../../../core/model/types';
 import type { CrsTransform } from '../../crs/crsResolve';
 import { warpMappingLattice } from './warpMappingLattice';
 
-const WGS84 = geodesic.Geodesic.WGS84;
 /** Sphere radius of Web Mercator (EPSG:3857), metres. */
 const MERC_R = 6378137;
 const DEG = Math.PI / 180;
@@ -70,7 +69,7 @@ function invertGeoTransform(t: PixelGeoTransform): PixelGeoTransform {
 }
 
 function groundDistanceM(a: LonLat, b: LonLat): number {
-  return WGS84.Inverse(a[1], a[0], b[1], b[0]).s12 ?? 0;
+  return geodesicDistanceM(a[0], a[1], b[0], b[1]);
 }
 
 /**

@@ -4,7 +4,7 @@ import { plotCollectionForField } from '../../../core/field/plotCollectionForFie
 import { plotCollectionNamed } from '../../../core/field/plotCollectionNamed';
 import { plotsAnnotate } from '../../../core/field/plotsAnnotate';
 import { plotsRejectAndPromote } from '../../../core/field/plotsRejectAndPromote';
-import { siteLayers } from '../../site/siteLayers';
+import { siteLayers } from '../../plots/siteLayers';
 import { DBF_SHORT_NAMES, dbfFieldNames, dbfWrite } from './dbfWrite';
 import { fieldKitPlots, fieldKitSite } from '../../fixtures/fieldKitSample';
 

@@ -6,7 +6,7 @@ import { crsFromPrj } from '../../crs/crsFromPrj';
 import { type CrsTransform, crsResolveEpsg } from '../../crs/crsResolve';
 import { dbfEncodingLabel, dbfRead } from './dbfRead';
 import { geometryMapPositions } from '../../crs/featuresToWgs84';
-import type { ImportOptions } from '../../site/importOptions';
+import type { ImportOptions } from '../../common/importOptions';
 import { shpValidate } from './shpValidate';
 import { zipEntries, zipEntryNoCase, zipEntryPaths } from '../../common/zipEntries';
 

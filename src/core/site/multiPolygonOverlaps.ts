@@ -1,7 +1,7 @@
-import * as polyclip from 'polyclip-ts';
-import { type PolygonsLonLat, planarPieces } from './areaGeometryPlanar';
+import { polygonsIntersection } from '../geometry/polygonClip';
+import { type PolygonsLonLat, planarPieces } from '../geometry/areaGeometryPlanar';
 import { problemMake } from '../common/problemMake';
-import { MIN_OVERLAP_M2 } from '../site/strataOverlaps';
+import { MIN_OVERLAP_M2 } from './strataOverlaps';
 import type { AreaGeometry, Problem, ProblemLocation } from '../model/types';
 
 /** More than the m² of one square degree anywhere (111.32 km per degree at the equator, × 1.2). */
@@ -43,7 +43,7 @@ export function multiPolygonOverlaps(geometry: AreaGeometry, where: ProblemLocat
       const w = Math.min(b[2], c[2]) - Math.max(b[0], c[0]);
       const h = Math.min(b[3], c[3]) - Math.max(b[1], c[1]);
       if (w <= 0 || h <= 0 || w * h * BOX_M2_PER_DEG2 < MIN_OVERLAP_M2) continue;
-      const common = polyclip.intersection(planar(i), planar(j)) as PolygonsLonLat;
+      const common = polygonsIntersection(planar(i), planar(j)) as PolygonsLonLat;
       if (common.length === 0) continue;
       const pieces = planarPieces(common);
       const areaM2 = pieces.reduce((s, p) => s + p.areaM2, 0);

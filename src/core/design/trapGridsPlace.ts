@@ -1,21 +1,21 @@
 import type { Feature, Point } from 'geojson';
-import { STRATPLOT_VERSION } from '../designRun';
-import { designSettingsDefault } from '../designSettingsDefault';
-import type { AllocationRow, PlotCollection, PlotProperties } from '../../model/designTypes';
-import { placementPolygonsCheck } from '../designSizeCheck';
-import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from '../../common/inputLimits';
-import { InputError } from '../../common/InputError';
-import { FIT_OK, placementConstraintsBuild } from './placementConstraints';
-import { footprintShapeXY } from './placementFootprint';
-import { plotRecord } from '../../field/plotRecord';
-import { plotsPlaceRandom } from './plotsPlaceRandom';
-import { polygonAreaM2 } from '../../geo/polygonAreaM2';
-import { RNG_VERSION_CURRENT } from './rng';
-import { rngStreams, rngVersionText } from './rngStreams';
-import { convexSegmentDistance } from '../../geometry/segmentDistance';
-import { siteLocalFrame } from '../../geo/siteLocalFrame';
-import { stratumUsableRegion } from '../../site/stratumUsableRegion';
-import type { Site } from '../../model/types';
+import { STRATPLOT_VERSION } from './designRun';
+import { designSettingsDefault } from './designSettingsDefault';
+import type { AllocationRow, PlotCollection, PlotProperties } from '../model/designTypes';
+import { placementPolygonsCheck } from './designSizeCheck';
+import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from '../common/inputLimits';
+import { InputError } from '../common/InputError';
+import { FIT_OK, placementConstraintsBuild } from './place/placementConstraints';
+import { footprintShapeXY } from './place/placementFootprint';
+import { plotRecord } from './plotRecord';
+import { plotsPlaceRandom } from './place/plotsPlaceRandom';
+import { polygonAreaM2 } from '../geo/polygonAreaM2';
+import { RNG_VERSION_CURRENT } from './place/rng';
+import { rngStreams, rngVersionText } from './place/rngStreams';
+import { convexSegmentDistance } from '../geometry/segmentDistance';
+import { siteLocalFrame } from '../geo/siteLocalFrame';
+import { stratumUsableRegion } from '../site/stratumUsableRegion';
+import type { Site } from '../model/types';
 
 /** Settings of a trapping layout. */
 export interface TrapGridOptions {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { polygonAreaM2 } from '../geo/polygonAreaM2';
 import { repairDropDuplicateVertices } from './repairDropDuplicateVertices';
-import { siteValidate } from '../site/siteValidate';
+import { siteValidate } from './siteValidate';
 import type { StratumPart } from '../model/types';
 
 const ring = [[150.5, -35.1], [150.502, -35.1], [150.502, -35.1], [150.502, -35.098], [150.5, -35.098], [150.5, -35.098], [150.5, -35.1]];

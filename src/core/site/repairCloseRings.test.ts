@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { repairCloseRings } from './repairCloseRings';
-import { siteValidate } from '../site/siteValidate';
+import { siteValidate } from './siteValidate';
 import type { Site, StratumPart } from '../model/types';
 
 const open: StratumPart = { id: 'a', stratum: 'A', geometry: { type: 'Polygon', coordinates: [[[150.5, -35.1], [150.502, -35.1], [150.502, -35.098], [150.5, -35.098]]] } };

@@ -1,9 +1,9 @@
 import Flatbush from 'flatbush';
-import * as polyclip from 'polyclip-ts';
-import { areaGeometryPlanar, type PolygonsLonLat } from './areaGeometryPlanar';
+import { polygonsDifference, polygonsIntersection } from '../geometry/polygonClip';
+import { areaGeometryPlanar, type PolygonsLonLat } from '../geometry/areaGeometryPlanar';
 import { InputError } from '../common/InputError';
 import { polygonAreaM2 } from '../geo/polygonAreaM2';
-import { MIN_OVERLAP_M2 } from '../site/strataOverlaps';
+import { MIN_OVERLAP_M2 } from './strataOverlaps';
 import type { StratumPart } from '../model/types';
 
 /** Which stratum keeps ground that two strata claim. */
@@ -54,12 +54,12 @@ export function repairClipOverlap(
     for (const j of index.search(...boxes[i])) {
       if (j <= i || parts[i].stratum === parts[j].stratum) continue;
       if (xy[i].length === 0 || xy[j].length === 0) continue;
-      const common = polyclip.intersection(xy[i], xy[j]) as PolygonsLonLat;
+      const common = polygonsIntersection(xy[i], xy[j]) as PolygonsLonLat;
       if (common.length === 0) continue;
       const areaM2 = polygonAreaM2({ type: 'MultiPolygon', coordinates: common });
       if (areaM2 < MIN_OVERLAP_M2) continue;
       const [keep, lose] = wins(i, j) ? [i, j] : [j, i];
-      xy[lose] = (polyclip.difference(xy[lose], xy[keep]) as PolygonsLonLat).filter(
+      xy[lose] = (polygonsDifference(xy[lose], xy[keep]) as PolygonsLonLat).filter(
         (poly) => polygonAreaM2({ type: 'Polygon', coordinates: poly }) >= MIN_OVERLAP_M2,
       );
       changed.add(lose);

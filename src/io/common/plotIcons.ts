@@ -1,7 +1,7 @@
 import { PLOT_CHECK_SYMBOLS, type PlotCheckSymbolKey, plotCheckSymbolCover } from '../../core/plotCheck/plotCheckSymbols';
 import type { PlotFieldStateKey } from '../../core/field/plotFieldState';
 import { PLOT_SYMBOLS, plotSymbolCover } from '../../core/field/plotSymbols';
-import { pngEncodeRgba } from '../formats/raster/pngEncodeRgba';
+import { pngEncodeRgba } from './pngEncodeRgba';
 
 function hex(c: string): [number, number, number] {
   return [Number.parseInt(c.slice(1, 3), 16), Number.parseInt(c.slice(3, 5), 16), Number.parseInt(c.slice(5, 7), 16)];

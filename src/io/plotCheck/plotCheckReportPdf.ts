@@ -7,10 +7,10 @@ import type { PlotsCheckReport } from '../../core/plotCheck/plotCheckTypes';
 import { plotCheckRecordsBySeverity } from '../../core/plotCheck/plotsCheck';
 import type { Site } from '../../core/model/types';
 import { EXCLUSION_KINDS } from '../../core/model/types';
-import { coverMapDraw } from './coverMap';
-import { drawPlotCheckSymbol } from './coverMapSymbols';
-import type { PlotCheckReportMeta } from '../plots/plotCheckReportCsv';
-import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
+import { coverMapDraw } from '../pdf/coverMap';
+import { drawPlotCheckSymbol } from '../pdf/coverMapSymbols';
+import type { PlotCheckReportMeta } from './plotCheckReportCsv';
+import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageFrames, pdfPageStart, pdfText } from '../pdf/pdfPageKit';
 
 /** Options of {@link plotCheckReportPdf}. */
 export interface PlotCheckReportPdfOptions {

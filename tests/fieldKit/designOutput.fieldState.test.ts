@@ -6,18 +6,18 @@ import { unzipSync } from 'fflate';
 import type { FeatureCollection } from 'geojson';
 import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { GPX_XSD } from '../../../tests/schemas/paths';
-import { designRun } from '../../core/design/designRun';
-import type { PlotCollection } from '../../core/model/designTypes';
-import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../../core/field/fieldCaution';
-import { plotsRejectAndPromote } from '../../core/field/plotsRejectAndPromote';
-import { plotsRestore } from '../../core/field/plotsRestore';
-import type { Site } from '../../core/model/types';
-import { planFileParse } from '../../state/planFile';
-import { designOutputBytes } from './designOutput';
-import { parseFeatureFile } from '../site/parseFeatureFile';
-import { parseKml } from '../formats/kml/parseKml';
-import { parsePlotFile } from './parsePlotFile';
+import { GPX_XSD } from '../schemas/paths';
+import { designRun } from '../../src/core/design/designRun';
+import type { PlotCollection } from '../../src/core/model/designTypes';
+import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../../src/core/field/fieldCaution';
+import { plotsRejectAndPromote } from '../../src/core/field/plotsRejectAndPromote';
+import { plotsRestore } from '../../src/core/field/plotsRestore';
+import type { Site } from '../../src/core/model/types';
+import { planFileParse } from '../../src/state/planFile';
+import { designOutputBytes } from '../../src/io/plots/designOutput';
+import { parseFeatureFile } from '../../src/io/site/parseFeatureFile';
+import { parseKml } from '../../src/io/formats/kml/parseKml';
+import { parsePlotFile } from '../../src/io/plots/parsePlotFile';
 
 /*
  * One rejection, every format: each file is read back by an outside reader where one is installed
@@ -26,7 +26,7 @@ import { parsePlotFile } from './parsePlotFile';
  * not read as a plot to visit anywhere, the promoted reserve must read as active and as replacing
  * it, and restoring the plot must give back the files of before.
  */
-const PLAN = join(import.meta.dirname, '..', '..', 'state', 'fixtures', 'plan-v1-renamed-stratum-rejected-plot.stratplot.json');
+const PLAN = join(import.meta.dirname, '..', '..', 'src', 'state', 'fixtures', 'plan-v1-renamed-stratum-rejected-plot.stratplot.json');
 const SURVEY = new Date('2026-12-01T12:00:00Z');
 const REASON = 'Unsafe to reach';
 const AT = '2026-12-01T09:30:00.000Z';

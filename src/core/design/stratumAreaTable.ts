@@ -1,4 +1,4 @@
-import { designUsableAreas } from '../design/designUsableAreas';
+import { designUsableAreas } from './designUsableAreas';
 import { M2_PER_HA, polygonAreaM2 } from '../geo/polygonAreaM2';
 import { siteLocalFrame } from '../geo/siteLocalFrame';
 import type { Site, StratumInfo } from '../model/types';

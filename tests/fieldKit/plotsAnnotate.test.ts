@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { fieldKitPlots, fieldKitSite } from '../../io/fixtures/fieldKitSample';
-import { bearingDistance } from '../geo/bearingDistance';
-import { magneticDeclination } from '../geo/magneticDeclination';
-import { plotsAnnotate } from './plotsAnnotate';
+import { fieldKitPlots, fieldKitSite } from '../../src/io/fixtures/fieldKitSample';
+import { bearingDistance } from '../../src/core/geo/bearingDistance';
+import { magneticDeclination } from '../../src/core/geo/magneticDeclination';
+import { plotsAnnotate } from '../../src/core/field/plotsAnnotate';
 
 const date = new Date(Date.UTC(2026, 2, 15));
 

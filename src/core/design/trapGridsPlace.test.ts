@@ -1,7 +1,7 @@
 import * as turf from '@turf/turf';
 import geodesicPkg from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
-import type { Site } from '../../model/types';
+import type { Site } from '../model/types';
 import { trapGridsPlace } from './trapGridsPlace';
 
 const geod = geodesicPkg.Geodesic.WGS84;

@@ -1,5 +1,5 @@
 import type { LocalFrame } from '../geo/localFrame';
-import { FIT_EXCLUDED, placementConstraintsBuild } from '../design/place/placementConstraints';
+import { FIT_EXCLUDED, placementConstraintsBuild } from './place/placementConstraints';
 import type { Site } from '../model/types';
 
 /** Most grid points one estimate may test (bounds the time; common practice, no source). */

@@ -2,7 +2,7 @@ import type { Polygon } from 'geojson';
 import { describe, expect, it } from 'vitest';
 import { polygonAreaM2 } from '../geo/polygonAreaM2';
 import { repairClipOverlap } from './repairClipOverlap';
-import { siteValidate } from '../site/siteValidate';
+import { siteValidate } from './siteValidate';
 import type { StratumPart } from '../model/types';
 
 const X = 150.5;

@@ -1,8 +1,8 @@
 import mgrs from 'mgrs';
 import proj4 from 'proj4';
 import { describe, expect, it } from 'vitest';
-import { designRun } from '../design/designRun';
-import { designSettingsDefault } from '../design/designSettingsDefault';
+import { designRun } from './designRun';
+import { designSettingsDefault } from './designSettingsDefault';
 import { siteInventedRandom } from '../fixtures/siteInventedRandom';
 
 describe('plotRecord', () => {

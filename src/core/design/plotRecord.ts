@@ -1,7 +1,7 @@
 import type { Feature, Point } from 'geojson';
 import * as mgrsModule from 'mgrs';
 import type { PlotProperties, PlotRole } from '../model/designTypes';
-import type { PlacementConstraints } from '../design/place/placementConstraints';
+import type { PlacementConstraints } from './place/placementConstraints';
 
 /** What a plot is before its coordinates are written out. */
 export interface PlotDraft {

@@ -1,9 +1,9 @@
-import type { PlotCollection } from '../../../core/model/designTypes';
-import { FIELD_CAUTION } from '../../../core/field/fieldCaution';
-import { PLOT_FIELD_STATE_KEYS, plotRejectionLines } from '../../../core/field/plotFieldState';
-import { PLOT_SYMBOLS } from '../../../core/field/plotSymbols';
-import { shapefileFieldNames } from './featuresToShapefileZip';
-import type { NamedLayer } from '../../site/siteLayers';
+import type { PlotCollection } from '../../core/model/designTypes';
+import { FIELD_CAUTION } from '../../core/field/fieldCaution';
+import { PLOT_FIELD_STATE_KEYS, plotRejectionLines } from '../../core/field/plotFieldState';
+import { PLOT_SYMBOLS } from '../../core/field/plotSymbols';
+import { shapefileFieldNames } from '../formats/shapefile/featuresToShapefileZip';
+import type { NamedLayer } from './siteLayers';
 
 function wrap(text: string, width = 96): string[] {
   const lines: string[] = [];

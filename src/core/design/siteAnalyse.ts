@@ -1,9 +1,9 @@
 import type { Feature, FeatureCollection, MultiPolygon } from 'geojson';
-import { exclusionBufferXY } from '../core/geometry/exclusionBufferXY';
-import { isInputError } from '../core/common/InputError';
-import { siteLocalFrame } from '../core/geo/siteLocalFrame';
-import { type StratumAreaTable, stratumAreaTable } from '../core/site/stratumAreaTable';
-import type { Problem, Site } from '../core/model/types';
+import { exclusionBufferXY } from '../geometry/exclusionBufferXY';
+import { isInputError } from '../common/InputError';
+import { siteLocalFrame } from '../geo/siteLocalFrame';
+import { type StratumAreaTable, stratumAreaTable } from './stratumAreaTable';
+import type { Problem, Site } from '../model/types';
 
 /** What the planner shows about a site besides the site itself: areas, buffered ground, problems. */
 export interface SiteAnalysis {

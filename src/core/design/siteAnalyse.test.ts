@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { polygonAreaM2 } from '../core/geo/polygonAreaM2';
-import { siteValidate } from '../core/site/siteValidate';
-import type { Site } from '../core/model/types';
+import { polygonAreaM2 } from '../geo/polygonAreaM2';
+import { siteValidate } from '../site/siteValidate';
+import type { Site } from '../model/types';
 import { siteAnalyse } from './siteAnalyse';
 
 const site = (over: Partial<Site> = {}): Site => ({
