@@ -1,8 +1,9 @@
 import { isInputError } from '../core/common/InputError';
+import { STRATPLOT_VERSION } from '../core/common/version';
 import { type CliIo, type Command, CommandStatus } from './command';
 import { COMMANDS } from './commands';
 
-const VERSION = '0.1.0';
+const VERSION = STRATPLOT_VERSION;
 
 function help(): string {
   const rows = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);

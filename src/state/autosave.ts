@@ -1,4 +1,5 @@
-import type { DesignSettings, PlanFile, PlanFileDocument } from '../core/model/designTypes';
+import type { DesignSettings } from '../core/model/designTypes';
+import type { PlanFile, PlanFileDocument } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';

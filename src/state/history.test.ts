@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designRun } from '../core/design/designRun';
 import { designSettingsDefault } from '../core/design/designSettingsDefault';
-import type { PlanFile } from '../core/model/designTypes';
+import type { PlanFile } from './planFileTypes';
 import { designResultSet, designSettingsSet } from './designActions';
 import { exclusionAdd } from './exclusionActions';
 import { historyNext, historyRedo, historyUndo } from './historyActions';

@@ -1,4 +1,5 @@
-import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/model/designTypes';
+import type { DesignSettings } from '../core/model/designTypes';
+import { PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
 import { plotCollectionById, plotCollectionNamed } from '../core/field/plotCollectionNamed';
 import type { Site, StratumInfo, StratumPart } from '../core/model/types';

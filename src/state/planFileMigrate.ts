@@ -1,4 +1,5 @@
-import { PLAN_FILE_VERSION, type PlotCollection } from '../core/model/designTypes';
+import type { PlotCollection } from '../core/model/designTypes';
+import { PLAN_FILE_VERSION } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
 import { plotCollectionNamed } from '../core/field/plotCollectionNamed';
 import type { StratumInfo } from '../core/model/types';

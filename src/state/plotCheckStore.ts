@@ -77,7 +77,7 @@ function message(e: unknown): string {
 }
 
 /** The form's settings as the check takes them. Throws InputError for a footprint or date it cannot read. */
-export function plotCheckOptionsOf(s: PlotCheckSettings): PlotsCheckOptions {
+function plotCheckOptionsOf(s: PlotCheckSettings): PlotsCheckOptions {
   const surveyDate = new Date(/^\d{4}-\d{2}-\d{2}$/.test(s.surveyDate) ? `${s.surveyDate}T12:00:00Z` : 'invalid');
   if (Number.isNaN(surveyDate.getTime())) throw new InputError(`survey date "${s.surveyDate}" is not a date (YYYY-MM-DD)`);
   return { spacingM: s.spacingM, footprint: footprintParse(s.footprintText, 'footprint'), edgeBufferM: s.edgeBufferM, surveyDate };

@@ -1,4 +1,5 @@
-import type { PlotCollection, RecaptureGridSaved, ResultsSnapshot } from '../core/model/designTypes';
+import type { PlotCollection } from '../core/model/designTypes';
+import type { RecaptureGridSaved, ResultsSnapshot } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
 import { RESULT_KINDS, type ResultKind } from '../core/model/designTypes';
 import { type ResultsState, type ResultsStore, recaptureGridBlank, resultsClear, resultsLoad, resultsMappingSet, resultsOptionsSet } from './resultsStore';

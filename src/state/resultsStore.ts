@@ -1,10 +1,11 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core/model/designTypes';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import type { RecaptureGridSaved } from './planFileTypes';
 import { type EstimateReport, estimateFromResults } from '../core/results/estimateFromResults';
 import { isInputError } from '../core/common/InputError';
 import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/results/nextSeasonSampleSize';
 import { resultsKindGuess } from '../core/results/resultsCellParse';
-import { type ResultKind } from '../core/model/designTypes';
+import type { ResultKind } from '../core/model/designTypes';
 import { type ResultsTable, resultsReview } from '../core/results/resultsCheck';
 import type { Problem } from '../core/model/types';
 import { parseResultsCsv } from '../io/results/parseResultsCsv';
@@ -152,7 +153,7 @@ export function resultsColouringSet(store: ResultsStore, colouring: ResultsColou
 }
 
 /** Re-runs the checks, the estimate and next season's sizes for the current file, mapping and options. */
-export function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
+function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
   const s = store.getState();
   const cleared = { problems: [], report: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null };
   let blocked: string | null | undefined;

@@ -24,13 +24,6 @@ function stratumInfoNew(site: Site, name: string): StratumInfo {
   };
 }
 
-/** Adds a stratum with a unique code and the next palette colour; returns its key. Throws InputError for a blank or taken name. */
-export function stratumAdd(store: PlannerStore, name: string): string {
-  const info = stratumInfoNew(store.getState().site, name);
-  siteCommit(store, (s) => ({ ...s, strata: [...s.strata, info] }));
-  return info.key;
-}
-
 function stratumPatch(store: PlannerStore, key: string, patch: Partial<StratumInfo>): void {
   siteCommit(store, (site) => {
     if (!site.strata.some((s) => s.key === key)) throw new InputError(`no stratum "${key}"`);
@@ -114,11 +107,3 @@ export function stratumPartRemove(store: PlannerStore, partId: string): void {
   );
 }
 
-/** Removes a stratum and all its features. */
-export function stratumRemove(store: PlannerStore, key: string): void {
-  siteCommit(store, (site) => ({
-    ...site,
-    strata: site.strata.filter((s) => s.key !== key),
-    parts: site.parts.filter((p) => p.stratum !== key),
-  }));
-}

@@ -1,4 +1,4 @@
-import { STRATPLOT_VERSION } from '../../core/design/designRun';
+import { STRATPLOT_VERSION } from '../../core/common/version';
 import { downloadFile, fileSafeName } from '../downloadFile';
 import { plannerStore } from '../plannerStoreInstance';
 import { notify } from '../usePlanner';

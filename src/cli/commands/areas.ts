@@ -4,6 +4,7 @@ import { type StratumAreaTable, stratumAreaTable } from '../../core/design/strat
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { siteFromInputs } from '../siteFromInputs';
+import { M2_PER_HA } from '../../core/common/units';
 
 const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--boundary FILE] [--json]
                        [--layer NAME] [--epsg CODE] [--encoding NAME] [--x-column X --y-column Y]
@@ -45,8 +46,8 @@ function areasJson(t: StratumAreaTable): string {
 function areasText(t: StratumAreaTable): string {
   const head = ['stratum', 'features', 'mapped ha', 'share %', 'usable ha'];
   const usableTotal = t.rows.reduce((s, r) => s + r.usable_m2, 0);
-  const body = t.rows.map((r) => [r.stratum, String(r.features), (r.area_ha).toFixed(4), (r.share * 100).toFixed(1), (r.usable_m2 / 1e4).toFixed(4)]);
-  const total = ['total', String(t.rows.reduce((s, r) => s + r.features, 0)), (t.total_m2 / 1e4).toFixed(4), t.total_m2 > 0 ? '100.0' : '0.0', (usableTotal / 1e4).toFixed(4)];
+  const body = t.rows.map((r) => [r.stratum, String(r.features), (r.area_ha).toFixed(4), (r.share * 100).toFixed(1), (r.usable_m2 / M2_PER_HA).toFixed(4)]);
+  const total = ['total', String(t.rows.reduce((s, r) => s + r.features, 0)), (t.total_m2 / M2_PER_HA).toFixed(4), t.total_m2 > 0 ? '100.0' : '0.0', (usableTotal / M2_PER_HA).toFixed(4)];
   const rows = [head, ...body, total];
   const widths = head.map((_, c) => Math.max(...rows.map((r) => r[c].length)));
   const line = (r: string[]) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  ');

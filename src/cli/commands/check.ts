@@ -1,7 +1,7 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { STRATPLOT_VERSION } from '../../core/design/designRun';
+import { STRATPLOT_VERSION } from '../../core/common/version';
 import { FIELD_CAUTION } from '../../core/field/fieldCaution';
 import { footprintParse } from '../../core/design/footprintParse';
 import { InputError } from '../../core/common/InputError';
@@ -18,6 +18,7 @@ import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsRead, importOptionsFor } from '../importFlags';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
+import { M2_PER_HA } from '../../core/common/units';
 
 /** Exit status when at least one plot fails a check (0: every plot passes; 2: bad input). */
 export const CHECK_EXIT_FAILED = 4;
@@ -83,7 +84,7 @@ function recordLine(r: PlotCheckRecord): string {
 
 function textReport(report: PlotsCheckReport, plotsFile: string, siteName: string): string {
   const head = ['stratum', 'usable ha', 'plots', 'passing', 'proportional'];
-  const rows = report.strata.map((s) => [`${s.name} (${s.code})`, (s.usableM2 / 1e4).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
+  const rows = report.strata.map((s) => [`${s.name} (${s.code})`, (s.usableM2 / M2_PER_HA).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
   const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
   return [

@@ -7,6 +7,7 @@ import type { DesignSettings } from '../model/designTypes';
 import { footprintAreaM2 } from './footprintParse';
 import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from '../common/inputLimits';
 import { sampleSizeForTarget, stratifiedPrecision } from './sampleSizeForTarget';
+import { roundTo } from '../common/units';
 
 /** The expected precision of a design from its pilot SDs. */
 export interface DesignPrecision {
@@ -28,11 +29,6 @@ export interface DesignAllocation {
   precision: DesignPrecision | null;
   /** The budget's figures when the design is sized by a budget. */
   budget: { total: number; overhead: number; plotsCost: number; formulaN: number } | null;
-}
-
-function round(v: number, decimals: number): number {
-  const f = 10 ** decimals;
-  return Math.round(v * f) / f;
 }
 
 /**
@@ -71,7 +67,7 @@ export function designAllocation(strata: readonly AllocationStratum[], settings:
     allocation = { plots: size.plots, quotas: size.plots, raisedToMinimum: [] };
     sized = { n: size.n, halfwidth: size.halfwidth, df: size.df, halfwidthNormal: size.halfwidthNormal };
     statements.push(
-      `Sample size: ${size.n} plots is the smallest design whose ${settings.allocation} allocation gives an expected 95 % CI half-width of at most ${round(d, 6)} for the interval the estimates report, t(0.975) on the Satterthwaite df (expected ${round(size.halfwidth, 6)} on ${size.df === null ? '–' : round(size.df, 1)} df from the pilot SDs; the continuous normal-approximation formula gave ${round(size.formulaN, 2)}). ` +
+      `Sample size: ${size.n} plots is the smallest design whose ${settings.allocation} allocation gives an expected 95 % CI half-width of at most ${roundTo(d, 6)} for the interval the estimates report, t(0.975) on the Satterthwaite df (expected ${roundTo(size.halfwidth, 6)} on ${size.df === null ? '–' : roundTo(size.df, 1)} df from the pilot SDs; the continuous normal-approximation formula gave ${roundTo(size.formulaN, 2)}). ` +
         (size.fpcApplied ? 'The finite-population correction uses N_h = stratum area / plot area.' : 'The footprint is a point, so no finite-population correction is applied.'),
     );
   } else if (settings.budget) {
@@ -86,7 +82,7 @@ export function designAllocation(strata: readonly AllocationStratum[], settings:
         ? 'the cost-optimum n_h ∝ W_h S_h/√c_h (Cochran 1977 §5.5)'
         : `${settings.allocation} shares (only Neyman allocation with costs is the cost-optimum, Cochran 1977 §5.5)`;
     statements.push(
-      `Budget: ${round(settings.budget.total, 2)} less a fixed overhead of ${round(settings.budget.overhead, 2)} leaves ${round(settings.budget.total - settings.budget.overhead, 2)} for plots at ${keys.map((k, i) => `${round(costPerPlot[i], 2)} in "${k}"`).join(', ')}; ${rule} gives ${round(b.formulaN, 2)} plots in real numbers, and ${b.n} whole plots cost ${round(b.plotsCost, 2)}, the largest design within the budget.`,
+      `Budget: ${roundTo(settings.budget.total, 2)} less a fixed overhead of ${roundTo(settings.budget.overhead, 2)} leaves ${roundTo(settings.budget.total - settings.budget.overhead, 2)} for plots at ${keys.map((k, i) => `${roundTo(costPerPlot[i], 2)} in "${k}"`).join(', ')}; ${rule} gives ${roundTo(b.formulaN, 2)} plots in real numbers, and ${b.n} whole plots cost ${roundTo(b.plotsCost, 2)}, the largest design within the budget.`,
     );
   } else if (settings.allocation === 'neyman') {
     allocation = allocateNeyman(strata, settings.sd, settings.cost, settings.plots, settings.minPerStratum);
@@ -112,7 +108,7 @@ export function designAllocation(strata: readonly AllocationStratum[], settings:
     precision = { n, halfwidth: p.halfwidth, df: p.df, halfwidthNormal: p.halfwidthNormal };
     statements.push(
       Number.isFinite(p.halfwidth)
-        ? `Expected precision at n = ${n} from the pilot SDs: a 95 % CI half-width of ${round(p.halfwidth, 6)} (t(0.975) on ${p.df === null ? '–' : round(p.df, 1)} Satterthwaite df; ${round(p.halfwidthNormal, 6)} in the normal approximation).`
+        ? `Expected precision at n = ${n} from the pilot SDs: a 95 % CI half-width of ${roundTo(p.halfwidth, 6)} (t(0.975) on ${p.df === null ? '–' : roundTo(p.df, 1)} Satterthwaite df; ${roundTo(p.halfwidthNormal, 6)} in the normal approximation).`
         : `Expected precision at n = ${n}: not available, a stratum with a pilot SD above 0 has fewer than 2 plots.`,
     );
   }

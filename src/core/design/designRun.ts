@@ -14,27 +14,13 @@ import { rngStreams, rngVersionOf, rngVersionText } from './place/rngStreams';
 import { plotsInStrataCheck } from './plotsInStrataCheck';
 import { siteLocalFrame } from '../geo/siteLocalFrame';
 import type { Site } from '../model/types';
-
-/** Version written into every design summary. */
-export const STRATPLOT_VERSION = '0.1.0';
+import { STRATPLOT_VERSION } from '../common/version';
+import { M2_PER_HA, roundTo } from '../common/units';
 
 /** Hooks for a long design run (the web worker passes these). */
 export interface DesignRunOptions {
   /** Called with a fraction in [0, 1] and a stage name. */
   onProgress?: (fraction: number, stage: string) => void;
-  /** Polled during placement; when it returns true the run stops with an Error named 'DesignCancelled'. */
-  isCancelled?: () => boolean;
-}
-
-function cancelled(): Error {
-  const e = new Error('the design run was cancelled');
-  e.name = 'DesignCancelled';
-  return e;
-}
-
-function round(v: number, decimals: number): number {
-  const f = 10 ** decimals;
-  return Math.round(v * f) / f;
 }
 
 /**
@@ -47,22 +33,19 @@ function round(v: number, decimals: number): number {
  * Sources: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (allocation and sample size);
  * Robertson et al. 2013 (balanced acceptance sampling); see each step's module.
  * A relative target half-width is a fraction of `pilotMean` (0.1 = 10 %).
- * Throws InputError for settings or a map that make the design impossible (naming what and where),
- * and an Error named 'DesignCancelled' when `isCancelled` turns true.
+ * Throws InputError for settings or a map that make the design impossible (naming what and where).
+ * The planner cancels a run by ending its worker, so the run polls nothing.
  */
 export function designRun(site: Site, settings: DesignSettings, options: DesignRunOptions = {}): PlotCollection {
   designSettingsCheck(settings);
   const progress = options.onProgress ?? (() => {});
-  const tick = () => {
-    if (options.isCancelled?.()) throw cancelled();
-  };
   if (site.strata.length === 0) throw new InputError('the site has no strata');
   designSizeCheck(settings, site.strata.length);
   placementPolygonsCheck(site);
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
-  const areas = designUsableAreas(site, frame, tick);
+  const areas = designUsableAreas(site, frame);
   const { mapped, usable } = areas;
   const basis = settings.shareBasis === 'usable' ? usable : mapped;
   const totalBasis = basis.reduce((a, b) => a + b, 0);
@@ -94,7 +77,6 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     });
     allocation = { ...allocation, plots };
   }
-  tick();
   progress(0.3, 'placing');
   const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
   if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
@@ -103,7 +85,6 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   let ticks = 0;
   const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, streams, {
     tick: () => {
-      tick();
       if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
     },
   });
@@ -111,7 +92,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   progress(0.9, 'writing');
   const ids = plotIdsFor(site.strata, placement.primaries, placement.reserves);
   const counters = keys.map(() => ({ primary: 0, reserve: 0 }));
-  const density = keys.map((_, i) => (basis[i] > 0 ? placement.primaries[i] / (basis[i] / 10000) : 0));
+  const density = keys.map((_, i) => (basis[i] > 0 ? placement.primaries[i] / (basis[i] / M2_PER_HA) : 0));
   const drafts = placement.placed.x.map((x, k) => {
     const s = placement.placed.stratum[k];
     const isReserve = placement.placed.reserve[k];
@@ -143,9 +124,9 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const features = drafts.map((d) => plotRecord(constraints, d.draft));
   const rows: AllocationRow[] = keys.map((key, i) => ({
     stratum: key,
-    mapped_m2: round(mapped[i], 2),
-    usable_m2: round(usable[i], 2),
-    share: round(basis[i] / totalBasis, 6),
+    mapped_m2: roundTo(mapped[i], 2),
+    usable_m2: roundTo(usable[i], 2),
+    share: roundTo(basis[i] / totalBasis, 6),
     plots: placement.primaries[i],
     reserve: placement.reserves[i],
     capacity: placement.capacity[i],

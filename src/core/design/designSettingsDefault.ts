@@ -6,7 +6,8 @@ import { RNG_VERSION_CURRENT } from './place/rng';
  * stratum, point plots, no spacing, no reserves, simple random placement, seed 1 and the current
  * random generator version. Every value is
  * a starting point, not advice for any particular survey (common practice, no source).
- * @param overrides settings to change
+ * @param overrides settings to change; a key given as undefined keeps its default (so a CLI can pass
+ *   every option it read, given or not)
  */
 export function designSettingsDefault(overrides: Partial<DesignSettings> = {}): DesignSettings {
   return {
@@ -32,6 +33,10 @@ export function designSettingsDefault(overrides: Partial<DesignSettings> = {}): 
     seed: 1,
     rngVersion: RNG_VERSION_CURRENT,
     redistributeShortfall: false,
-    ...overrides,
+    ...definedOf(overrides),
   };
+}
+
+function definedOf<T extends object>(o: T): Partial<T> {
+  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
 }

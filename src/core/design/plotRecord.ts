@@ -2,6 +2,7 @@ import type { Feature, Point } from 'geojson';
 import * as mgrsModule from 'mgrs';
 import type { PlotProperties, PlotRole } from '../model/designTypes';
 import type { PlacementConstraints } from './place/placementConstraints';
+import { roundTo } from '../common/units';
 
 /** What a plot is before its coordinates are written out. */
 export interface PlotDraft {
@@ -21,11 +22,6 @@ export interface PlotDraft {
 const mgrsForward: (ll: [number, number], accuracy?: number) => string =
   mgrsModule.forward ?? (mgrsModule as unknown as { default: typeof mgrsModule }).default.forward;
 
-function round(v: number, decimals: number): number {
-  const f = 10 ** decimals;
-  return Math.round(v * f) / f;
-}
-
 /**
  * A plot as a GeoJSON point with its file properties. The position is rounded once, to 7 decimals of
  * lon/lat (about 1 cm), and every coordinate column comes from that one rounded position, so a row
@@ -36,8 +32,8 @@ function round(v: number, decimals: number): number {
  */
 export function plotRecord(c: PlacementConstraints, d: PlotDraft): Feature<Point, PlotProperties> {
   const [lonRaw, latRaw] = c.frame.toLonLat(d.x, d.y);
-  const lon = round(lonRaw, 7);
-  const lat = round(latRaw, 7);
+  const lon = roundTo(lonRaw, 7);
+  const lat = roundTo(latRaw, 7);
   const [x, y] = c.frame.toXY(lon, lat);
   const near = c.nearestExclusion(x, y);
   const props: PlotProperties = {
@@ -48,12 +44,12 @@ export function plotRecord(c: PlacementConstraints, d: PlotDraft): Feature<Point
     lon,
     lat,
     utm_zone: c.frame.utmZone,
-    easting: round(x, 1),
-    northing: round(y, 1),
+    easting: roundTo(x, 1),
+    northing: roundTo(y, 1),
     mgrs: mgrsForward([lon, lat], 5),
-    nearest_exclusion_m: near ? round(near.distanceM, 1) : null,
+    nearest_exclusion_m: near ? roundTo(near.distanceM, 1) : null,
     nearest_exclusion_kind: near ? near.kind : null,
-    design_density_per_ha: round(d.densityPerHa, 6),
+    design_density_per_ha: roundTo(d.densityPerHa, 6),
     status: 'planned',
   };
   if (d.transect !== undefined) props.transect = d.transect;

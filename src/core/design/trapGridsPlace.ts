@@ -1,5 +1,5 @@
 import type { Feature, Point } from 'geojson';
-import { STRATPLOT_VERSION } from './designRun';
+import { STRATPLOT_VERSION } from '../common/version';
 import { designSettingsDefault } from './designSettingsDefault';
 import type { AllocationRow, PlotCollection, PlotProperties } from '../model/designTypes';
 import { placementPolygonsCheck } from './designSizeCheck';
@@ -16,6 +16,7 @@ import { convexSegmentDistance } from '../geometry/segmentDistance';
 import { siteLocalFrame } from '../geo/siteLocalFrame';
 import { stratumUsableRegion } from '../site/stratumUsableRegion';
 import type { Site } from '../model/types';
+import { M2_PER_HA } from '../common/units';
 
 /** Settings of a trapping layout. */
 export interface TrapGridOptions {
@@ -178,7 +179,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
         break;
       }
     }
-    const areaHa = usableM2[s] / 10_000;
+    const areaHa = usableM2[s] / M2_PER_HA;
     stationsIn[s] = centres.length * rows * cols;
     const density = areaHa > 0 ? stationsIn[s] / areaHa : 0;
     let rank = 0;

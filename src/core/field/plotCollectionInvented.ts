@@ -1,5 +1,7 @@
+import { STRATPLOT_VERSION } from '../common/version';
 import { designSettingsDefault } from '../design/designSettingsDefault';
 import type { DesignSettings, Footprint, PlotCollection, PlotProperties } from '../model/designTypes';
+import { M2_PER_HA } from '../common/units';
 
 /** One stratum of an invented plot file. */
 export interface InventedStratum {
@@ -43,7 +45,7 @@ export function plotCollectionInvented(
         mgrs: '56JNP1000069000',
         nearest_exclusion_m: null,
         nearest_exclusion_kind: null,
-        design_density_per_ha: (s.primaries / basis) * 10_000,
+        design_density_per_ha: (s.primaries / basis) * M2_PER_HA,
       };
     };
     for (let i = 1; i <= s.primaries; i++) {
@@ -80,7 +82,7 @@ export function plotCollectionInvented(
       })),
       warnings: [],
       statements: ['Invented example: not a real site.'],
-      software: { name: 'stratplot', version: '0.1.0' },
+      software: { name: 'stratplot', version: STRATPLOT_VERSION },
     },
   };
 }

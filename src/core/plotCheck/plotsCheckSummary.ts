@@ -3,8 +3,9 @@ import { designUsableAreas } from '../design/designUsableAreas';
 import type { LocalFrame } from '../geo/localFrame';
 import type { PlotCheckRecord, StratumCheckRow } from './plotCheckTypes';
 import type { Site } from '../model/types';
+import { M2_PER_HA } from '../common/units';
 
-const ha = (m2: number): string => `${(m2 / 10_000).toFixed(2)} ha`;
+const ha = (m2: number): string => `${(m2 / M2_PER_HA).toFixed(2)} ha`;
 const plural = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
 const idList = (rs: readonly PlotCheckRecord[]): string => {
   const ids = rs.slice(0, 8).map((r) => r.id);

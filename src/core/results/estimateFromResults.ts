@@ -9,6 +9,7 @@ import { InputError } from '../common/InputError';
 import type { ResultKind } from '../model/designTypes';
 import { type ResultsTable, resultsReview } from './resultsCheck';
 import { stratumStats } from './stratumStats';
+import { M2_PER_HA } from '../common/units';
 
 /** One stratum's line of the estimate report. */
 export interface EstimateStratumRow {
@@ -149,7 +150,7 @@ export function estimateFromResults(plots: PlotCollection, table: ResultsTable, 
   const tot = scale ? estimateTotal(est, { plotAreaM2: scale.plotAreaM2 }) : null;
   if (!scale) warnings.push('no total: the plots are points, so a per-plot value has no area to scale by (give --per-ha if the values are densities per ha)');
   const f = scale?.factor ?? 1;
-  const areaHa = est.totalBasisM2 / 10_000;
+  const areaHa = est.totalBasisM2 / M2_PER_HA;
   return {
     variable: options.value,
     kind: options.kind,

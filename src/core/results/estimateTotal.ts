@@ -1,4 +1,5 @@
 import type { StratifiedEstimate } from './estimateStratifiedMean';
+import { M2_PER_HA } from '../common/units';
 
 /** A total over the basis area, from a stratified mean. */
 export interface TotalEstimate {
@@ -29,7 +30,7 @@ export interface TotalOptions {
  * @throws RangeError for a non-positive plot area (callers validate user input first)
  */
 export function estimateTotal(estimate: StratifiedEstimate, options: TotalOptions): TotalEstimate {
-  const areaHa = estimate.totalBasisM2 / 10_000;
+  const areaHa = estimate.totalBasisM2 / M2_PER_HA;
   if (options.plotAreaM2 !== null && !(options.plotAreaM2 > 0)) {
     throw new RangeError(`estimateTotal: plot area must be > 0 m², got ${options.plotAreaM2}`);
   }

@@ -1,5 +1,6 @@
 import { InputError } from '../common/InputError';
 import { tQuantile95 } from '../stats/tQuantile';
+import { M2_PER_HA } from '../common/units';
 
 /** Standard normal 0.975 quantile (t at infinite df). */
 const Z_95 = tQuantile95(Number.POSITIVE_INFINITY);
@@ -104,7 +105,7 @@ export function recaptureEffectiveAreaHa(
   let l2: number;
   if ('areaHa' in grid) {
     if (!(grid.areaHa > 0 && Number.isFinite(grid.areaHa))) throw new InputError(`grid area must be > 0 ha, got ${grid.areaHa}`);
-    l1 = l2 = Math.sqrt(grid.areaHa * 10_000);
+    l1 = l2 = Math.sqrt(grid.areaHa * M2_PER_HA);
   } else {
     if (!(grid.spacingM > 0 && Number.isFinite(grid.spacingM))) throw new InputError(`grid spacing must be > 0 m, got ${grid.spacingM}`);
     for (const [name, v] of [
@@ -118,5 +119,5 @@ export function recaptureEffectiveAreaHa(
   }
   const areaM2 = l1 * l2 + 2 * stripM * (l1 + l2) + Math.PI * stripM * stripM;
   if (!(areaM2 > 0)) throw new InputError('the effective area is 0: a single station needs a boundary strip wider than 0 m');
-  return areaM2 / 10_000;
+  return areaM2 / M2_PER_HA;
 }

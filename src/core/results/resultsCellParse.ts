@@ -1,4 +1,4 @@
-import { RESULT_KINDS, type ResultKind } from '../model/designTypes';
+import type { ResultKind } from '../model/designTypes';
 
 /** How a results table writes decimals: "3.5" or "3,5". */
 export type DecimalMark = '.' | ',';

@@ -2,7 +2,7 @@ import type { PlotCollection, PlotProperties } from '../model/designTypes';
 import { plotFieldStates } from '../field/plotFieldState';
 import { MAX_RESULT_MAGNITUDE } from '../common/inputLimits';
 import { type DecimalMark, resultsCellNumber, resultsCellPresence } from './resultsCellParse';
-import { type ResultKind } from '../model/designTypes';
+import type { ResultKind } from '../model/designTypes';
 import type { Problem } from '../model/types';
 
 /** One data row of a results table; `row` is the spreadsheet row number (the header is row 1). */

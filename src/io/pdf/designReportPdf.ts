@@ -9,6 +9,7 @@ import { rngVersionOf, rngVersionText } from '../../core/design/place/rngStreams
 import type { Site } from '../../core/model/types';
 import { coverMapDraw } from './coverMap';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
+import { M2_PER_HA } from '../../core/common/units';
 
 /** A table of results to print in the estimates section. */
 export interface ReportTable {
@@ -126,7 +127,7 @@ export function designReportPdf(given: PlotCollection, site: Site | null, option
 
   pdfHeading(pg, 'Strata and allocation', 30);
   const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
-  const ha = (m2: number) => (m2 / 10_000).toFixed(2);
+  const ha = (m2: number) => (m2 / M2_PER_HA).toFixed(2);
   const rows = d.allocation.map((r) => {
     const code = codeOf.get(r.stratum);
     return [code ? `${r.stratum} (${code})` : r.stratum, ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—'];

@@ -17,7 +17,7 @@ import { featuresToKml, featuresToKmz } from '../formats/kml/featuresToKml';
 import { featuresToShapefileFiles } from '../formats/shapefile/featuresToShapefileZip';
 import { fieldSheetsPdf } from '../pdf/fieldSheetsPdf';
 import { plotsToCsv } from './plotsToCsv';
-import { isRejectedPlot, navigationDescription, plotGpxLabels } from '../formats/gpx/plotsToGpx';
+import { isRejectedPlot, navigationDescription, plotGpxLabels } from './plotGpxLabels';
 import { shapefileCautionText } from './shapefileCautionText';
 import { siteLayers } from './siteLayers';
 

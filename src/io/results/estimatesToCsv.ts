@@ -1,5 +1,6 @@
 import type { EstimateReport } from '../../core/results/estimateFromResults';
 import { isFormulaStart } from '../common/csvCell';
+import { M2_PER_HA } from '../../core/common/units';
 
 export interface EstimatesCsvOptions {
   /** ',' (default) or ';' — use ';' with decimal commas, as spreadsheets in many locales expect. */
@@ -53,7 +54,7 @@ export function estimatesToCsv(report: EstimateReport, options: EstimatesCsvOpti
         sd: num(s.sd),
         se: num(s.se),
         weight: num(s.weight),
-        basis_ha: num(s.basis_m2 / 10_000),
+        basis_ha: num(s.basis_m2 / M2_PER_HA),
         sampling_fraction: num(s.sampling_fraction),
       }),
     );

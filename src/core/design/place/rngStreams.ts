@@ -1,5 +1,5 @@
 import { type Rng, rngCreateLegacy, rngStream } from './rng';
-import { type RngVersion } from '../../model/designTypes';
+import type { RngVersion } from '../../model/designTypes';
 
 /** The random streams of one design: one per purpose (method) and stratum. */
 export interface RngStreams {

@@ -1,9 +1,8 @@
 import type { Feature } from 'geojson';
-import type { PlotCollection, PlotProperties } from '../../../core/model/designTypes';
-import { FIELD_CAUTION } from '../../../core/field/fieldCaution';
-import { plotCollectionForField } from '../../../core/field/plotCollectionForField';
-import { plotFieldStateOf, plotFieldStateText, plotRejectionLines } from '../../../core/field/plotFieldState';
-import { featuresToGpx, type GpxLabels } from './featuresToGpx';
+import type { PlotCollection, PlotProperties } from '../../core/model/designTypes';
+import { FIELD_CAUTION } from '../../core/field/fieldCaution';
+import { plotFieldStateOf, plotFieldStateText, plotRejectionLines } from '../../core/field/plotFieldState';
+import type { GpxLabels } from '../formats/gpx/featuresToGpx';
 
 /**
  * What a plot's waypoint shows on a GPS unit: name = plot id, type = field state (primary,
@@ -29,23 +28,4 @@ export function isRejectedPlot(f: Feature): boolean {
 export function navigationDescription(collection: Pick<PlotCollection, 'features'>): string {
   const lines = plotRejectionLines(collection);
   return lines.length ? `${FIELD_CAUTION} Rejected plots, left out of this file: ${lines.join(' ')}` : FIELD_CAUTION;
-}
-
-/**
- * GPX 1.1 waypoints of a plot list for GPS units, labelled by {@link plotGpxLabels}. Rejected
- * plots are left out (a GPS must not lead anyone there); the file's description carries the
- * caution and lists them with their reasons. Reserves follow primaries in the file order given.
- * Returns UTF-8 XML text.
- */
-export function plotsToGpx(collection: PlotCollection, options: { name?: string; version?: string } = {}): string {
-  const field = plotCollectionForField(collection);
-  return featuresToGpx(
-    { type: 'FeatureCollection', features: field.features.filter((f) => !isRejectedPlot(f)) },
-    {
-      name: options.name ?? 'stratplot plots',
-      description: navigationDescription(collection),
-      creator: `stratplot ${options.version ?? collection.design?.software?.version ?? ''}`.trim(),
-      labels: (f) => plotGpxLabels(f.properties as PlotProperties),
-    },
-  );
 }

@@ -3,13 +3,18 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { FeatureCollection } from 'geojson';
-import { GPX_XSD } from '../../../../tests/schemas/paths';
+import { GPX_XSD } from '../../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
-import { plotCollectionForField } from '../../../core/field/plotCollectionForField';
-import { featuresToGpx } from './featuresToGpx';
-import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samplePlots } from '../../fixtures/ioSamples';
-import { parseGpx } from './parseGpx';
-import { plotsToGpx } from './plotsToGpx';
+import { plotCollectionForField } from '../../core/field/plotCollectionForField';
+import { featuresToGpx } from '../formats/gpx/featuresToGpx';
+import { NON_ASCII_NAMES, positionGapDeg, sampleExclusions, sampleFeatures, samplePlots } from '../fixtures/ioSamples';
+import { parseGpx } from '../formats/gpx/parseGpx';
+import { designOutputBytes } from './designOutput';
+
+/** The GPX the field kit writes for a plot list with no site: the real writer, not a copy. */
+async function fieldKitGpx(plots: ReturnType<typeof samplePlots>): Promise<string> {
+  return new TextDecoder().decode(await designOutputBytes('plots.gpx', plots));
+}
 
 // The GPX 1.1 schema as published by Topografix (copy in tests/schemas, see docs/references.md §9).
 const XSD = GPX_XSD;
@@ -26,13 +31,13 @@ function xmllint(text: string): string {
   }
 }
 
-describe('plotsToGpx', () => {
-  it('writes waypoints that validate against the GPX 1.1 schema with xmllint', () => {
-    expect(xmllint(plotsToGpx(samplePlots()))).toBe('valid');
+describe('the field-kit GPX of a plot list', () => {
+  it('writes waypoints that validate against the GPX 1.1 schema with xmllint', async () => {
+    expect(xmllint(await fieldKitGpx(samplePlots()))).toBe('valid');
   });
 
   it('labels each waypoint with plot id, field state, what to do, stratum and rank, and the notes', async () => {
-    const text = plotsToGpx(samplePlots());
+    const text = await fieldKitGpx(samplePlots());
     expect(text).toContain('<name>P001</name><cmt>primary 1: =HYPERLINK(&quot;http://example.invalid&quot;)</cmt><desc>Primary plot, rank 1: sample it. Stratum: Forêt humide.</desc><type>primary</type>');
     expect(text).toContain('<name>P002</name><cmt>primary 2: +1 steep</cmt><desc>Primary plot, rank 2: sample it. Stratum: Ngā otaota.</desc><type>primary</type>');
     expect(text).toContain('<name>P005</name><cmt>reserve 1: &#9;indented</cmt><desc>Reserve, rank 1, waiting: use it only to replace a rejected plot of its stratum, in rank order. Stratum: Ngā otaota.</desc><type>reserve</type>');
@@ -40,7 +45,7 @@ describe('plotsToGpx', () => {
 
   it('reads back the same coordinates and every plot attribute, notes with tab and CR included', async () => {
     const plots = samplePlots();
-    const back = await parseGpx('plots.gpx', new TextEncoder().encode(plotsToGpx(plots)));
+    const back = await parseGpx('plots.gpx', new TextEncoder().encode(await fieldKitGpx(plots)));
     expect(back.features).toHaveLength(plots.features.length);
     const field = plotCollectionForField(plots);
     back.features.forEach((f, i) => {
