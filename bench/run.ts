@@ -55,7 +55,7 @@ function enginePlace(site: Site, plots: number, spacingM: number, sideM: number,
   const h = site.strata.length;
   const wanted = site.strata.map((_, i) => Math.floor(plots / h) + (i < plots % h ? 1 : 0));
   const settings = designSettingsDefault({ plots, spacingM, footprint: { shape: 'square', sideM, angleDeg: 0 }, seed });
-  const p = designPlace(c, settings, wanted, wanted, wanted, rngStreams(seed, RNG_VERSION_CURRENT), {});
+  const p = designPlace(c, settings, { wanted, weights: wanted, basisM2: wanted, streams: rngStreams(seed, RNG_VERSION_CURRENT) });
   for (let i = 0; i < p.placed.x.length; i++) sink += p.placed.x[i] * 1e-9;
   return p.placed.x.length;
 }

@@ -19,6 +19,7 @@ import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsRead, importOption
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
 import { M2_PER_HA } from '../../core/common/units';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /** Exit status when at least one plot fails a check (0: every plot passes; 2: bad input). */
 export const CHECK_EXIT_FAILED = 4;
@@ -75,7 +76,7 @@ function distanceOption(v: string | undefined, name: string): number | undefined
 }
 
 function recordLine(r: PlotCheckRecord): string {
-  const where = r.stratum ? `${r.stratum.name} (${r.stratum.code})` : r.holeIn ? `in a hole in ${r.holeIn.name}` : 'no stratum';
+  const where = r.stratum ? stratumLabel(r.stratum.name, r.stratum.code) : r.holeIn ? `in a hole in ${r.holeIn.name}` : 'no stratum';
   const near = EXCLUSION_KINDS.flatMap((k) => (r.nearestByKind[k] ? [`${k} ${r.nearestByKind[k]!.distanceM.toFixed(1)} m`] : []));
   const route = r.access ? `; from ${r.access.accessPointName} ${r.access.distanceM.toFixed(0)} m at ${r.access.bearingTrueDeg.toFixed(1)}° true / ${r.access.bearingMagDeg.toFixed(1)}° magnetic` : '';
   const head = `${r.ok ? 'pass' : 'FAIL'} ${r.id} (${r.where}), ${where}${near.length ? `; nearest ${near.join(', ')}` : ''}${route}`;
@@ -84,7 +85,7 @@ function recordLine(r: PlotCheckRecord): string {
 
 function textReport(report: PlotsCheckReport, plotsFile: string, siteName: string): string {
   const head = ['stratum', 'usable ha', 'plots', 'passing', 'proportional'];
-  const rows = report.strata.map((s) => [`${s.name} (${s.code})`, (s.usableM2 / M2_PER_HA).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
+  const rows = report.strata.map((s) => [stratumLabel(s.name, s.code), (s.usableM2 / M2_PER_HA).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
   const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
   return [

@@ -29,6 +29,18 @@ function droppedWords(t: { excluded: number; nearEdge: number; tooClose: number 
   return `${t.excluded} on excluded ground (inside a buffered exclusion), ${t.nearEdge} with the footprint over the stratum edge or inside the edge buffer, ${t.tooClose} closer than the minimum spacing to another plot`;
 }
 
+/** What {@link designPlace} is asked to place, per stratum in site order. */
+export interface DesignPlaceRequest {
+  /** Primaries per stratum (ignored for grid and transect). */
+  wanted: readonly number[];
+  /** Allocation weights per stratum, for sharing a shortfall. */
+  weights: readonly number[];
+  /** Basis area per stratum (m²), for the default grid spacing. */
+  basisM2: readonly number[];
+  streams: RngStreams;
+  hooks?: PlacementHooks;
+}
+
 /**
  * Places the primaries and reserves of a design in stratum order. Random and balanced designs take
  * `wanted[h]` primaries per stratum by sequential inhibition; when a stratum gives up short, the
@@ -38,21 +50,10 @@ function droppedWords(t: { excluded: number; nearEdge: number; tooClose: number 
  * same process (random order for grid and transect: the offset positions shuffled). Each random
  * step draws from its own stream of `streams`: one per stratum for random and balanced placement and
  * for the reserve order, one for a grid's origin or the transects' start.
- * @param wanted primaries per stratum (ignored for grid and transect)
- * @param weights allocation weights per stratum, for sharing a shortfall
- * @param plotsHint total plots asked for, to choose a grid spacing when none is given
- * @param basisM2 basis area per stratum (m²), for the default grid spacing
  * Throws InputError from the layouts (bad grid spacing, baseline) and whatever `hooks.tick` throws.
  */
-export function designPlace(
-  c: PlacementConstraints,
-  s: DesignSettings,
-  wanted: readonly number[],
-  weights: readonly number[],
-  basisM2: readonly number[],
-  streams: RngStreams,
-  hooks: PlacementHooks,
-): DesignPlacement {
+export function designPlace(c: PlacementConstraints, s: DesignSettings, request: DesignPlaceRequest): DesignPlacement {
+  const { wanted, weights, basisM2, streams, hooks = {} } = request;
   const h = c.strata.length;
   let minX = Infinity;
   let minY = Infinity;
@@ -111,7 +112,7 @@ export function designPlace(
   for (let i = 0; i < h; i++) {
     // A layout keeps every position that fits, up to one past the limit so that an oversized one is caught.
     const count = fixedLayout ? MAX_DESIGN_PLOTS + 1 - placed.x.length : wanted[i];
-    const t = plotsPlaceSequential(c, i, count, primarySource(i), spacing, placed, false, hooks);
+    const t = plotsPlaceSequential(c, { stratum: i, count, source: primarySource(i), spacing, out: placed, role: 'primary', hooks });
     if (fixedLayout && placed.x.length > MAX_DESIGN_PLOTS) {
       throw limitExceeded(`the ${s.method} layout`, `it gives more than ${limitNumber(MAX_DESIGN_PLOTS)} plots`, `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design; use wider intervals`);
     }
@@ -157,7 +158,7 @@ export function designPlace(
       let got = 0;
       roomy.forEach((i, k) => {
         if (extra[k] === 0) return;
-        const t = plotsPlaceSequential(c, i, extra[k], primarySource(i), spacing, placed, false, hooks);
+        const t = plotsPlaceSequential(c, { stratum: i, count: extra[k], source: primarySource(i), spacing, out: placed, role: 'primary', hooks });
         primaries[i] += t.placed;
         got += t.placed;
         if (t.placed) moved.push(`${t.placed} to "${keys[i]}"`);
@@ -173,7 +174,7 @@ export function designPlace(
   hooks.tick?.();
   for (let i = 0; i < h; i++) {
     if (s.reservePerStratum === 0) break;
-    const t = plotsPlaceSequential(c, i, s.reservePerStratum, reserveSource(i), spacing, placed, true, hooks);
+    const t = plotsPlaceSequential(c, { stratum: i, count: s.reservePerStratum, source: reserveSource(i), spacing, out: placed, role: 'reserve', hooks });
     reserves[i] = t.placed;
     if (t.placed < s.reservePerStratum) {
       warnings.push(`stratum "${keys[i]}" has only ${t.placed} of ${s.reservePerStratum} reserve plots: there is no more room that meets the constraints.`);

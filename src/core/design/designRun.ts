@@ -83,9 +83,15 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const rngVersion = rngVersionOf(settings);
   const streams = rngStreams(settings.seed, rngVersion);
   let ticks = 0;
-  const placement = designPlace(constraints, settings, allocation?.plots ?? keys.map(() => 0), weights, basis, streams, {
-    tick: () => {
-      if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
+  const placement = designPlace(constraints, settings, {
+    wanted: allocation?.plots ?? keys.map(() => 0),
+    weights,
+    basisM2: basis,
+    streams,
+    hooks: {
+      tick: () => {
+        if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
+      },
     },
   });
   warnings.push(...placement.warnings);

@@ -1,8 +1,7 @@
 import type { PlotCollection } from '../model/designTypes';
-import { localFrameAt } from '../geo/localFrame';
 import { plotNavigation } from './plotNavigation';
 import { plotSafetyNotes, type SafetyThresholds } from './plotSafetyNotes';
-import { siteLocalFrame } from '../geo/siteLocalFrame';
+import { designFrame } from './designFrame';
 import type { Site } from '../model/types';
 
 export interface PlotsAnnotateOptions extends Partial<SafetyThresholds> {
@@ -40,11 +39,7 @@ export function plotsAnnotate(
 ): PlotCollection & { annotation: PlotsAnnotateInfo } {
   const targets = collection.features.map((f) => ({ id: f.properties.plot_id, lon: f.properties.lon, lat: f.properties.lat }));
   const date = options.surveyDate ?? new Date();
-  const frame = site.parts.length
-    ? siteLocalFrame(site.parts)
-    : targets.length
-      ? localFrameAt(targets[0].lon, targets[0].lat)
-      : undefined;
+  const frame = designFrame(collection, site) ?? undefined;
   const safety = plotSafetyNotes(targets, site, { ...options, frame });
   const nav = site.access.length
     ? plotNavigation(targets, site.access, { accessPointId: options.accessPointId, date, altitudeKm: options.altitudeKm })

@@ -43,8 +43,11 @@ export function localFrameAt(lon: number, lat: number): LocalFrame {
   if (!(lat >= -80 && lat <= 84) || !Number.isFinite(lon)) {
     throw new RangeError(`position ${lon}, ${lat} is outside the UTM latitude range (80°S to 84°N)`);
   }
-  const zone = utmZoneNumber(lon, lat);
-  const hemisphere = lat < 0 ? 'S' : 'N';
+  return localFrameOfZone(utmZoneNumber(lon, lat), lat < 0 ? 'S' : 'N');
+}
+
+/** The UTM frame of a zone (1–60) and hemisphere, as a design records it (see {@link localFrameAt}). */
+export function localFrameOfZone(zone: number, hemisphere: 'N' | 'S'): LocalFrame {
   const def = `+proj=utm +zone=${zone}${hemisphere === 'S' ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`;
   const projection = projectionFrom(def);
   return {
@@ -56,4 +59,12 @@ export function localFrameAt(lon: number, lat: number): LocalFrame {
     toXY: (lonDeg, latDeg) => projection.forward(lonDeg, latDeg) as unknown as XY,
     toLonLat: (x, y) => projection.inverse(x, y),
   };
+}
+
+/** The frame a design recorded as its EPSG code (32601–32660 north, 32701–32760 south), or null for any other code. */
+export function localFrameOfEpsg(epsg: number): LocalFrame | null {
+  const zone = epsg % 100;
+  const base = epsg - zone;
+  if (!(zone >= 1 && zone <= 60) || (base !== 32600 && base !== 32700)) return null;
+  return localFrameOfZone(zone, base === 32600 ? 'N' : 'S');
 }

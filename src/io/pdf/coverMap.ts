@@ -1,7 +1,7 @@
 import type { jsPDF } from 'jspdf';
 import type { PlotCollection } from '../../core/model/designTypes';
-import { type LocalFrame, localFrameAt } from '../../core/geo/localFrame';
-import { siteLocalFrame } from '../../core/geo/siteLocalFrame';
+import type { LocalFrame } from '../../core/geo/localFrame';
+import { designFrame } from '../../core/field/designFrame';
 import type { Exclusion, LonLat, Site } from '../../core/model/types';
 import { drawGridTicks, drawLegend, drawNorthArrow, drawScaleBar, niceStepM, type PageBox, trueNorthFromGridDeg } from './coverMapFurniture';
 import { plotFieldStates } from '../../core/field/plotFieldState';
@@ -53,13 +53,7 @@ export function coverMapDraw(
   marks: readonly CoverMapMark[] = [],
 ): CoverMapLayout {
   const plots = collection?.features ?? [];
-  const frame = site?.parts.length
-    ? siteLocalFrame(site.parts)
-    : plots.length
-      ? localFrameAt(plots[0].properties.lon, plots[0].properties.lat)
-      : site?.access.length
-        ? localFrameAt(site.access[0].lon, site.access[0].lat)
-        : null;
+  const frame = designFrame(collection, site);
   const map: PageBox = { x: box.x + TICK_MARGIN, y: box.y, w: box.w - TICK_MARGIN, h: box.h - LEGEND_H - TICK_MARGIN };
   doc.setDrawColor(0);
   doc.setTextColor(0);

@@ -10,6 +10,7 @@ import type { Site } from '../../core/model/types';
 import { coverMapDraw } from './coverMap';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
 import { M2_PER_HA } from '../../core/common/units';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /** A table of results to print in the estimates section. */
 export interface ReportTable {
@@ -130,7 +131,7 @@ export function designReportPdf(given: PlotCollection, site: Site | null, option
   const ha = (m2: number) => (m2 / M2_PER_HA).toFixed(2);
   const rows = d.allocation.map((r) => {
     const code = codeOf.get(r.stratum);
-    return [code ? `${r.stratum} (${code})` : r.stratum, ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—'];
+    return [stratumLabel(r.stratum, code), ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—'];
   });
   const sum = (f: (r: (typeof d.allocation)[number]) => number) => d.allocation.reduce((s, r) => s + f(r), 0);
   table(pg, ['Stratum', 'Mapped ha', 'Usable ha', 'Share', 'Plots', 'Reserves', 'Capacity'], rows, [

@@ -13,6 +13,7 @@ import { decimalDegreesText, declinationText, degreesMinutesText, mgrsSpacedText
 import { coverMapDraw } from './coverMap';
 import { fillGrey } from './coverMapSymbols';
 import { type Paper, type PdfPage, pdfPageAdd, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 export interface FieldSheetsOptions {
   paper: Paper;
@@ -91,7 +92,7 @@ export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options
   const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
   for (const p of sorted) {
     const code = p.stratum_code ?? codeOf.get(p.stratum);
-    const stratum = code ? `${p.stratum} (${code})` : p.stratum;
+    const stratum = stratumLabel(p.stratum, code);
     const state = stateOf(p);
     if (state.key === 'rejected') drawRejectedBlock(pg, p, state, stratum);
     else drawPlotBlock(pg, p, state, stratum, accessNames.get(p.access_point ?? '') ?? p.access_point ?? '', states);

@@ -12,6 +12,7 @@ import { drawPlotCheckSymbol } from '../pdf/coverMapSymbols';
 import type { PlotCheckReportMeta } from './plotCheckReportCsv';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageFrames, pdfPageStart, pdfText } from '../pdf/pdfPageKit';
 import { M2_PER_HA } from '../../core/common/units';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /** Options of {@link plotCheckReportPdf}. */
 export interface PlotCheckReportPdfOptions {
@@ -69,7 +70,7 @@ export function plotCheckReportPdf(report: PlotsCheckReport, site: Site, meta: P
   table(
     pg,
     ['Stratum', 'Usable ha', 'Sample plots', 'Passing', 'Proportional'],
-    report.strata.map((s) => [`${s.name} (${s.code})`, (s.usableM2 / M2_PER_HA).toFixed(2), s.plots, s.passing, s.proportional]),
+    report.strata.map((s) => [stratumLabel(s.name, s.code), (s.usableM2 / M2_PER_HA).toFixed(2), s.plots, s.passing, s.proportional]),
   );
   pdfText(pg, `Proportional: the ${report.counts.counted} sample plots shared in proportion to each stratum's usable area (mapped area less buffered exclusions), largest remainder.`, { size: 7.5, gapAfter: 2 });
 

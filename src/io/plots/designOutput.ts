@@ -20,6 +20,7 @@ import { plotsToCsv } from './plotsToCsv';
 import { isRejectedPlot, navigationDescription, plotGpxLabels } from './plotGpxLabels';
 import { shapefileCautionText } from './shapefileCautionText';
 import { siteLayers } from './siteLayers';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /** File extensions {@link designOutputBytes} writes, with what each holds. */
 export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
@@ -67,7 +68,7 @@ function gpxLabels(f: Feature, index: number): GpxLabels {
   if (typeof p.exclusion_id === 'string') {
     return { name: text(p.name) ?? `${p.kind} ${p.exclusion_id}`, desc: `keep out: ${p.kind}, buffer ${p.buffer_m} m`, type: `exclusion-${p.kind}`, cmt: text(p.notes) };
   }
-  if (typeof p.part_id === 'string') return { name: String(p.stratum), desc: `stratum ${p.stratum}${p.code ? ` (${p.code})` : ''}`, type: 'stratum' };
+  if (typeof p.part_id === 'string') return { name: String(p.stratum), desc: `stratum ${stratumLabel(String(p.stratum), p.code as string | undefined)}`, type: 'stratum' };
   return { name: `feature ${index + 1}` };
 }
 

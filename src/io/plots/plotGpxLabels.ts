@@ -3,6 +3,7 @@ import type { PlotCollection, PlotProperties } from '../../core/model/designType
 import { FIELD_CAUTION } from '../../core/field/fieldCaution';
 import { plotFieldStateOf, plotFieldStateText, plotRejectionLines } from '../../core/field/plotFieldState';
 import type { GpxLabels } from '../formats/gpx/featuresToGpx';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /**
  * What a plot's waypoint shows on a GPS unit: name = plot id, type = field state (primary,
@@ -15,7 +16,7 @@ export function plotGpxLabels(p: PlotProperties): GpxLabels {
   const key = p.field_state ?? state.key;
   const note = p.field_note ?? plotFieldStateText(p, state).note;
   const short = key === 'promoted' && p.replaces ? `promoted, replaces ${p.replaces}` : key === 'rejected' ? 'REJECTED' : key;
-  const stratum = `Stratum: ${p.stratum}${p.stratum_code ? ` (${p.stratum_code})` : ''}.`;
+  const stratum = `Stratum: ${stratumLabel(p.stratum, p.stratum_code)}.`;
   return { name: p.plot_id, desc: `${note} ${stratum}`, type: key, cmt: p.notes ? `${short} ${p.rank}: ${p.notes}` : `${short} ${p.rank}` };
 }
 

@@ -46,24 +46,32 @@ export interface PlacementHooks {
  */
 export const MAX_CONSECUTIVE_FAILURES = 20000;
 
+/** What one run of {@link plotsPlaceSequential} places, from where, and into what. */
+export interface SequentialRequest {
+  /** Index of the stratum in the constraints. */
+  stratum: number;
+  /** Plots wanted (Infinity: as many as fit, for grids and transects). */
+  count: number;
+  source: CandidateSource;
+  /** Every plot kept so far, of all strata, for the spacing rule. */
+  spacing: PlotSpacingHash;
+  /** Where kept plots are appended. */
+  out: PlacedPlots;
+  role: 'primary' | 'reserve';
+  hooks?: PlacementHooks;
+}
+
 /**
  * Sequential inhibition: takes candidates from `source` in order and keeps each one whose footprint
- * fits stratum `s` (inside it, edge buffer, clear of buffered exclusions) and lies at least the
+ * fits the request's stratum (inside it, edge buffer, clear of buffered exclusions) and lies at least the
  * spacing from every plot kept before, until `count` are kept. Gives up after
  * {@link MAX_CONSECUTIVE_FAILURES} refusals in a row or 10 000 + 1 000 · count candidates in all, so
  * it always ends; the tally says how many fit. Source: simple sequential inhibition (Diggle,
  * Statistical Analysis of Spatial Point Patterns, 2nd ed. 2003, §5.3 "SSI process").
  */
-export function plotsPlaceSequential(
-  c: PlacementConstraints,
-  s: number,
-  count: number,
-  source: CandidateSource,
-  spacing: PlotSpacingHash,
-  out: PlacedPlots,
-  reserve: boolean,
-  hooks: PlacementHooks = {},
-): PlacementTally {
+export function plotsPlaceSequential(c: PlacementConstraints, request: SequentialRequest): PlacementTally {
+  const { stratum: s, count, source, spacing, out, hooks = {} } = request;
+  const reserve = request.role === 'reserve';
   const tally: PlacementTally = { placed: 0, outside: 0, nearEdge: 0, excluded: 0, tooClose: 0, gaveUp: false };
   const xy = new Float64Array(2);
   const budget = Number.isFinite(count) ? 10000 + 1000 * count : Number.POSITIVE_INFINITY;
