@@ -2,6 +2,7 @@ import type { FeatureCollection } from 'geojson';
 import { limitExceeded, limitNumber, limitShown, limitText, MAX_ACCESS_POINTS, MAX_ID_LENGTH, MAX_NAME_LENGTH, MAX_NOTE_LENGTH } from '../../core/common/inputLimits';
 import { InputError } from '../../core/common/InputError';
 import type { AccessPoint } from '../../core/model/types';
+import { featureIdsUnique } from './featureIdsUnique';
 
 type AccessKind = AccessPoint['kind'];
 const ACCESS_KINDS: readonly AccessKind[] = ['car_park', 'gate', 'landing', 'other'];
@@ -34,12 +35,7 @@ export function accessFromFeatures(fc: FeatureCollection, options: { fileName: s
   if (fc.features.length > MAX_ACCESS_POINTS) {
     throw limitExceeded(file, `${limitNumber(fc.features.length)} access points`, `${limitNumber(MAX_ACCESS_POINTS)} access points`);
   }
-  const ids = fc.features.map((f) => {
-    const raw = f.id ?? f.properties?.id;
-    return typeof raw === 'string' || typeof raw === 'number' ? String(raw) : '';
-  });
-  const counts = new Map<string, number>();
-  for (const id of ids) if (id) counts.set(id, (counts.get(id) ?? 0) + 1);
+  const ids = featureIdsUnique(fc.features);
   return fc.features.map((f, i) => {
     if (f.geometry?.type !== 'Point') {
       throw new InputError(`${file}: feature ${i} is a ${f.geometry?.type ?? 'feature with no geometry'}; access points must be Point features`);
@@ -54,7 +50,7 @@ export function accessFromFeatures(fc: FeatureCollection, options: { fileName: s
     const [lon, lat] = f.geometry.coordinates;
     const at = `${file}: feature ${i}`;
     const point: AccessPoint = {
-      id: ids[i] && counts.get(ids[i]) === 1 ? limitText(ids[i], MAX_ID_LENGTH, at, 'its id') : `A${i + 1}`,
+      id: ids[i] ? limitText(ids[i], MAX_ID_LENGTH, at, 'its id') : `A${i + 1}`,
       name: typeof p.name === 'string' && p.name.trim() ? limitText(p.name.trim(), MAX_NAME_LENGTH, at, 'its name') : `Access ${i + 1}`,
       kind,
       lon,

@@ -2,6 +2,7 @@ import type { FeatureCollection } from 'geojson';
 import { limitExceeded, limitNumber, limitShown, limitText, MAX_BUFFER_M, MAX_ID_LENGTH, MAX_NAME_LENGTH, MAX_NOTE_LENGTH } from '../../core/common/inputLimits';
 import { InputError } from '../../core/common/InputError';
 import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type Exclusion, type ExclusionKind } from '../../core/model/types';
+import { featureIdsUnique } from './featureIdsUnique';
 
 /** Words accepted for each exclusion kind, compared case-insensitively with spaces/hyphens as "_". */
 const KIND_SYNONYMS: Record<string, ExclusionKind> = {
@@ -69,12 +70,7 @@ function bufferParse(file: string, index: number, value: unknown, kind: Exclusio
 export function exclusionsFromFeatures(fc: FeatureCollection, options: { fileName: string }): Exclusion[] {
   const file = options.fileName;
   const allowed = EXCLUSION_KINDS.join(', ');
-  const ids = fc.features.map((f) => {
-    const raw = f.id ?? f.properties?.id;
-    return typeof raw === 'string' || typeof raw === 'number' ? String(raw) : '';
-  });
-  const counts = new Map<string, number>();
-  for (const id of ids) if (id) counts.set(id, (counts.get(id) ?? 0) + 1);
+  const ids = featureIdsUnique(fc.features);
   return fc.features.map((f, i) => {
     const p = (f.properties ?? {}) as Record<string, unknown>;
     const type = f.geometry?.type ?? 'no geometry';
@@ -89,7 +85,7 @@ export function exclusionsFromFeatures(fc: FeatureCollection, options: { fileNam
     if (!kind) throw new InputError(`${file}: feature ${i}: unknown kind ${limitShown(rawKind)}; allowed kinds: ${allowed}`);
     const at = `${file}: feature ${i}`;
     const exclusion: Exclusion = {
-      id: ids[i] && counts.get(ids[i]) === 1 ? limitText(ids[i], MAX_ID_LENGTH, at, 'its id') : `X${i + 1}`,
+      id: ids[i] ? limitText(ids[i], MAX_ID_LENGTH, at, 'its id') : `X${i + 1}`,
       kind,
       geometry: f.geometry as Exclusion['geometry'],
       bufferM: bufferParse(file, i, p.buffer_m, kind),
