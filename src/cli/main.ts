@@ -1,5 +1,6 @@
 import { isInputError } from '../core/common/InputError';
 import { STRATPLOT_VERSION } from '../core/common/version';
+import { argsProblem } from './argsProblem';
 import { type CliIo, type Command, CommandStatus } from './command';
 import { COMMANDS } from './commands';
 
@@ -59,6 +60,11 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
     const fsError = fileSystemProblem(error, io.cwd);
     if (fsError) {
       fail(fsError);
+      return 2;
+    }
+    const args = argsProblem(error);
+    if (args) {
+      fail(`${args} (see stratplot ${name} --help)`);
       return 2;
     }
     const message = error instanceof Error ? error.message : String(error);

@@ -65,24 +65,12 @@ function areasText(t: StratumAreaTable): string {
 }
 
 function argsParse(argv: string[]) {
-  try {
-    return parseArgs({
-      args: argv,
-      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' }, ...IMPORT_FLAG_SPECS },
-      allowPositionals: true,
-      strict: true,
-    });
-  } catch (error) {
-    const e = error as Error & { code?: string };
-    const named = /'([^']+)'/.exec(e.message)?.[1] ?? '';
-    const what =
-      e.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION'
-        ? `unknown option ${named}`
-        : e.code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE'
-          ? `option ${named.split(' ')[0]} needs a value`
-          : e.message.split('\n')[0];
-    throw new InputError(`${what} (see stratplot areas --help)`);
-  }
+  return parseArgs({
+    args: argv,
+    options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' }, ...IMPORT_FLAG_SPECS },
+    allowPositionals: true,
+    strict: true,
+  });
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {

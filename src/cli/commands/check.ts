@@ -104,12 +104,7 @@ function textReport(report: PlotsCheckReport, plotsFile: string, siteName: strin
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {
-  let parsed: ReturnType<typeof parse>;
-  try {
-    parsed = parse(argv);
-  } catch (error) {
-    throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot check --help)`);
-  }
+  const parsed = parse(argv);
   const { values: o, positionals } = parsed;
   if (positionals.length !== 1) throw new InputError(`give exactly one plots file (got ${positionals.length}), e.g. stratplot check plots.gpx --strata strata.geojson`);
   if (!o.strata) throw new InputError('--strata FILE is required: plots are checked against the site it maps');

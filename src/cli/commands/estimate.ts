@@ -133,13 +133,7 @@ export const estimateCommand: Command = {
   summary: 'stratified estimates with 95 % CIs from field results',
   usage: USAGE,
   async run(argv, io) {
-    let parsed: ReturnType<typeof parseOptions>;
-    try {
-      parsed = parseOptions(argv);
-    } catch (error) {
-      if (error instanceof InputError) throw error;
-      throw new InputError(`${(error as Error).message} (see stratplot estimate --help)`);
-    }
+    const parsed = parseOptions(argv);
     const { values, positionals } = parsed;
     if (positionals.length !== 2) throw new InputError('give the plot file and the results CSV, e.g. stratplot estimate plots.geojson results.csv --value cover');
     if (!values.value) throw new InputError('--value FIELD is required: the results column to estimate');

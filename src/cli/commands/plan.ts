@@ -146,12 +146,7 @@ function summaryTable(c: PlotCollection): string {
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {
-  let parsed: ReturnType<typeof parse>;
-  try {
-    parsed = parse(argv);
-  } catch (error) {
-    throw new InputError((error as Error).message.split('\n')[0]);
-  }
+  const parsed = parse(argv);
   const { values: o, positionals } = parsed;
   if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot plan --help`);
   if (o.out !== undefined) {

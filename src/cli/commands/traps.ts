@@ -72,12 +72,7 @@ export const trapsCommand: Command = {
   summary: 'place mark–recapture trapping grids inside strata',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
-    let parsed: ReturnType<typeof parse>;
-    try {
-      parsed = parse(argv);
-    } catch (error) {
-      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot traps --help)`);
-    }
+    const parsed = parse(argv);
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot traps --help`);
     const imports = importFlagsRead(o);
