@@ -105,18 +105,8 @@ export function utmScaleFactor(x: number, latDeg: number): number {
   return 0.9996 * (1 + q / 2 + (q * q) / 24);
 }
 
-/**
- * Prepares a site for placement in `frame`: each stratum's triangles (earcut) and boundary segments
- * (edges shared by two parts of one stratum dropped), and every exclusion's segments, points and
- * polygons in flatbush indexes, boxes widened by the exclusion's buffer. Distances are planar in the
- * UTM frame and every ground distance (buffers, edge buffer, footprint size) is multiplied by the
- * largest point scale factor over the site, so a ground distance is never shorter than asked
- * (conservative by at most ~0.1 %). Footprint edges are turned by the meridian convergence so they
- * face TRUE north, not grid north.
- * Sources: planar distances (O'Rourke 1998, §1.5); scale factor (Snyder 1987, eq. 8-11).
- */
-export function placementConstraintsBuild(site: Site, frame: LocalFrame, options: PlacementConstraintOptions): PlacementConstraints {
-  const strata = stratumShapesXY(site, frame);
+/** The grid's scale and orientation at the strata: the largest UTM scale factor over their extent and the grid convergence. */
+function gridScaleAt(strata: readonly StratumShapeXY[], frame: LocalFrame): { scale: number; convergenceDeg: number; lat0: number } {
   let minX = Infinity;
   let maxX = -Infinity;
   let minY = Infinity;
@@ -133,9 +123,11 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
   const scale = Number.isFinite(minX) ? Math.max(utmScaleFactor(minX, lat0), utmScaleFactor(maxX, lat0), 1) : 1;
   const north = frame.toXY(lon0, lat0 + 1e-4);
   const convergenceDeg = (Math.atan2(north[0] - cx, north[1] - cy) * 180) / Math.PI;
-  const footprint = footprintShapeXY(options.footprint, scale, convergenceDeg);
-  const edgeGrid = options.edgeBufferM * scale;
+  return { scale, convergenceDeg, lat0 };
+}
 
+/** Every exclusion in the grid, flattened: buffered segments (points as zero-length ones) and polygons for containment, each with its index. */
+function exclusionsFlatXY(site: Site, frame: LocalFrame, scale: number) {
   // Exclusions, flattened: segments (points are zero-length segments) and polygons for containment.
   const segs: number[] = [];
   const segBuf: number[] = [];
@@ -216,6 +208,27 @@ export function placementConstraintsBuild(site: Site, frame: LocalFrame, options
     for (let i = 0; i < polyCount; i++) polyIndex.add(polyBoxes[i * 4], polyBoxes[i * 4 + 1], polyBoxes[i * 4 + 2], polyBoxes[i * 4 + 3]);
     polyIndex.finish();
   }
+
+  return { segArr, bufArr, nSeg, segKind, segOwner, segIndex, maxBuf, polyXYArr, ringsOf, polyOwner, polyIndex };
+}
+
+/**
+ * Prepares a site for placement in `frame`: each stratum's triangles (earcut) and boundary segments
+ * (edges shared by two parts of one stratum dropped), and every exclusion's segments, points and
+ * polygons in flatbush indexes, boxes widened by the exclusion's buffer. Distances are planar in the
+ * UTM frame and every ground distance (buffers, edge buffer, footprint size) is multiplied by the
+ * largest point scale factor over the site, so a ground distance is never shorter than asked
+ * (conservative by at most ~0.1 %). Footprint edges are turned by the meridian convergence so they
+ * face TRUE north, not grid north.
+ * Sources: planar distances (O'Rourke 1998, §1.5); scale factor (Snyder 1987, eq. 8-11).
+ */
+export function placementConstraintsBuild(site: Site, frame: LocalFrame, options: PlacementConstraintOptions): PlacementConstraints {
+  const strata = stratumShapesXY(site, frame);
+  const { scale, convergenceDeg, lat0 } = gridScaleAt(strata, frame);
+  const footprint = footprintShapeXY(options.footprint, scale, convergenceDeg);
+  const edgeGrid = options.edgeBufferM * scale;
+
+  const { segArr, bufArr, segKind, segOwner, segIndex, maxBuf, polyXYArr, ringsOf, polyOwner, polyIndex } = exclusionsFlatXY(site, frame, scale);
 
   const isInExclusionPolygon = (x: number, y: number): number => {
     if (!polyIndex) return -1;
