@@ -67,22 +67,8 @@ function whole(name: string, v: number, min: number, max = Number.POSITIVE_INFIN
   }
 }
 
-/**
- * Places trapping grids: in each stratum G grids of r × c stations `spacingM` apart, each grid's
- * whole outline inside its stratum (with the edge buffer) and clear of every exclusion widened by
- * its buffer, and every two grids at least `minSeparationM` apart outline to outline. Grid centres
- * are drawn uniformly over the stratum (the design engine's random candidates) and kept by
- * sequential inhibition (Diggle, Statistical Analysis of Spatial Point Patterns, 2nd ed. 2003,
- * section from memory: draw, reject on a constraint, repeat), a bounded number of tries per grid; grid rows face
- * true east turned by `angleDeg` (the UTM meridian convergence is allowed for). The grid outline is
- * tested as one rectangular footprint through the design engine's placement constraints, so the
- * ground between stations is checked too, not only the stations. Station ids are grid + row letter +
- * column, e.g. "G1-A03"; grids are numbered in stratum order. Seeded: same inputs, same layout.
- * @throws InputError for sizes that are not whole numbers, more than 26 rows, a spacing or
- *   separation that is not a number ≥ 0, an unknown stratum key in `gridsPerStratum`, or more
- *   stations in all than MAX_DESIGN_PLOTS
- */
-export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLayout {
+/** Refuses trap-grid options that cannot make a layout, naming the option: sizes, distances, grids per stratum and the station cap. */
+function trapGridOptionsCheck(site: Site, options: TrapGridOptions): void {
   const { rows, cols, spacingM, minSeparationM } = options;
   whole('rows', rows, 1, ROW_NAMES.length);
   whole('columns', cols, 1, 99);
@@ -106,19 +92,15 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   }
   const angleDeg = options.angleDeg ?? 0;
   if (!Number.isFinite(angleDeg)) throw new InputError(`grid angle must be a number of degrees, got ${angleDeg}`);
-  placementPolygonsCheck(site);
-  const frame = siteLocalFrame(site.parts);
-  const widthM = Math.max((cols - 1) * spacingM, 1e-3);
-  const heightM = Math.max((rows - 1) * spacingM, 1e-3);
-  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'rect', widthM, heightM, angleDeg }, edgeBufferM });
-  const outline = footprintShapeXY({ shape: 'rect', widthM, heightM, angleDeg }, c.scale, c.convergenceDeg);
-  const beta = ((angleDeg + c.convergenceDeg) * Math.PI) / 180;
-  const cosB = Math.cos(beta);
-  const sinB = Math.sin(beta);
-  const sepGrid = minSeparationM * c.scale;
+}
+
+/**
+ * The separation rule between trap grids: a hash of the grid centres placed so far, and whether a
+ * new centre keeps its whole outline at least `sepGrid` from every placed grid's outline.
+ */
+function trapGridSeparation(outline: { vx: Float64Array; vy: Float64Array }, cell: number, sepGrid: number) {
   // Grid hash of placed grid centres: two outlines closer than the separation have centres closer
   // than one outline diagonal plus the separation, so only the 3 × 3 neighbouring cells are looked at.
-  const cell = Math.hypot(widthM, heightM) * c.scale + sepGrid + 1e-6;
   const placed = new Map<string, [number, number][]>();
   const cellKey = (x: number, y: number) => `${Math.floor(x / cell)},${Math.floor(y / cell)}`;
   const outlineDistance = (ax: number, ay: number, bx: number, by: number): number => {
@@ -146,6 +128,49 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
     return true;
   };
 
+  const add = (x: number, y: number): void => {
+    const k = cellKey(x, y);
+    placed.set(k, [...(placed.get(k) ?? []), [x, y]]);
+  };
+  return { isFarFromGrids, add };
+}
+
+/**
+ * Places trapping grids: in each stratum G grids of r × c stations `spacingM` apart, each grid's
+ * whole outline inside its stratum (with the edge buffer) and clear of every exclusion widened by
+ * its buffer, and every two grids at least `minSeparationM` apart outline to outline. Grid centres
+ * are drawn uniformly over the stratum (the design engine's random candidates) and kept by
+ * sequential inhibition (Diggle, Statistical Analysis of Spatial Point Patterns, 2nd ed. 2003,
+ * section from memory: draw, reject on a constraint, repeat), a bounded number of tries per grid; grid rows face
+ * true east turned by `angleDeg` (the UTM meridian convergence is allowed for). The grid outline is
+ * tested as one rectangular footprint through the design engine's placement constraints, so the
+ * ground between stations is checked too, not only the stations. Station ids are grid + row letter +
+ * column, e.g. "G1-A03"; grids are numbered in stratum order. Seeded: same inputs, same layout.
+ * @throws InputError for sizes that are not whole numbers, more than 26 rows, a spacing or
+ *   separation that is not a number ≥ 0, an unknown stratum key in `gridsPerStratum`, or more
+ *   stations in all than MAX_DESIGN_PLOTS
+ */
+export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLayout {
+  const { rows, cols, spacingM, minSeparationM } = options;
+  trapGridOptionsCheck(site, options);
+  const edgeBufferM = options.edgeBufferM ?? 0;
+  const perStratum = options.gridsPerStratum;
+  const keys = site.strata.map((s) => s.key);
+  const angleDeg = options.angleDeg ?? 0;
+  placementPolygonsCheck(site);
+  const frame = siteLocalFrame(site.parts);
+  const widthM = Math.max((cols - 1) * spacingM, 1e-3);
+  const heightM = Math.max((rows - 1) * spacingM, 1e-3);
+  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'rect', widthM, heightM, angleDeg }, edgeBufferM });
+  const outline = footprintShapeXY({ shape: 'rect', widthM, heightM, angleDeg }, c.scale, c.convergenceDeg);
+  const beta = ((angleDeg + c.convergenceDeg) * Math.PI) / 180;
+  const cosB = Math.cos(beta);
+  const sinB = Math.sin(beta);
+  const sepGrid = minSeparationM * c.scale;
+  // Two outlines closer than the separation have centres closer than one outline diagonal plus the
+  // separation, so a hash of that cell size looks at 3 × 3 neighbouring cells only.
+  const separation = trapGridSeparation(outline, Math.hypot(widthM, heightM) * c.scale + sepGrid + 1e-6, sepGrid);
+
   const streams = rngStreams(options.seed, RNG_VERSION_CURRENT);
   const maxTries = options.maxTriesPerGrid ?? 4000;
   const features: Feature<Point, PlotProperties>[] = [];
@@ -166,10 +191,9 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
       for (let t = 0; t < maxTries && !found; t++) {
         if (!source.next(candidate)) break;
         const [x, y] = candidate;
-        if (c.check(s, x, y, source.insideByConstruction) !== FIT_OK || !isFarFromGrids(x, y)) continue;
+        if (c.check(s, x, y, source.insideByConstruction) !== FIT_OK || !separation.isFarFromGrids(x, y)) continue;
         centres.push([x, y]);
-        const k = cellKey(x, y);
-        placed.set(k, [...(placed.get(k) ?? []), [x, y]]);
+        separation.add(x, y);
         found = true;
       }
       if (!found) {
