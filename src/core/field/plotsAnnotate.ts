@@ -2,6 +2,7 @@ import type { PlotCollection } from '../model/designTypes';
 import { plotNavigation } from './plotNavigation';
 import { plotSafetyNotes, type SafetyThresholds } from './plotSafetyNotes';
 import { designFrame } from './designFrame';
+import type { LocalFrame } from '../geo/localFrame';
 import type { Site } from '../model/types';
 
 export interface PlotsAnnotateOptions extends Partial<SafetyThresholds> {
@@ -10,6 +11,8 @@ export interface PlotsAnnotateOptions extends Partial<SafetyThresholds> {
   /** Survey date for the magnetic declination (default: now). */
   surveyDate?: Date;
   altitudeKm?: number;
+  /** The frame to measure safety distances in (default: the design's recorded frame, designFrame). */
+  frame?: LocalFrame;
 }
 
 /** What the annotation found beyond the per-plot properties. */
@@ -39,7 +42,7 @@ export function plotsAnnotate(
 ): PlotCollection & { annotation: PlotsAnnotateInfo } {
   const targets = collection.features.map((f) => ({ id: f.properties.plot_id, lon: f.properties.lon, lat: f.properties.lat }));
   const date = options.surveyDate ?? new Date();
-  const frame = designFrame(collection, site) ?? undefined;
+  const frame = options.frame ?? designFrame(collection, site) ?? undefined;
   const safety = plotSafetyNotes(targets, site, { ...options, frame });
   const nav = site.access.length
     ? plotNavigation(targets, site.access, { accessPointId: options.accessPointId, date, altitudeKm: options.altitudeKm })

@@ -17,7 +17,7 @@ describe('coverMapDraw', () => {
       access: [{ id: 'A1', name: 'Gate', kind: 'gate', lon: 119.1, lat: -34.445 }],
     };
     const doc = new jsPDF({ unit: 'mm', format: 'a4' });
-    const layout = coverMapDraw(doc, null, site, box, pdfFontRegister(doc));
+    const layout = coverMapDraw(doc, box, { collection: null, site, font: pdfFontRegister(doc) });
     expect(layout.trueNorthDeg).toBeCloseTo(1.18816, 3);
     expect(layout.frame?.utmZone).toBe('50S');
   });
@@ -25,7 +25,7 @@ describe('coverMapDraw', () => {
   it('picks a round grid step and scale bar for the invented demo site', () => {
     const site = fieldKitSite();
     const doc = new jsPDF({ unit: 'mm', format: 'a4' });
-    const layout = coverMapDraw(doc, fieldKitPlots(site), site, box, pdfFontRegister(doc));
+    const layout = coverMapDraw(doc, box, { collection: fieldKitPlots(site), site, font: pdfFontRegister(doc) });
     expect([100, 200, 250, 500, 1000]).toContain(layout.gridStepM);
     expect([200, 250, 500, 1000, 2000]).toContain(layout.scaleBarM);
     // The demo site is about 2.6 km across; drawn on ~185 mm it must be at about 1:15 000.
@@ -35,7 +35,7 @@ describe('coverMapDraw', () => {
 
   it('draws an empty frame with a message when nothing is mapped', () => {
     const doc = new jsPDF({ unit: 'mm', format: 'a4' });
-    expect(coverMapDraw(doc, null, null, box, pdfFontRegister(doc)).frame).toBeNull();
+    expect(coverMapDraw(doc, box, { collection: null, site: null, font: pdfFontRegister(doc) }).frame).toBeNull();
   });
 });
 

@@ -29,6 +29,17 @@ export interface CoverMapLayout {
   trueNorthDeg: number;
 }
 
+/** What {@link coverMapDraw} draws. */
+export interface CoverMapContent {
+  collection: PlotCollection | null;
+  site: Site | null;
+  /** The export's frame (designFrame); worked out from the design and site when not given. */
+  frame?: LocalFrame | null;
+  /** Font family registered by pdfFontRegister. */
+  font: string;
+  marks?: readonly CoverMapMark[];
+}
+
 const LEGEND_H = 20;
 const TICK_MARGIN = 5;
 
@@ -42,18 +53,11 @@ const TICK_MARGIN = 5;
  * Positions are projected to the site's UTM zone (north up = grid north). `marks` are drawn over
  * the plots, labelled, and kept inside the map's extent.
  * @param box where to draw, mm; the legend strip takes the bottom 20 mm.
- * @param font family registered by pdfFontRegister.
  */
-export function coverMapDraw(
-  doc: jsPDF,
-  collection: PlotCollection | null,
-  site: Site | null,
-  box: PageBox,
-  font: string,
-  marks: readonly CoverMapMark[] = [],
-): CoverMapLayout {
+export function coverMapDraw(doc: jsPDF, box: PageBox, content: CoverMapContent): CoverMapLayout {
+  const { collection, site, font, marks = [] } = content;
   const plots = collection?.features ?? [];
-  const frame = designFrame(collection, site);
+  const frame = content.frame === undefined ? designFrame(collection, site) : content.frame;
   const map: PageBox = { x: box.x + TICK_MARGIN, y: box.y, w: box.w - TICK_MARGIN, h: box.h - LEGEND_H - TICK_MARGIN };
   doc.setDrawColor(0);
   doc.setTextColor(0);

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { sha256Hex } from '../../core/common/sha256';
 import { designReportPdf, INFERENCE_STATEMENT } from './designReportPdf';
 import { FIELD_KIT_RENAMED, fieldKitPlots, fieldKitSite } from '../fixtures/fieldKitSample';
+import { exportContext } from '../../core/field/exportContext';
 
 function extract(bytes: Uint8Array): { text: string; dir: string; file: string } {
   const dir = mkdtempSync(join(tmpdir(), 'stratplot-report-'));
@@ -33,7 +34,7 @@ describe('designReportPdf', () => {
       const site = fieldKitSite();
       const plots = fieldKitPlots(site);
       const hash = sha256Hex(JSON.stringify({ invented: 'plan' }));
-      const bytes = designReportPdf(plots, site, { paper, planFileSha256: hash, estimates, generatedAt: new Date(Date.UTC(2026, 2, 15)) });
+      const bytes = designReportPdf(exportContext(plots, site, { annotate: false }), { paper, planFileSha256: hash, estimates, generatedAt: new Date(Date.UTC(2026, 2, 15)) });
       const { text, dir, file } = extract(bytes);
       for (const name of Object.values(FIELD_KIT_RENAMED)) expect(text).toContain(name);
       expect(text).toContain(hash);
@@ -53,24 +54,24 @@ describe('designReportPdf', () => {
 
   it('says there are no estimates yet when none are given, and works without a site', () => {
     const plots = fieldKitPlots(fieldKitSite(), 1);
-    const { text } = extract(designReportPdf(plots, null, { paper: 'a4' }));
+    const { text } = extract(designReportPdf(exportContext(plots, null, { annotate: false }), { paper: 'a4' }));
     expect(text).toMatch(/No field results yet/);
     expect(text).toMatch(/not given/);
   });
 
   it('names the malformed part of the estimates and a bad hash', () => {
     const plots = fieldKitPlots(fieldKitSite(), 1);
-    expect(() => designReportPdf(plots, null, { paper: 'a4', planFileSha256: 'abc' })).toThrow(/64 hexadecimal digits/);
+    expect(() => designReportPdf(exportContext(plots, null, { annotate: false }), { paper: 'a4', planFileSha256: 'abc' })).toThrow(/64 hexadecimal digits/);
     const bad = [{ title: 'T', head: ['a', 'b'], rows: [[1]] }];
-    expect(() => designReportPdf(plots, null, { paper: 'a4', estimates: bad })).toThrow(/table 0 \("T"\), row 0: needs 2/);
-    expect(() => designReportPdf(plots, null, { paper: 'a4', estimates: 'x' })).toThrow(/list of tables/);
+    expect(() => designReportPdf(exportContext(plots, null, { annotate: false }), { paper: 'a4', estimates: bad })).toThrow(/table 0 \("T"\), row 0: needs 2/);
+    expect(() => designReportPdf(exportContext(plots, null, { annotate: false }), { paper: 'a4', estimates: 'x' })).toThrow(/list of tables/);
   });
 
   it('flags a plot file saved before generator versions were recorded as made with version 1', () => {
     const site = fieldKitSite();
     const plots = fieldKitPlots(site);
     const old = { ...plots, design: { ...plots.design, settings: { ...plots.design.settings, rngVersion: undefined } } };
-    const { text } = extract(designReportPdf(old, site, { paper: 'a4', generatedAt: new Date(Date.UTC(2026, 2, 15)) }));
+    const { text } = extract(designReportPdf(exportContext(old, site, { annotate: false }), { paper: 'a4', generatedAt: new Date(Date.UTC(2026, 2, 15)) }));
     expect(text).toContain('seed 20260315, generator version 1');
     expect(text).toContain('random generator version 1 (old streams');
   });

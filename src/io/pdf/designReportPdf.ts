@@ -3,14 +3,13 @@ import type { DesignSettings, PlotCollection } from '../../core/model/designType
 import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../../core/field/fieldCaution';
 import { footprintFormat } from '../../core/design/footprintParse';
 import { InputError } from '../../core/common/InputError';
-import { plotCollectionNamed } from '../../core/field/plotCollectionNamed';
 import { plotFieldStates, plotRejectionLines } from '../../core/field/plotFieldState';
 import { rngVersionOf, rngVersionText } from '../../core/design/place/rngStreams';
-import type { Site } from '../../core/model/types';
 import { coverMapDraw } from './coverMap';
 import { type Paper, type PdfPage, pdfHeading, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
 import { M2_PER_HA } from '../../core/common/units';
 import { stratumLabel } from '../../core/field/stratumLabel';
+import type { ExportContext } from '../../core/field/exportContext';
 
 /** A table of results to print in the estimates section. */
 export interface ReportTable {
@@ -105,13 +104,13 @@ export function reportTablesParse(estimates: unknown): ReportTable[] {
  * @returns the PDF as bytes.
  * @throws InputError for an unknown paper, a hash that is not 64 hex digits, or malformed estimates.
  */
-export function designReportPdf(given: PlotCollection, site: Site | null, options: DesignReportOptions): Uint8Array {
+export function designReportPdf(context: ExportContext, options: DesignReportOptions): Uint8Array {
   const hash = options.planFileSha256;
   if (hash !== undefined && !/^[0-9a-f]{64}$/i.test(hash)) {
     throw new InputError(`plan-file SHA-256 must be 64 hexadecimal digits, got "${hash.slice(0, 80)}"`);
   }
   const tables = reportTablesParse(options.estimates);
-  const collection = site ? plotCollectionNamed(given, site.strata) : given;
+  const { site, field: collection } = context;
   const d = collection.design;
   const siteName = site?.name ?? 'Unnamed site';
   const pg = pdfPageStart(options.paper, options.fontBytes, `Design report — ${siteName}`);
@@ -122,15 +121,14 @@ export function designReportPdf(given: PlotCollection, site: Site | null, option
   const mapH = Math.min(150, (pdfPageBottom(pg) - pg.y) * 0.62);
   const cautionW = 44;
   const mapW = pg.pageW - 2 * pg.margin - cautionW - 3;
-  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: mapW, h: mapH }, pg.font);
+  coverMapDraw(pg.doc, { x: pg.margin, y: pg.y, w: mapW, h: mapH }, { collection, site, frame: context.frame, font: pg.font });
   drawCautionBox(pg, pg.margin + mapW + 3, pg.y, cautionW, mapH);
   pg.y += mapH + 3;
 
   pdfHeading(pg, 'Strata and allocation', 30);
-  const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
   const ha = (m2: number) => (m2 / M2_PER_HA).toFixed(2);
   const rows = d.allocation.map((r) => {
-    const code = codeOf.get(r.stratum);
+    const code = context.codeOfStratum.get(r.stratum);
     return [stratumLabel(r.stratum, code), ha(r.mapped_m2), ha(r.usable_m2), `${(r.share * 100).toFixed(1)} %`, r.plots, r.reserve, r.capacity ?? '—'];
   });
   const sum = (f: (r: (typeof d.allocation)[number]) => number) => d.allocation.reduce((s, r) => s + f(r), 0);

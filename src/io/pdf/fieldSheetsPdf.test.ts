@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { fieldSheetsPdf } from './fieldSheetsPdf';
 import { FIELD_KIT_RENAMED, fieldKitPlots, fieldKitSite } from '../fixtures/fieldKitSample';
+import { exportContext } from '../../core/field/exportContext';
 
 const date = new Date(Date.UTC(2026, 2, 15));
 
@@ -21,7 +22,7 @@ describe('fieldSheetsPdf', () => {
     it(`prints every plot id, renders, and is ${paper} sized`, () => {
       const site = fieldKitSite();
       const plots = fieldKitPlots(site);
-      const bytes = fieldSheetsPdf(plots, site, { paper, surveyDate: date, accessPointId: 'access-north', dayBudgetM: 6000 });
+      const bytes = fieldSheetsPdf(exportContext(plots, site, { surveyDate: date, annotate: { accessPointId: 'access-north' } }), { paper, dayBudgetM: 6000 });
       const { text, dir, file } = pdfText(bytes);
       for (const f of plots.features) expect(text).toContain(f.properties.plot_id);
       for (const name of Object.values(FIELD_KIT_RENAMED)) expect(text).toContain(name);
@@ -40,7 +41,7 @@ describe('fieldSheetsPdf', () => {
 
   it('prints plots without a site, saying there is no navigation', () => {
     const plots = fieldKitPlots(fieldKitSite(), 1);
-    const { text } = pdfText(fieldSheetsPdf(plots, null, { paper: 'a4', surveyDate: date, siteName: 'Invented' }));
+    const { text } = pdfText(fieldSheetsPdf(exportContext(plots, null, { surveyDate: date }), { paper: 'a4', siteName: 'Invented' }));
     expect(text).toContain(plots.features[0].properties.plot_id);
     expect(text).toMatch(/no access point mapped/);
   });
@@ -48,7 +49,7 @@ describe('fieldSheetsPdf', () => {
   it('refuses an empty collection and an unknown paper with a clear message', () => {
     const site = fieldKitSite();
     const plots = fieldKitPlots(site);
-    expect(() => fieldSheetsPdf({ ...plots, features: [] }, site, { paper: 'a4' })).toThrow(/no plots/);
-    expect(() => fieldSheetsPdf(plots, site, { paper: 'a3' as 'a4' })).toThrow(/paper must be "a4" or "letter"/);
+    expect(() => fieldSheetsPdf(exportContext({ ...plots, features: [] }, site), { paper: 'a4' })).toThrow(/no plots/);
+    expect(() => fieldSheetsPdf(exportContext(plots, site), { paper: 'a3' as 'a4' })).toThrow(/paper must be "a4" or "letter"/);
   });
 });

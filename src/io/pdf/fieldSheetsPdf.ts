@@ -1,26 +1,21 @@
 import { crewBriefing } from '../../core/field/crewBriefing';
-import type { PlotCollection, PlotProperties } from '../../core/model/designTypes';
+import type { PlotProperties } from '../../core/model/designTypes';
 import { FIELD_CAUTION, FIELD_CAUTION_LINE } from '../../core/field/fieldCaution';
 import { InputError } from '../../core/common/InputError';
-import { plotCollectionNamed } from '../../core/field/plotCollectionNamed';
 import { type PlotFieldState, fieldTimeText, plotFieldStates, plotFieldStateText, plotRejectionLines } from '../../core/field/plotFieldState';
 import { magneticDeclination } from '../../core/geo/magneticDeclination';
-import { NOTES_SEPARATOR, plotsAnnotate } from '../../core/field/plotsAnnotate';
+import { NOTES_SEPARATOR, } from '../../core/field/plotsAnnotate';
 import { walkingOrder } from '../../core/field/walkingOrder';
 import { autoTable } from 'jspdf-autotable';
-import type { Site } from '../../core/model/types';
 import { decimalDegreesText, declinationText, degreesMinutesText, mgrsSpacedText, utmText } from '../common/coordinateText';
 import { coverMapDraw } from './coverMap';
 import { fillGrey } from './coverMapSymbols';
 import { type Paper, type PdfPage, pdfPageAdd, pdfPageBottom, pdfPageBytes, pdfPageEnsure, pdfPageFrames, pdfPageStart, pdfText } from './pdfPageKit';
 import { stratumLabel } from '../../core/field/stratumLabel';
+import type { ExportContext } from '../../core/field/exportContext';
 
 export interface FieldSheetsOptions {
   paper: Paper;
-  /** Day of the survey: printed, and used for the magnetic declination (default: today). */
-  surveyDate?: Date;
-  /** Access point every plot is measured from; each plot's nearest when absent. */
-  accessPointId?: string;
   siteName?: string;
   /** A TTF to embed instead of the bundled DejaVu Sans Condensed. */
   fontBytes?: Uint8Array;
@@ -44,13 +39,11 @@ const RECORD_FIELDS = ['Date, time', 'Observer(s)', 'Reached? yes / no, why not'
  * @returns the PDF file as bytes.
  * @throws InputError for an unknown paper or access point, or a collection without plots.
  */
-export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options: FieldSheetsOptions): Uint8Array {
-  const collection = site ? plotCollectionNamed(given, site.strata) : given;
+export function fieldSheetsPdf(context: ExportContext, options: FieldSheetsOptions): Uint8Array {
+  const { site, named: collection, surveyDate: date } = context;
   if (!collection.features.length) throw new InputError('the plot collection has no plots to print field sheets for');
-  const date = options.surveyDate ?? new Date();
   const siteName = options.siteName ?? site?.name ?? 'Unnamed site';
-  const annotated = site ? plotsAnnotate(collection, site, { accessPointId: options.accessPointId, surveyDate: date }) : null;
-  const plots = (annotated ?? collection).features.map((f) => f.properties);
+  const plots = context.annotated.features.map((f) => f.properties);
   const pg = pdfPageStart(options.paper, options.fontBytes, `Field sheets — ${siteName}`);
   const dateText = date.toISOString().slice(0, 10);
   const states = plotFieldStates(plots);
@@ -65,7 +58,7 @@ export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options
     `Survey date ${dateText} · ${count('primary') + promoted} plots to visit (${count('primary')} primary${promoted ? `, ${promoted} promoted reserve${promoted > 1 ? 's' : ''}` : ''}) · ${count('reserve')} reserves waiting${count('rejected') ? ` · ${count('rejected')} rejected` : ''} · design seed ${collection.design.seed}`,
     { size: 9, gapAfter: 2 },
   );
-  coverMapDraw(pg.doc, collection, site, { x: pg.margin, y: pg.y, w: pg.pageW - 2 * pg.margin, h: pdfPageBottom(pg) - pg.y - 22 }, pg.font);
+  coverMapDraw(pg.doc, { x: pg.margin, y: pg.y, w: pg.pageW - 2 * pg.margin, h: pdfPageBottom(pg) - pg.y - 22 }, { collection, site, frame: context.frame, font: pg.font });
   pg.y = pdfPageBottom(pg) - 20;
   if (decisions.length) pdfText(pg, `Do not visit: ${decisions.join(' ')}`, { size: 8, bold: true });
   pdfText(pg, 'Reserves replace a plot that cannot be reached safely: take the reserve of the same stratum with the lowest rank not yet used, and record why.', { size: 8 });
@@ -73,7 +66,7 @@ export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options
 
   pdfPageAdd(pg);
   const access = site?.access ?? [];
-  const declAt = access.find((a) => a.id === options.accessPointId) ?? access[0];
+  const declAt = access.find((a) => a.id === context.accessPointId) ?? access[0];
   const decl = declAt ? magneticDeclination([declAt.lat, declAt.lon], 0, date) : null;
   const briefing = crewBriefing(
     { name: siteName, exclusions: site?.exclusions ?? [], access },
@@ -89,9 +82,8 @@ export function fieldSheetsPdf(given: PlotCollection, site: Site | null, options
   pdfPageAdd(pg);
   const sorted = [...plots].sort((a, b) => a.stratum.localeCompare(b.stratum) || (a.role === b.role ? a.rank - b.rank : a.role === 'primary' ? -1 : 1));
   const accessNames = new Map(access.map((a) => [a.id, `${a.name} (${a.id})`]));
-  const codeOf = new Map((site?.strata ?? []).map((s) => [s.label, s.code]));
   for (const p of sorted) {
-    const code = p.stratum_code ?? codeOf.get(p.stratum);
+    const code = p.stratum_code ?? context.codeOfStratum.get(p.stratum);
     const stratum = stratumLabel(p.stratum, code);
     const state = stateOf(p);
     if (state.key === 'rejected') drawRejectedBlock(pg, p, state, stratum);

@@ -44,7 +44,7 @@ export function plotCheckReportPdf(report: PlotsCheckReport, site: Site, meta: P
   const marks = plotCheckRecordsBySeverity(report.plots)
     .reverse()
     .map((r) => ({ lon: r.lon, lat: r.lat, label: r.id, draw: (doc: typeof pg.doc, x: number, y: number) => drawPlotCheckSymbol(doc, r.ok ? 'pass' : 'fail', x, y, 1.5) }));
-  coverMapDraw(pg.doc, options.design ?? null, site, { x: pg.margin, y: pg.y, w: mapW, h: mapH }, pg.font, marks);
+  coverMapDraw(pg.doc, { x: pg.margin, y: pg.y, w: mapW, h: mapH }, { collection: options.design ?? null, site, font: pg.font, marks });
   sideBox(pg, pg.margin + mapW + 3, pg.y, cautionW);
   pg.y += mapH + 3;
 

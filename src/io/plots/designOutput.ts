@@ -4,10 +4,8 @@ import type { SqlJsStatic } from 'sql.js';
 import type { PlotCollection, PlotProperties } from '../../core/model/designTypes';
 import { FIELD_CAUTION } from '../../core/field/fieldCaution';
 import { InputError, isInputError } from '../../core/common/InputError';
-import { plotCollectionForField } from '../../core/field/plotCollectionForField';
-import { plotCollectionNamed } from '../../core/field/plotCollectionNamed';
 import { plotRejectionLines } from '../../core/field/plotFieldState';
-import { type PlotsAnnotateOptions, plotsAnnotate } from '../../core/field/plotsAnnotate';
+import type { PlotsAnnotateOptions, } from '../../core/field/plotsAnnotate';
 import type { Site } from '../../core/model/types';
 import { designReportPdf } from '../pdf/designReportPdf';
 import { featuresToGeoJson } from '../formats/geojson/featuresToGeoJson';
@@ -21,6 +19,7 @@ import { isRejectedPlot, navigationDescription, plotGpxLabels } from './plotGpxL
 import { shapefileCautionText } from './shapefileCautionText';
 import { siteLayers } from './siteLayers';
 import { stratumLabel } from '../../core/field/stratumLabel';
+import { exportContext } from '../../core/field/exportContext';
 
 /** File extensions {@link designOutputBytes} writes, with what each holds. */
 export const DESIGN_OUTPUT_FORMATS: Record<string, string> = {
@@ -54,10 +53,6 @@ export interface DesignOutputOptions {
    * not annotated twice.
    */
   annotate?: Omit<PlotsAnnotateOptions, 'surveyDate'> | false;
-}
-
-function isAnnotated(collection: PlotCollection): boolean {
-  return 'annotation' in collection || collection.features.some((f) => f.properties.distance_m !== undefined);
 }
 
 function gpxLabels(f: Feature, index: number): GpxLabels {
@@ -116,13 +111,8 @@ export async function designOutputBytes(
 
 async function designOutputUnchecked(fileName: string, plots: PlotCollection, site: Site | undefined, options: DesignOutputOptions): Promise<Uint8Array> {
   const enc = new TextEncoder();
-  const named = site ? plotCollectionNamed(plots, site.strata) : plots;
-  // Field files carry each plot's route and safety notes; the field sheets annotate for themselves.
-  const annotated =
-    site && options.annotate !== false && options.pdf !== 'sheets' && !isAnnotated(named)
-      ? plotsAnnotate(named, site, { ...(options.annotate || {}), surveyDate: options.surveyDate })
-      : named;
-  const collection = plotCollectionForField(annotated);
+  const context = exportContext(plots, site ?? null, { surveyDate: options.surveyDate, annotate: options.annotate });
+  const collection = context.field;
   const layers = siteLayers(collection, site);
   const name = options.name ?? site?.name ?? 'stratplot design';
   const ext = extensionOf(fileName);
@@ -153,13 +143,8 @@ async function designOutputUnchecked(fileName: string, plots: PlotCollection, si
       return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit, description: gpkgDescription(collection) });
     case 'pdf':
       return options.pdf === 'sheets'
-        ? fieldSheetsPdf(named, site ?? null, {
-            paper: options.paper ?? 'a4',
-            surveyDate: options.surveyDate,
-            siteName: site?.name,
-            accessPointId: options.annotate ? options.annotate.accessPointId : undefined,
-          })
-        : designReportPdf(collection, site ?? null, { paper: options.paper ?? 'a4' });
+        ? fieldSheetsPdf(context, { paper: options.paper ?? 'a4', siteName: site?.name })
+        : designReportPdf(context, { paper: options.paper ?? 'a4' });
     default:
       throw new InputError(
         `${fileName}: cannot tell the export format from the extension${ext ? ` ".${ext}"` : ''}; use one of ${Object.keys(DESIGN_OUTPUT_FORMATS)

@@ -6,6 +6,7 @@ import { recaptureEstimate } from '../../core/results/recapture';
 import { designReportEstimates } from './designReportEstimates';
 import { designReportPdf, reportTablesParse } from '../pdf/designReportPdf';
 import { parseResultsCsv } from './parseResultsCsv';
+import { exportContext } from '../../core/field/exportContext';
 
 // Invented plot file (not a real site): 10 m square plots.
 const plots = plotCollectionInvented([
@@ -35,7 +36,7 @@ describe('designReportEstimates', () => {
     expect(tables[0].notes).toContain(report.population);
     expect(tables[1].rows.map((r) => r[0])).toEqual(['proportional', 'neyman']);
     expect(tables[2].rows[0].slice(0, 3)).toEqual(['North grid', '2390', '2383']);
-    const pdf = designReportPdf(plots, null, { paper: 'a4', estimates: tables, generatedAt: new Date('2026-01-01T00:00:00Z') });
+    const pdf = designReportPdf(exportContext(plots, null, { annotate: false }), { paper: 'a4', estimates: tables, generatedAt: new Date('2026-01-01T00:00:00Z') });
     expect(new TextDecoder().decode(pdf.slice(0, 5))).toBe('%PDF-');
   });
 
