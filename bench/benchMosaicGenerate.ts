@@ -1,5 +1,5 @@
 import type { Feature, FeatureCollection, Position } from 'geojson';
-import { rngCreate, type Rng } from '../src/core/rng';
+import { rngCreate, type Rng } from '../src/core/design/place/rng';
 import type { BenchSite } from './benchSiteGenerate';
 
 const COLS = 8;

@@ -1,5 +1,5 @@
 import type { Feature, FeatureCollection } from 'geojson';
-import { rngCreate } from '../src/core/rng';
+import { rngCreate } from '../src/core/design/place/rng';
 
 /** An invented benchmark site as GeoJSON layers: strata, and exclusion lines, polygons and points. */
 export interface BenchSite {

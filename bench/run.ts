@@ -6,25 +6,25 @@ import { fileURLToPath } from 'node:url';
 import * as turf from '@turf/turf';
 import geodesic from 'geographiclib-geodesic';
 import type { Feature, LineString, Point, Polygon } from 'geojson';
-import { designPlace } from '../src/core/designPlace';
-import { designUsableAreas } from '../src/core/designUsableAreas';
-import { designSettingsDefault } from '../src/core/designSettingsDefault';
-import { geodesicRingAreaM2 } from '../src/core/geodesicRingAreaM2';
-import { placementConstraintsBuild } from '../src/core/placementConstraints';
-import { RNG_VERSION_CURRENT, rngCreate } from '../src/core/rng';
-import { rngStreams } from '../src/core/rngStreams';
-import { siteLocalFrame } from '../src/core/siteLocalFrame';
-import { polygonSelfIntersections } from '../src/core/polygonSelfIntersections';
-import { siteValidate } from '../src/core/siteValidate';
-import { stratumUsableRegion } from '../src/core/stratumUsableRegion';
-import { utmForwardArray } from '../src/core/utmForwardArray';
-import type { Site } from '../src/core/types';
-import { exclusionsFromFeatures } from '../src/io/exclusionsFromFeatures';
-import { strataFromFeatures } from '../src/io/strataFromFeatures';
+import { designPlace } from '../src/core/design/designPlace';
+import { designUsableAreas } from '../src/core/design/designUsableAreas';
+import { designSettingsDefault } from '../src/core/design/designSettingsDefault';
+import { geodesicRingAreaM2 } from '../src/core/geo/geodesicRingAreaM2';
+import { placementConstraintsBuild } from '../src/core/design/place/placementConstraints';
+import { RNG_VERSION_CURRENT, rngCreate } from '../src/core/design/place/rng';
+import { rngStreams } from '../src/core/design/place/rngStreams';
+import { siteLocalFrame } from '../src/core/geo/siteLocalFrame';
+import { polygonSelfIntersections } from '../src/core/geometry/polygonSelfIntersections';
+import { siteValidate } from '../src/core/site/siteValidate';
+import { stratumUsableRegion } from '../src/core/site/stratumUsableRegion';
+import { utmForwardArray } from '../src/core/geo/utmForwardArray';
+import type { Site } from '../src/core/model/types';
+import { exclusionsFromFeatures } from '../src/io/site/exclusionsFromFeatures';
+import { strataFromFeatures } from '../src/io/site/strataFromFeatures';
 import { benchMosaicGenerate } from './benchMosaicGenerate';
 import { type BenchSite, benchSiteGenerate } from './benchSiteGenerate';
-import { strataOverlaps } from '../src/core/strataOverlaps';
-import { strataOverlapsByClipping } from '../src/core/strataOverlapsByClipping';
+import { strataOverlaps } from '../src/core/site/strataOverlaps';
+import { strataOverlapsByClipping } from '../src/core/site/strataOverlapsByClipping';
 
 // Seeded benchmarks of the design engine (invented sites, see benchSiteGenerate). Prints times and
 // ratios; nothing here asserts an absolute time.
@@ -54,7 +54,7 @@ function enginePlace(site: Site, plots: number, spacingM: number, sideM: number,
   const h = site.strata.length;
   const wanted = site.strata.map((_, i) => Math.floor(plots / h) + (i < plots % h ? 1 : 0));
   const settings = designSettingsDefault({ plots, spacingM, footprint: { shape: 'square', sideM, angleDeg: 0 }, seed });
-  const p = designPlace(c, settings, wanted, wanted, wanted, rngStreams(seed, RNG_VERSION_CURRENT), {});
+  const p = designPlace(c, settings, { wanted, weights: wanted, basisM2: wanted, streams: rngStreams(seed, RNG_VERSION_CURRENT) });
   for (let i = 0; i < p.placed.x.length; i++) sink += p.placed.x[i] * 1e-9;
   return p.placed.x.length;
 }

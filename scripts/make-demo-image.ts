@@ -7,8 +7,8 @@ import { resolve } from 'node:path';
 import type { FeatureCollection, LineString, MultiPolygon, Polygon, Position } from 'geojson';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
-import { localFrameAt } from '../src/core/localFrame';
-import { geotiffWrite } from '../src/io/geotiffWrite';
+import { localFrameAt } from '../src/core/geo/localFrame';
+import { geotiffWrite } from '../src/io/formats/raster/geotiffWrite';
 import { chamferDistanceM, fillRings, strokeLinePx } from './demo/raster';
 import { valueNoise } from './demo/valueNoise';
 

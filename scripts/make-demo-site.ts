@@ -8,7 +8,7 @@ import { resolve } from 'node:path';
 import * as polyclip from 'polyclip-ts';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
-import { localFrameAt } from '../src/core/localFrame';
+import { localFrameAt } from '../src/core/geo/localFrame';
 import { ringsWeld } from './demo/ringsWeld';
 import { cutAtLength, insideRing, lengthM, type P, type Ring, sliceByX, wobblyLoop as loopR, wobblyPath as pathR } from './demo/shapesXY';
 

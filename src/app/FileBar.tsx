@@ -1,5 +1,5 @@
 import { useEffect, useId, useRef, useState } from 'react';
-import type { PlanFile } from '../core/designTypes';
+import type { PlanFile } from '../state/planFileTypes';
 import { planFileFromState, planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
 import { planReplace } from '../state/planReplace';
 import { resultsSnapshotTake } from '../state/resultsSnapshot';

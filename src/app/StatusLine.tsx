@@ -1,6 +1,6 @@
 import { useEffect, useState } from 'react';
-import { type LocalFrame, localFrameAt } from '../core/localFrame';
-import { stratumNamesInText } from '../core/stratumNamesInText';
+import { type LocalFrame, localFrameAt } from '../core/geo/localFrame';
+import { stratumNamesInText } from '../core/field/stratumNamesInText';
 import { mapWhenReady } from './map/mapHandle';
 import { plannerStore } from './plannerStoreInstance';
 import { usePlanner } from './usePlanner';

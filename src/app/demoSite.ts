@@ -1,11 +1,11 @@
 import type { Geometry, LineString } from 'geojson';
-import type { DesignSettings } from '../core/designTypes';
-import { designSettingsDefault } from '../core/designSettingsDefault';
-import type { AreaGeometry, Site } from '../core/types';
-import { accessFromFeatures } from '../io/accessFromFeatures';
-import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
-import { parseFeatureFile } from '../io/parseFeatureFile';
-import { strataFromFeatures } from '../io/strataFromFeatures';
+import type { DesignSettings } from '../core/model/designTypes';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
+import type { AreaGeometry, Site } from '../core/model/types';
+import { accessFromFeatures } from '../io/site/accessFromFeatures';
+import { exclusionsFromFeatures } from '../io/site/exclusionsFromFeatures';
+import { parseFeatureFile } from '../io/site/parseFeatureFile';
+import { strataFromFeatures } from '../io/site/strataFromFeatures';
 import accessText from '../../demo-maps/ochre-spit-access.geojson?raw';
 import baselineText from '../../demo-maps/ochre-spit-baseline.geojson?raw';
 import boundaryText from '../../demo-maps/ochre-spit-boundary.geojson?raw';

@@ -1,4 +1,4 @@
-import { countNoun } from '../core/countNoun';
+import { countNoun } from '../core/common/countNoun';
 import * as Comlink from 'comlink';
 import { designResultSet } from '../state/designActions';
 import { plannerStore } from './plannerStoreInstance';

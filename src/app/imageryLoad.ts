@@ -1,5 +1,5 @@
 import * as Comlink from 'comlink';
-import type { RgbaRaster, WarpedImage } from '../io/rasterWarpToMercator';
+import type { RgbaRaster, WarpedImage } from '../io/formats/raster/rasterWarpToMercator';
 import demoAerialUrl from '../../demo-maps/ochre-spit-aerial.tif?url';
 import { imageryShow } from './map/imageryControl';
 import { mapHandle } from './map/mapHandle';

@@ -1,4 +1,4 @@
-import { designSettingsDefault } from '../core/designSettingsDefault';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
 import { plannerStoreCreate } from '../state/plannerStore';
 
 /** The one planner store of the page. */

@@ -1,5 +1,5 @@
 import * as Comlink from 'comlink';
-import type { Site } from '../core/types';
+import type { Site } from '../core/model/types';
 import type { PlannerWorkerApi } from '../worker/plannerWorker';
 import { plannerStore } from './plannerStoreInstance';
 

@@ -1,5 +1,5 @@
-import type { StratumAreaTable } from '../core/stratumAreaTable';
-import type { Site } from '../core/types';
+import type { StratumAreaTable } from '../core/design/stratumAreaTable';
+import type { Site } from '../core/model/types';
 import { usePlanner } from './usePlanner';
 
 /** The site's area table from the latest analysis; `current` is false while a newer site is being measured. */

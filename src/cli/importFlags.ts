@@ -1,8 +1,8 @@
 import type { FeatureCollection } from 'geojson';
-import { InputError, isInputError } from '../core/InputError';
-import { crsResolveEpsg } from '../io/crsResolve';
-import { dbfEncodingLabel } from '../io/dbfRead';
-import { type FeatureFileOptions, parseFeatureFile } from '../io/parseFeatureFile';
+import { InputError, isInputError } from '../core/common/InputError';
+import { crsResolveEpsg } from '../io/crs/crsResolve';
+import { dbfEncodingLabel } from '../io/formats/shapefile/dbfRead';
+import { type FeatureFileOptions, parseFeatureFile } from '../io/site/parseFeatureFile';
 
 /** parseArgs option specs of the flags that say how to read a map file; spread into a command's options. */
 export const IMPORT_FLAG_SPECS = {

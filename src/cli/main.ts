@@ -1,8 +1,10 @@
-import { isInputError } from '../core/InputError';
+import { isInputError } from '../core/common/InputError';
+import { STRATPLOT_VERSION } from '../core/common/version';
+import { argsProblem } from './argsProblem';
 import { type CliIo, type Command, CommandStatus } from './command';
 import { COMMANDS } from './commands';
 
-const VERSION = '0.1.0';
+const VERSION = STRATPLOT_VERSION;
 
 function help(): string {
   const rows = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
@@ -58,6 +60,11 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
     const fsError = fileSystemProblem(error, io.cwd);
     if (fsError) {
       fail(fsError);
+      return 2;
+    }
+    const args = argsProblem(error);
+    if (args) {
+      fail(`${args} (see stratplot ${name} --help)`);
       return 2;
     }
     const message = error instanceof Error ? error.message : String(error);

@@ -1,7 +1,7 @@
 import { readFile, stat } from 'node:fs/promises';
 import { resolve } from 'node:path';
-import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../core/inputLimits';
-import { InputError } from '../core/InputError';
+import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../core/common/inputLimits';
+import { InputError } from '../core/common/InputError';
 import type { CliIo } from './command';
 
 /**

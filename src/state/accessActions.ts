@@ -1,5 +1,5 @@
-import { InputError } from '../core/InputError';
-import type { AccessPoint } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import type { AccessPoint } from '../core/model/types';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
 

@@ -1,5 +1,6 @@
-import type { DesignSettings, PlanFile, PlanFileDocument } from '../core/designTypes';
-import { InputError } from '../core/InputError';
+import type { DesignSettings } from '../core/model/designTypes';
+import type { PlanFile, PlanFileDocument } from './planFileTypes';
+import { InputError } from '../core/common/InputError';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';

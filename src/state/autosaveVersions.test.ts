@@ -1,7 +1,7 @@
 import { planFileOf } from './planFile';
 import { describe, expect, it } from 'vitest';
-import { designSettingsDefault } from '../core/designSettingsDefault';
-import type { PlanFile } from '../core/designTypes';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
+import type { PlanFile } from './planFileTypes';
 import { AUTOSAVE_KEY, AUTOSAVE_UNREADABLE_KEY, type AutosaveStorage, autosaveRestore, autosaveStart } from './autosave';
 import { VERSIONS_KEY, workVersionRead, workVersionsKeeper, workVersionsList } from './autosaveVersions';
 import { planReplace } from './planReplace';

@@ -1,8 +1,8 @@
-import { countNoun } from '../core/countNoun';
-import type { PlanFile, PlanFileDocument } from '../core/designTypes';
-import { plotRejections } from '../core/plotFieldState';
-import { InputError } from '../core/InputError';
-import { sha256Hex } from '../core/sha256';
+import { countNoun } from '../core/common/countNoun';
+import type { PlanFile, PlanFileDocument } from './planFileTypes';
+import { plotRejections } from '../core/field/plotFieldState';
+import { InputError } from '../core/common/InputError';
+import { sha256Hex } from '../core/common/sha256';
 import { planFileParse } from './planFile';
 
 /** The key-value calls the kept versions need (idb-keyval's get/set/del in the browser). */
@@ -35,7 +35,7 @@ export interface WorkVersion {
 type KeptPlan = PlanFile | PlanFileDocument;
 
 /** What a plan holds, in a few words (for the list of kept versions). */
-export function planSummary(plan: KeptPlan): string {
+function planSummary(plan: KeptPlan): string {
   const s = plan.site;
   const parts = [countNoun(s.strata.length, 'stratum', 'strata'), countNoun(s.exclusions.length, 'exclusion'), countNoun(s.access.length, 'access point')];
   const out = [parts.join(', ')];

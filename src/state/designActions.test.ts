@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { designRun } from '../core/designRun';
-import { designSettingsDefault } from '../core/designSettingsDefault';
+import { designRun } from '../core/design/designRun';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
 import { designResultSet, designSettingsSet } from './designActions';
 import { historyUndo } from './historyActions';
 import { plannerStoreCreate } from './plannerStore';
-import { plotRejections } from '../core/plotFieldState';
+import { plotRejections } from '../core/field/plotFieldState';
 import { plotReject } from './plotReject';
 import { plotRestore } from './plotRestore';
 import { stratumPartAdd } from './strataActions';
@@ -26,8 +26,8 @@ function designedStore() {
 describe('design and field decisions in the planner store', () => {
   it('refuses settings that make no sense, saying which and why', () => {
     const store = plannerStoreCreate(designSettingsDefault());
-    expect(() => designSettingsSet(store, { plots: 0 })).toThrow('total plots must be a whole number, 1 or more');
-    expect(() => designSettingsSet(store, { spacingM: -5 })).toThrow('spacing must be 0 m or more');
+    expect(() => designSettingsSet(store, { plots: 2.5 })).toThrow('number of plots must be a whole number ≥ 0, got 2.5');
+    expect(() => designSettingsSet(store, { spacingM: -5 })).toThrow('minimum spacing (m) must be a number ≥ 0, got -5');
     expect(() => designSettingsSet(store, { seed: 1.5 })).toThrow('seed must be a whole number');
     designSettingsSet(store, { plots: 12 });
     expect(store.getState().design.plots).toBe(12);

@@ -1,5 +1,6 @@
-import type { DesignSettings, PlotCollection } from '../core/designTypes';
-import { InputError } from '../core/InputError';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import { InputError } from '../core/common/InputError';
+import { designSettingsFieldsCheck } from '../core/design/designSettingsCheck';
 import type { PlannerStore } from './plannerStore';
 
 /** Changes design settings (not part of the undo history: undo steps through map edits only). */
@@ -8,15 +9,7 @@ export function designSettingsSet(store: PlannerStore, patch: Partial<DesignSett
   for (const [name, value] of Object.entries(patch)) {
     if (typeof value === 'number' && !Number.isFinite(value)) throw new InputError(`design setting "${name}" must be a number`);
   }
-  if (patch.plots !== undefined && !(Number.isInteger(patch.plots) && patch.plots >= 1)) throw new InputError('total plots must be a whole number, 1 or more');
-  if (patch.spacingM !== undefined && patch.spacingM < 0) throw new InputError('spacing must be 0 m or more');
-  if (patch.edgeBufferM !== undefined && patch.edgeBufferM < 0) throw new InputError('edge buffer must be 0 m or more');
-  if (patch.reservePerStratum !== undefined && !(Number.isInteger(patch.reservePerStratum) && patch.reservePerStratum >= 0)) {
-    throw new InputError('reserves per stratum must be a whole number, 0 or more');
-  }
-  if (patch.seed !== undefined && !(Number.isInteger(patch.seed) && patch.seed >= 0 && patch.seed <= 0xffffffff)) {
-    throw new InputError('seed must be a whole number from 0 to 4294967295');
-  }
+  designSettingsFieldsCheck(patch);
   // Setting what is already set is no change (and no undo step).
   if (Object.entries(patch).every(([k, v]) => JSON.stringify(v) === JSON.stringify((s.design as unknown as Record<string, unknown>)[k]))) return;
   store.setState({ design: { ...s.design, ...patch }, revision: s.revision + 1 });
@@ -35,8 +28,3 @@ export function designResultSet(store: PlannerStore, result: PlotCollection): vo
   store.setState({ result, resultStale: false, job: null, revision: s.revision + 1 });
 }
 
-/** Clears the design result and its field decisions. */
-export function designResultClear(store: PlannerStore): void {
-  const s = store.getState();
-  store.setState({ result: null, resultStale: false, revision: s.revision + 1 });
-}

@@ -1,5 +1,5 @@
 import type { Geometry, LineString, Point, Polygon } from 'geojson';
-import { InputError } from '../core/InputError';
+import { InputError } from '../core/common/InputError';
 import { accessAdd } from './accessActions';
 import { designSettingsSet } from './designActions';
 import { exclusionAdd } from './exclusionActions';

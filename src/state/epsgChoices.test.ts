@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { StratumPart } from '../core/types';
+import type { StratumPart } from '../core/model/types';
 import { epsgChoices, epsgFromText, epsgName } from './epsgChoices';
 
 const part = (lon: number, lat: number): StratumPart => ({

@@ -1,6 +1,6 @@
-import { siteLocalFrame } from '../core/siteLocalFrame';
-import type { StratumPart } from '../core/types';
-import { crsProj4Definition } from '../io/crsResolve';
+import { siteLocalFrame } from '../core/geo/siteLocalFrame';
+import type { StratumPart } from '../core/model/types';
+import { crsProj4Definition } from '../io/crs/crsResolve';
 
 /** One EPSG code offered in the import form, with its name. */
 export interface EpsgChoice {

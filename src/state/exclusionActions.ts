@@ -1,5 +1,5 @@
-import { InputError } from '../core/InputError';
-import { DEFAULT_BUFFER_M, type Exclusion, type ExclusionGeometry, type ExclusionKind, EXCLUSION_KINDS } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import { DEFAULT_BUFFER_M, type Exclusion, type ExclusionGeometry, type ExclusionKind, EXCLUSION_KINDS } from '../core/model/types';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
 

@@ -1,6 +1,6 @@
 import type { FeatureCollection } from 'geojson';
 import { describe, expect, it } from 'vitest';
-import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
+import { exclusionsFromFeatures } from '../io/site/exclusionsFromFeatures';
 import { exclusionMappingGuess, exclusionPropertiesMap } from './exclusionPropertiesMap';
 
 // Invented exclusion features; attribute names as another tool might have written them.

@@ -1,6 +1,6 @@
 import type { FeatureCollection } from 'geojson';
-import { InputError } from '../core/InputError';
-import { EXCLUSION_KINDS, type ExclusionKind } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import { EXCLUSION_KINDS, type ExclusionKind } from '../core/model/types';
 
 /** Where an imported exclusion file's kind and safety buffer come from. */
 export interface ExclusionMapping {

@@ -26,7 +26,7 @@ export function historyNext(store: PlannerStore, move: Move): PlanChange | null 
 }
 
 /** The notice after an undo or redo: what was taken back or done again, and on which step. */
-export function historyNoticeText(move: Move, change: PlanChange): string {
+function historyNoticeText(move: Move, change: PlanChange): string {
   const verb = move === 'undo' ? 'Undone' : 'Redone';
   const at = change.step ? PLANNER_STEPS.findIndex((s) => s.id === change.step) : -1;
   const where = at >= 0 ? ` in step ${at + 1}, ${PLANNER_STEPS[at].label}` : '';

@@ -1,7 +1,7 @@
 import geodesic from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
-import { designSettingsDefault } from '../core/designSettingsDefault';
-import { polygonAreaM2 } from '../core/polygonAreaM2';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
+import { polygonAreaM2 } from '../core/geo/polygonAreaM2';
 import { drawFinish } from './drawFinish';
 import { importExclusions, importFieldGuess, importRead, importStrata } from './importActions';
 import { plannerStoreCreate } from './plannerStore';

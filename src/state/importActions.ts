@@ -1,11 +1,11 @@
-import { countNoun } from '../core/countNoun';
+import { countNoun } from '../core/common/countNoun';
 import type { FeatureCollection } from 'geojson';
-import { InputError, isInputError } from '../core/InputError';
-import type { Site, StratumInfo } from '../core/types';
-import { accessFromFeatures } from '../io/accessFromFeatures';
-import { exclusionsFromFeatures } from '../io/exclusionsFromFeatures';
-import { type FeatureFileOptions, parseFeatureFile } from '../io/parseFeatureFile';
-import { STRATUM_PALETTE, strataFromFeatures } from '../io/strataFromFeatures';
+import { InputError, isInputError } from '../core/common/InputError';
+import type { Site, StratumInfo } from '../core/model/types';
+import { accessFromFeatures } from '../io/site/accessFromFeatures';
+import { exclusionsFromFeatures } from '../io/site/exclusionsFromFeatures';
+import { type FeatureFileOptions, parseFeatureFile } from '../io/site/parseFeatureFile';
+import { STRATUM_PALETTE, strataFromFeatures } from '../io/site/strataFromFeatures';
 import { type ExclusionMapping, exclusionPropertiesMap } from './exclusionPropertiesMap';
 import { type ImportNeeds, importNeedsOf } from './importNeeds';
 import type { PlannerStore } from './plannerStore';

@@ -2,10 +2,10 @@ import { zipSync } from 'fflate';
 import type { FeatureCollection, Polygon } from 'geojson';
 import geodesic from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
-import { polygonAreaM2 } from '../core/polygonAreaM2';
-import { crsResolveEpsg } from '../io/crsResolve';
-import { featuresToGeoPackage } from '../io/featuresToGeoPackage';
-import { featuresToShapefileFiles } from '../io/featuresToShapefileZip';
+import { polygonAreaM2 } from '../core/geo/polygonAreaM2';
+import { crsResolveEpsg } from '../io/crs/crsResolve';
+import { featuresToGeoPackage } from '../io/formats/geopackage/featuresToGeoPackage';
+import { featuresToShapefileFiles } from '../io/formats/shapefile/featuresToShapefileZip';
 import { importAttempt } from './importActions';
 import { importEncodingChoices, importNeedsOf } from './importNeeds';
 

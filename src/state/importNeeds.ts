@@ -1,12 +1,12 @@
 import Papa from 'papaparse';
-import type { InputError } from '../core/InputError';
-import { crsFromPrj } from '../io/crsFromPrj';
-import { dbfRead } from '../io/dbfRead';
-import { listLayers } from '../io/listLayers';
-import { type FeatureFileOptions, parseFeatureFile } from '../io/parseFeatureFile';
-import { shapefileLayers } from '../io/parseShapefileZip';
-import { textDecoderFor } from '../io/textDecoderFor';
-import { zipEntries, zipEntryNoCase, zipEntryPaths } from '../io/zipEntries';
+import type { InputError } from '../core/common/InputError';
+import { crsFromPrj } from '../io/crs/crsFromPrj';
+import { dbfRead } from '../io/formats/shapefile/dbfRead';
+import { listLayers } from '../io/site/listLayers';
+import { type FeatureFileOptions, parseFeatureFile } from '../io/site/parseFeatureFile';
+import { shapefileLayers } from '../io/formats/shapefile/parseShapefileZip';
+import { textDecoderFor } from '../io/common/textDecoderFor';
+import { zipEntries, zipEntryNoCase, zipEntryPaths } from '../io/common/zipEntries';
 
 /** The choices a file still needs from the user before it can be read. */
 export interface ImportNeeds {

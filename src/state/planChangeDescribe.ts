@@ -1,7 +1,7 @@
-import { countNoun } from '../core/countNoun';
-import type { DesignSettings, PlotCollection, PlotProperties } from '../core/designTypes';
-import { footprintFormat } from '../core/footprintParse';
-import type { Site } from '../core/types';
+import { countNoun } from '../core/common/countNoun';
+import type { DesignSettings, PlotCollection, PlotProperties } from '../core/model/designTypes';
+import { footprintFormat } from '../core/design/footprintParse';
+import type { Site } from '../core/model/types';
 import type { PlannerPlan, PlannerStep } from './plannerStore';
 
 /** One change of the plan in words (past tense, as it was made) and the step it belongs to. */

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { designSettingsDefault } from '../core/designSettingsDefault';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
 import { type AutosaveStorage, AUTOSAVE_KEY, autosaveRestore, autosaveStart } from './autosave';
 import { planFileApply, planFileFromState, planFileParse, planHasUnsavedWork } from './planFile';
-import { plotCollectionInvented } from '../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../core/field/plotCollectionInvented';
 import { plannerStoreCreate } from './plannerStore';
 import { recaptureGridSet, resultsLoad, resultsMappingSet, resultsStoreCreate } from './resultsStore';
 import { resultsSnapshotTake } from './resultsSnapshot';

@@ -1,7 +1,8 @@
-import { type DesignSettings, PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from '../core/designTypes';
-import { InputError } from '../core/InputError';
-import { plotCollectionById, plotCollectionNamed } from '../core/plotCollectionNamed';
-import type { Site, StratumInfo, StratumPart } from '../core/types';
+import type { DesignSettings } from '../core/model/designTypes';
+import { PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from './planFileTypes';
+import { InputError } from '../core/common/InputError';
+import { plotCollectionById, plotCollectionNamed } from '../core/field/plotCollectionNamed';
+import type { Site, StratumInfo, StratumPart } from '../core/model/types';
 import { planFileMigrateV1 } from './planFileMigrate';
 import type { PlannerState, PlannerStore } from './plannerStore';
 import { plannerPlotsNamed } from './plotsNamed';

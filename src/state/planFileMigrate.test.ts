@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { designSettingsDefault } from '../core/designSettingsDefault';
-import { plotFieldStates, plotRejections } from '../core/plotFieldState';
-import { designOutputBytes } from '../io/designOutput';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
+import { plotFieldStates, plotRejections } from '../core/field/plotFieldState';
+import { designOutputBytes } from '../io/plots/designOutput';
 import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import { plannerStoreCreate } from './plannerStore';
 

@@ -1,7 +1,8 @@
-import { PLAN_FILE_VERSION, type PlotCollection } from '../core/designTypes';
-import { InputError } from '../core/InputError';
-import { plotCollectionNamed } from '../core/plotCollectionNamed';
-import type { StratumInfo } from '../core/types';
+import type { PlotCollection } from '../core/model/designTypes';
+import { PLAN_FILE_VERSION } from './planFileTypes';
+import { InputError } from '../core/common/InputError';
+import { plotCollectionNamed } from '../core/field/plotCollectionNamed';
+import type { StratumInfo } from '../core/model/types';
 
 function isObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);

@@ -1,4 +1,5 @@
-import type { DesignSettings, PlanFile } from '../core/designTypes';
+import type { DesignSettings } from '../core/model/designTypes';
+import type { PlanFile } from './planFileTypes';
 import { planFileApply } from './planFile';
 import type { PlannerState, PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';

@@ -1,8 +1,9 @@
 import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection, ResultsSnapshot } from '../core/designTypes';
-import type { Site } from '../core/types';
-import type { SiteAnalysis } from '../worker/siteAnalyse';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import type { ResultsSnapshot } from './planFileTypes';
+import type { Site } from '../core/model/types';
+import type { SiteAnalysis } from '../core/design/siteAnalyse';
 
 /** Which kind of thing a drawing tool makes. */
 export type DrawTool = 'none' | 'stratum' | 'stratum-beside' | 'hole' | 'cliff' | 'creek' | 'water' | 'private' | 'hazard' | 'access' | 'baseline' | 'edit';
@@ -113,7 +114,7 @@ export function plannerPlanOf(s: PlannerState): PlannerPlan {
 }
 
 /** True when two plan parts hold the same objects (every edit makes new objects, so this is enough). */
-export function plannerPlanSame(a: PlannerPlan, b: PlannerPlan): boolean {
+function plannerPlanSame(a: PlannerPlan, b: PlannerPlan): boolean {
   const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
   for (const k of keys) if ((a as unknown as Record<string, unknown>)[k] !== (b as unknown as Record<string, unknown>)[k]) return false;
   return true;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Site } from '../core/types';
+import type { Site } from '../core/model/types';
 import { plotCheckClear, plotCheckFileRead, plotCheckRun, plotCheckRunHere, plotCheckSettingsSet, plotCheckStoreCreate } from './plotCheckStore';
 
 // An invented 1 km square stratum with a hazard point in its middle; no real place.

@@ -1,12 +1,12 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { Footprint } from '../core/designTypes';
-import { footprintFormat, footprintParse } from '../core/footprintParse';
-import { InputError, isInputError } from '../core/InputError';
-import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheckTypes';
-import { plotsCheck } from '../core/plotsCheck';
-import type { Site } from '../core/types';
-import type { FeatureFileOptions } from '../io/parseFeatureFile';
-import { plotsFromFeatures } from '../io/plotsFromFeatures';
+import type { Footprint } from '../core/model/designTypes';
+import { footprintFormat, footprintParse } from '../core/design/footprintParse';
+import { InputError, isInputError } from '../core/common/InputError';
+import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheck/plotCheckTypes';
+import { plotsCheck } from '../core/plotCheck/plotsCheck';
+import type { Site } from '../core/model/types';
+import type { FeatureFileOptions } from '../io/site/parseFeatureFile';
+import { plotsFromFeatures } from '../io/plots/plotsFromFeatures';
 import { importAttempt } from './importActions';
 import type { ImportNeeds } from './importNeeds';
 
@@ -77,7 +77,7 @@ function message(e: unknown): string {
 }
 
 /** The form's settings as the check takes them. Throws InputError for a footprint or date it cannot read. */
-export function plotCheckOptionsOf(s: PlotCheckSettings): PlotsCheckOptions {
+function plotCheckOptionsOf(s: PlotCheckSettings): PlotsCheckOptions {
   const surveyDate = new Date(/^\d{4}-\d{2}-\d{2}$/.test(s.surveyDate) ? `${s.surveyDate}T12:00:00Z` : 'invalid');
   if (Number.isNaN(surveyDate.getTime())) throw new InputError(`survey date "${s.surveyDate}" is not a date (YYYY-MM-DD)`);
   return { spacingM: s.spacingM, footprint: footprintParse(s.footprintText, 'footprint'), edgeBufferM: s.edgeBufferM, surveyDate };

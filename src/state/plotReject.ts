@@ -1,5 +1,5 @@
-import { InputError } from '../core/InputError';
-import { plotsRejectAndPromote } from '../core/plotsRejectAndPromote';
+import { InputError } from '../core/common/InputError';
+import { plotsRejectAndPromote } from '../core/field/plotsRejectAndPromote';
 import type { PlannerStore } from './plannerStore';
 
 /**

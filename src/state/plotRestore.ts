@@ -1,5 +1,5 @@
-import { InputError } from '../core/InputError';
-import { plotsRestore } from '../core/plotsRestore';
+import { InputError } from '../core/common/InputError';
+import { plotsRestore } from '../core/field/plotsRestore';
 import type { PlannerStore } from './plannerStore';
 
 /**

@@ -1,6 +1,6 @@
-import type { PlotCollection } from '../core/designTypes';
-import { plotCollectionNamed } from '../core/plotCollectionNamed';
-import type { StratumInfo } from '../core/types';
+import type { PlotCollection } from '../core/model/designTypes';
+import { plotCollectionNamed } from '../core/field/plotCollectionNamed';
+import type { StratumInfo } from '../core/model/types';
 import type { PlannerState } from './plannerStore';
 
 let last: { result: PlotCollection | null; strata: readonly StratumInfo[]; named: PlotCollection | null } | null = null;

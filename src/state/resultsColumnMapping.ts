@@ -1,7 +1,15 @@
-import { RESULTS_REPLACED_BY_COLUMN, RESULTS_STATUS_COLUMN, type ResultsTable } from '../core/resultsCheck';
-import type { PlotCollection } from '../core/designTypes';
-import type { Problem } from '../core/types';
-import type { ResultsMapping } from './resultsStore';
+import type { ResultKind } from '../core/model/designTypes';
+import { RESULTS_REPLACED_BY_COLUMN, RESULTS_STATUS_COLUMN, type ResultsTable } from '../core/results/resultsCheck';
+import type { PlotCollection } from '../core/model/designTypes';
+import type { Problem } from '../core/model/types';
+
+/** Which results columns mean what; every other column is a variable of the given kind. */
+export interface ResultsMapping {
+  idColumn: string;
+  statusColumn: string | null;
+  replacedByColumn: string | null;
+  kinds: Record<string, ResultKind>;
+}
 
 /** The column holding the most ids of the plot file (ties: plot_id, then the leftmost). */
 export function idColumnGuess(table: ResultsTable, collection: PlotCollection): string {

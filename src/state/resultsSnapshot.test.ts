@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { plotCollectionInvented } from '../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../core/field/plotCollectionInvented';
 import { recaptureGridAdd, recaptureGridSet, resultsLoad, resultsMappingSet, resultsOptionsSet, resultsStoreCreate } from './resultsStore';
 import { resultsReset, resultsSnapshotIsEmpty, resultsSnapshotParse, resultsSnapshotRestore, resultsSnapshotTake } from './resultsSnapshot';
 

@@ -1,6 +1,7 @@
-import type { PlotCollection, RecaptureGridSaved, ResultsSnapshot } from '../core/designTypes';
-import { InputError } from '../core/InputError';
-import { RESULT_KINDS, type ResultKind } from '../core/resultsCellParse';
+import type { PlotCollection } from '../core/model/designTypes';
+import type { RecaptureGridSaved, ResultsSnapshot } from './planFileTypes';
+import { InputError } from '../core/common/InputError';
+import { RESULT_KINDS, type ResultKind } from '../core/model/designTypes';
 import { type ResultsState, type ResultsStore, recaptureGridBlank, resultsClear, resultsLoad, resultsMappingSet, resultsOptionsSet } from './resultsStore';
 
 /** The fields of the results store a snapshot carries; a change to any of them is work to keep. */

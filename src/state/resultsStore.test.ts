@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { plotCollectionInvented } from '../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../core/field/plotCollectionInvented';
 import { recaptureGridAdd, recaptureGridRemove, recaptureGridSet, resultsDesignPatch, resultsLoad, resultsMappingSet, resultsOptionsSet, resultsStoreCreate } from './resultsStore';
 
 /** n values with exactly the given mean and sample variance (divisor n − 1): evenly spaced ranks, rescaled. */

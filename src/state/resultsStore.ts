@@ -1,21 +1,18 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import type { DesignSettings, PlotCollection, RecaptureGridSaved } from '../core/designTypes';
-import { type EstimateReport, estimateFromResults } from '../core/estimateFromResults';
-import { isInputError } from '../core/InputError';
-import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/nextSeasonSampleSize';
-import { type ResultKind, resultsKindGuess } from '../core/resultsCellParse';
-import { type ResultsTable, resultsReview } from '../core/resultsCheck';
-import type { Problem } from '../core/types';
-import { parseResultsCsv } from '../io/parseResultsCsv';
-import { headerNames, idColumnGuess, problemsInUserNames, tableForCore } from './resultsColumnMapping';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import type { RecaptureGridSaved } from './planFileTypes';
+import { type EstimateReport, estimateFromResults } from '../core/results/estimateFromResults';
+import { isInputError } from '../core/common/InputError';
+import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../core/results/nextSeasonSampleSize';
+import { resultsKindGuess } from '../core/results/resultsCellParse';
+import type { ResultKind } from '../core/model/designTypes';
+import { type ResultsTable, resultsReview } from '../core/results/resultsCheck';
+import type { Problem } from '../core/model/types';
+import { parseResultsCsv } from '../io/results/parseResultsCsv';
+import { headerNames, idColumnGuess, problemsInUserNames, type ResultsMapping, tableForCore } from './resultsColumnMapping';
 
-/** Which results columns mean what; every other column is a variable of the given kind. */
-export interface ResultsMapping {
-  idColumn: string;
-  statusColumn: string | null;
-  replacedByColumn: string | null;
-  kinds: Record<string, ResultKind>;
-}
+export type { ResultsMapping };
+
 
 /** A recapture grid as typed in the form: the same record the plan file keeps. */
 export type RecaptureGridForm = RecaptureGridSaved;
@@ -156,7 +153,7 @@ export function resultsColouringSet(store: ResultsStore, colouring: ResultsColou
 }
 
 /** Re-runs the checks, the estimate and next season's sizes for the current file, mapping and options. */
-export function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
+function resultsRecompute(store: ResultsStore, collection: PlotCollection | null): void {
   const s = store.getState();
   const cleared = { problems: [], report: null, plotValues: {}, next: null, nextSd: {}, nextError: null, colouring: null };
   let blocked: string | null | undefined;

@@ -1,4 +1,4 @@
-import type { Site } from '../core/types';
+import type { Site } from '../core/model/types';
 import type { PlannerState, PlannerStore } from './plannerStore';
 
 /**

@@ -1,6 +1,6 @@
 import type { Polygon } from 'geojson';
 import { describe, expect, it } from 'vitest';
-import { polygonAreaM2 } from '../core/polygonAreaM2';
+import { polygonAreaM2 } from '../core/geo/polygonAreaM2';
 import { historyRedo, historyUndo, selectionRemove } from './historyActions';
 import { plannerStoreCreate } from './plannerStore';
 import { stratumHoleCut, stratumPartAddBeside } from './strataClipActions';

@@ -1,9 +1,9 @@
-import { InputError } from '../core/InputError';
-import type { AreaGeometry, Site, StratumInfo } from '../core/types';
+import { InputError } from '../core/common/InputError';
+import type { AreaGeometry, Site, StratumInfo } from '../core/model/types';
 import type { PlannerStore } from './plannerStore';
 import { siteCommit, siteNextId } from './siteCommit';
-import { STRATUM_PALETTE } from '../io/strataFromFeatures';
-import { stratumCodeDerive } from '../io/stratumCodeDerive';
+import { STRATUM_PALETTE } from '../io/site/strataFromFeatures';
+import { stratumCodeDerive } from '../io/site/stratumCodeDerive';
 
 const COLOUR = /^#[0-9a-fA-F]{6}$/;
 
@@ -22,13 +22,6 @@ function stratumInfoNew(site: Site, name: string): StratumInfo {
     code: stratumCodeDerive(key, new Set(site.strata.map((s) => s.code))),
     colour: paletteNext(site.strata.map((s) => s.colour)),
   };
-}
-
-/** Adds a stratum with a unique code and the next palette colour; returns its key. Throws InputError for a blank or taken name. */
-export function stratumAdd(store: PlannerStore, name: string): string {
-  const info = stratumInfoNew(store.getState().site, name);
-  siteCommit(store, (s) => ({ ...s, strata: [...s.strata, info] }));
-  return info.key;
 }
 
 function stratumPatch(store: PlannerStore, key: string, patch: Partial<StratumInfo>): void {
@@ -114,11 +107,3 @@ export function stratumPartRemove(store: PlannerStore, partId: string): void {
   );
 }
 
-/** Removes a stratum and all its features. */
-export function stratumRemove(store: PlannerStore, key: string): void {
-  siteCommit(store, (site) => ({
-    ...site,
-    strata: site.strata.filter((s) => s.key !== key),
-    parts: site.parts.filter((p) => p.stratum !== key),
-  }));
-}

@@ -1,5 +1,5 @@
-import { designSettingsDefault } from '../core/designSettingsDefault';
-import type { DesignSettings } from '../core/designTypes';
+import { designSettingsDefault } from '../core/design/designSettingsDefault';
+import type { DesignSettings } from '../core/model/designTypes';
 
 /** Design settings for store tests: a small proportional random design (common practice, no source). */
 export const TEST_DESIGN: DesignSettings = designSettingsDefault({

@@ -1,15 +1,15 @@
 import * as Comlink from 'comlink';
-import type { DesignSettings, PlotCollection } from '../core/designTypes';
-import { designRun } from '../core/designRun';
-import { isInputError } from '../core/InputError';
-import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheckTypes';
-import { plotsCheck } from '../core/plotsCheck';
-import { siteValidate } from '../core/siteValidate';
-import type { Site } from '../core/types';
-import { type GeotiffImageOptions, geotiffImageWarp } from '../io/geotiffImage';
-import type { RgbaRaster } from '../io/rasterWarpToMercator';
-import { type WorldFileCrs, worldFileImageWarp } from '../io/worldFileImage';
-import { siteAnalyse } from './siteAnalyse';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import { designRun } from '../core/design/designRun';
+import { isInputError } from '../core/common/InputError';
+import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheck/plotCheckTypes';
+import { plotsCheck } from '../core/plotCheck/plotsCheck';
+import { siteValidate } from '../core/site/siteValidate';
+import type { Site } from '../core/model/types';
+import { type GeotiffImageOptions, geotiffImageWarp } from '../io/formats/raster/geotiffImage';
+import type { RgbaRaster } from '../io/formats/raster/rasterWarpToMercator';
+import { type WorldFileCrs, worldFileImageWarp } from '../io/formats/raster/worldFileImage';
+import { siteAnalyse } from '../core/design/siteAnalyse';
 
 /** A design's outcome as it crosses to the page: the plots, or a message for the user. */
 export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: false; message: string };

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, it } from 'vitest';
-import { sqlJsLoad } from '../../src/io/sqlJsLoad';
+import { sqlJsLoad } from '../../src/io/formats/geopackage/sqlJsLoad';
 import { geoPackageWith } from '../hostile/hostileFiles';
 import { areasAgree, FUZZ_SEED, fuzzCli, fuzzDir, fuzzReport, fuzzRuns, fuzzTally, polygonAreaM2 } from './fuzzHarness';
 

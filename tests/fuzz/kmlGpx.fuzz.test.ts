@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { isInputError } from '../../src/core/InputError';
-import { parseFeatureFile } from '../../src/io/parseFeatureFile';
+import { isInputError } from '../../src/core/common/InputError';
+import { parseFeatureFile } from '../../src/io/site/parseFeatureFile';
 import { boxRing, X0, Y0 } from '../hostile/hostileFiles';
 import { areasAgree, FUZZ_SEED, fuzzCli, fuzzDir, fuzzReport, fuzzRuns, fuzzTally, polygonAreaM2 } from './fuzzHarness';
 

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, it } from 'vitest';
-import { plotCollectionInvented } from '../../src/core/plotCollectionInvented';
+import { plotCollectionInvented } from '../../src/core/field/plotCollectionInvented';
 import { FUZZ_SEED, fuzzCli, fuzzDir, fuzzReport, fuzzRuns, fuzzTally } from './fuzzHarness';
 
 // Results CSV cells: an invented plot file of two strata and a results table whose value cells are

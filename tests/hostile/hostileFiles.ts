@@ -3,9 +3,9 @@
 // suite and the browser test of hostile imports.
 import { zipSync } from 'fflate';
 import type { Feature, FeatureCollection, Polygon } from 'geojson';
-import { featuresToGeoPackage } from '../../src/io/featuresToGeoPackage';
-import { featuresToShapefileFiles } from '../../src/io/featuresToShapefileZip';
-import { sqlJsLoad } from '../../src/io/sqlJsLoad';
+import { featuresToGeoPackage } from '../../src/io/formats/geopackage/featuresToGeoPackage';
+import { featuresToShapefileFiles } from '../../src/io/formats/shapefile/featuresToShapefileZip';
+import { sqlJsLoad } from '../../src/io/formats/geopackage/sqlJsLoad';
 
 /** The invented site's corner, about 150.5°E 35.1°S (UTM zone 56 south). */
 export const X0 = 150.5;

@@ -7,7 +7,7 @@ import geodesic from 'geographiclib-geodesic';
 import type { Feature, Polygon } from 'geojson';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/main';
-import { plotCollectionInvented } from '../../src/core/plotCollectionInvented';
+import { plotCollectionInvented } from '../../src/core/field/plotCollectionInvented';
 import {
   MAX_ACCESS_POINTS,
   MAX_DESIGN_PLOTS,
@@ -17,8 +17,8 @@ import {
   MAX_NESTING_DEPTH,
   MAX_XML_DEPTH,
   MAX_ZIP_ENTRY_BYTES,
-} from '../../src/core/inputLimits';
-import { featuresLimitCheck } from '../../src/io/featuresLimitCheck';
+} from '../../src/core/common/inputLimits';
+import { featuresLimitCheck } from '../../src/io/site/featuresLimitCheck';
 import {
   accessCsv,
   boxPolygon,

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { EXCLUSION_KINDS } from '../../core/types';
+import { EXCLUSION_KINDS } from '../../core/model/types';
 import { usePlanner } from '../usePlanner';
 import { EXCLUSION_COLOURS } from './palette';
 import { PlotCheckKey } from '../plotCheck/PlotCheckKey';

@@ -1,7 +1,7 @@
 import { Map as MapLibreMap, NavigationControl, Popup, ScaleControl, setWorkerUrl } from 'maplibre-gl';
 import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
 import { useEffect, useRef } from 'react';
-import { plotFieldStates } from '../../core/plotFieldState';
+import { plotFieldStates } from '../../core/field/plotFieldState';
 import type { PlannerState } from '../../state/plannerStore';
 import { DEMO_SITE_NAME } from '../demoSite';
 import { DEMO_IMAGE_NAME, imageryLoadDemo } from '../imageryLoad';
@@ -20,6 +20,7 @@ import { EXCLUSION_COLOURS } from './palette';
 import { syncSiteToMap } from './syncSiteToMap';
 import { resultsMapLayerInstall } from '../results/resultsMapLayer';
 import { PLOT_CHECK_LAYER, plotCheckMapLayerInstall } from '../plotCheck/plotCheckMapLayer';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 setWorkerUrl(workerUrl);
 
@@ -61,7 +62,7 @@ export function MapView() {
       if (!plot) return false;
       const p = plot.properties;
       const stratum = s.site.strata.find((x) => x.key === p.stratum);
-      const label = stratum ? `${stratum.label} (${stratum.code})` : p.stratum;
+      const label = stratum ? stratumLabel(stratum.label, stratum.code) : p.stratum;
       const state = plotFieldStates(s.result!.features.map((f) => f.properties)).get(p.plot_id);
       popup.setDOMContent(plotPopupContent(p, label, state));
       return true;

@@ -1,5 +1,5 @@
-import { PLOT_FIELD_STATE_KEYS } from '../../core/plotFieldState';
-import { PLOT_SYMBOLS } from '../../core/plotSymbols';
+import { PLOT_FIELD_STATE_KEYS } from '../../core/field/plotFieldState';
+import { PLOT_SYMBOLS } from '../../core/field/plotSymbols';
 import { plotSymbolDataUrl } from './plotSymbolImages';
 
 /** The four plot symbols with their meaning: the same code the map, the KMZ and the PDFs use. */

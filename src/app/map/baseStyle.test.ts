@@ -1,7 +1,7 @@
 import { validateStyleMin } from '@maplibre/maplibre-gl-style-spec';
 import type { FeatureCollection } from 'geojson';
 import { describe, expect, it } from 'vitest';
-import { graticuleLines } from '../../core/graticule';
+import { graticuleLines } from '../../core/geo/graticule';
 import {
   BASE_CAUTION,
   BASE_IMAGERY_BEFORE_ID,

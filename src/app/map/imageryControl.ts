@@ -1,5 +1,5 @@
 import type { Map as MapLibreMap } from 'maplibre-gl';
-import type { WarpedImage } from '../../io/rasterWarpToMercator';
+import type { WarpedImage } from '../../io/formats/raster/rasterWarpToMercator';
 import { BASE_IMAGERY_BEFORE_ID } from './baseStyle';
 import { imageryOpacitySet, imageryRasterLayer, imageryToImageSource } from './imageryLayer';
 

@@ -1,7 +1,7 @@
 import { validateStyleMin } from '@maplibre/maplibre-gl-style-spec';
 import { describe, expect, it } from 'vitest';
-import { crsResolveEpsg } from '../../io/crsResolve';
-import { rasterWarpToMercator } from '../../io/rasterWarpToMercator';
+import { crsResolveEpsg } from '../../io/crs/crsResolve';
+import { rasterWarpToMercator } from '../../io/formats/raster/rasterWarpToMercator';
 import { type CanvasDeps, imageryOpacitySet, imageryRasterLayer, imageryToImageSource, type PixelCanvas } from './imageryLayer';
 
 // A 40 × 30 px, 10 m UTM 55S raster (invented), warped the way imported imagery is.

@@ -1,5 +1,5 @@
 import type { ImageSourceSpecification, Map as MapLibreMap, RasterLayerSpecification } from 'maplibre-gl';
-import type { WarpedImage } from '../../io/rasterWarpToMercator';
+import type { WarpedImage } from '../../io/formats/raster/rasterWarpToMercator';
 
 /** A 2D canvas we can paint pixels into and encode: OffscreenCanvas, or an HTMLCanvasElement. */
 export interface PixelCanvas {

@@ -1,6 +1,6 @@
 import type { GeoJSONSource, Map as MapLibreMap, StyleSpecification } from 'maplibre-gl';
-import { graticuleLines, graticuleStepDeg } from '../../core/graticule';
-import { worldLandLoad } from '../../io/worldLand';
+import { graticuleLines, graticuleStepDeg } from '../../core/geo/graticule';
+import { worldLandLoad } from '../../io/pdf/worldLand';
 import { BASE_SOURCES, baseStyleBuild } from './baseStyle';
 
 const EMPTY = { type: 'FeatureCollection' as const, features: [] };

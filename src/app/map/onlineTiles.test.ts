@@ -1,5 +1,5 @@
 import { describe, expect, it, vi } from 'vitest';
-import { isInputError } from '../../core/InputError';
+import { isInputError } from '../../core/common/InputError';
 import {
   ONLINE_TILES_DEFAULT,
   onlineTilesProbe,

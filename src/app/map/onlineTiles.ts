@@ -1,5 +1,5 @@
 import type { RasterLayerSpecification, RasterSourceSpecification } from 'maplibre-gl';
-import { InputError } from '../../core/InputError';
+import { InputError } from '../../core/common/InputError';
 
 /** Online raster tiles under the plan (off unless the user turns them on). */
 export interface OnlineTilesConfig {

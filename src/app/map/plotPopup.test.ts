@@ -1,6 +1,6 @@
 // @vitest-environment happy-dom
 import { describe, expect, it } from 'vitest';
-import type { PlotProperties } from '../../core/designTypes';
+import type { PlotProperties } from '../../core/model/designTypes';
 import { plotPopupContent } from './plotPopup';
 
 const plot: PlotProperties = {

@@ -1,5 +1,5 @@
-import type { PlotProperties } from '../../core/designTypes';
-import { type PlotFieldState, plotFieldStateOf, plotFieldStateText } from '../../core/plotFieldState';
+import type { PlotProperties } from '../../core/model/designTypes';
+import { type PlotFieldState, plotFieldStateOf, plotFieldStateText } from '../../core/field/plotFieldState';
 import { el } from '../dom';
 
 function row(term: string, value: string): [HTMLElement, HTMLElement] {

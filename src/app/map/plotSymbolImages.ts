@@ -1,6 +1,6 @@
 import type { Map as MapLibreMap } from 'maplibre-gl';
-import { PLOT_FIELD_STATE_KEYS, type PlotFieldStateKey } from '../../core/plotFieldState';
-import { plotIconPng, plotIconRgba } from '../../io/plotIcons';
+import { PLOT_FIELD_STATE_KEYS, type PlotFieldStateKey } from '../../core/field/plotFieldState';
+import { plotIconPng, plotIconRgba } from '../../io/common/plotIcons';
 
 /** Pixels of a map plot symbol (drawn at twice the CSS size for sharp edges). */
 const MAP_ICON_PX = 36;

@@ -1,5 +1,5 @@
 import type { Geometry } from 'geojson';
-import type { Site } from '../../core/types';
+import type { Site } from '../../core/model/types';
 
 /** [west, south, east, north] of everything mapped at a site, or null when nothing is. */
 export function siteBounds(site: Site): [number, number, number, number] | null {

@@ -1,9 +1,9 @@
 import type { Polygon } from 'geojson';
 import { describe, expect, it } from 'vitest';
-import { designRun } from '../../core/designRun';
-import { designSettingsDefault } from '../../core/designSettingsDefault';
-import { polygonAreaM2 } from '../../core/polygonAreaM2';
-import type { Site } from '../../core/types';
+import { designRun } from '../../core/design/designRun';
+import { designSettingsDefault } from '../../core/design/designSettingsDefault';
+import { polygonAreaM2 } from '../../core/geo/polygonAreaM2';
+import type { Site } from '../../core/model/types';
 import { footprintsSource, plotsSource, strataSource } from './siteSources';
 
 const site: Site = {

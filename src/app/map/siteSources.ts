@@ -1,8 +1,8 @@
 import type { Feature, FeatureCollection, Polygon } from 'geojson';
-import type { Footprint, PlotCollection } from '../../core/designTypes';
-import { type LocalFrame, localFrameAt } from '../../core/localFrame';
-import { plotFieldStates } from '../../core/plotFieldState';
-import type { Site } from '../../core/types';
+import type { Footprint, PlotCollection } from '../../core/model/designTypes';
+import { type LocalFrame, localFrameAt } from '../../core/geo/localFrame';
+import { plotFieldStates } from '../../core/field/plotFieldState';
+import type { Site } from '../../core/model/types';
 
 const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Site } from '../../core/types';
+import type { Site } from '../../core/model/types';
 import { strataSnapIndexBuild, strataSnapNearest } from './strataSnap';
 
 // A screen where 1 px = 1e-5 degree and north is up (a plain linear stand-in for the map's projection).

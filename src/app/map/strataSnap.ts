@@ -1,5 +1,5 @@
 import Flatbush from 'flatbush';
-import type { Site } from '../../core/types';
+import type { Site } from '../../core/model/types';
 
 /** Every edge of every mapped stratum ring, in a bbox index for snapping while drawing. */
 export interface StrataSnapIndex {

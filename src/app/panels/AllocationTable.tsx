@@ -1,5 +1,5 @@
 import { plannerPlotsNamed } from '../../state/plotsNamed';
-import { rngVersionOf } from '../../core/rngStreams';
+import { rngVersionOf } from '../../core/design/place/rngStreams';
 import { fmtHa, fmtPct } from '../format';
 import { usePlanner } from '../usePlanner';
 

@@ -1,5 +1,5 @@
-import { designAllocation } from '../../core/designAllocation';
-import { isInputError } from '../../core/InputError';
+import { designAllocation } from '../../core/design/designAllocation';
+import { isInputError } from '../../core/common/InputError';
 import { useAreaTable } from '../useAreaTable';
 import { usePlanner } from '../usePlanner';
 

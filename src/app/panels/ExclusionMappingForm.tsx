@@ -1,6 +1,6 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { useId, useState } from 'react';
-import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type ExclusionKind } from '../../core/types';
+import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type ExclusionKind } from '../../core/model/types';
 import type { ImportPreview } from '../../state/importActions';
 import { type ExclusionMapping, exclusionMappingGuess } from '../../state/exclusionPropertiesMap';
 

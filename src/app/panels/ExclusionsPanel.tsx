@@ -1,4 +1,4 @@
-import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type ExclusionKind } from '../../core/types';
+import { DEFAULT_BUFFER_M, EXCLUSION_KINDS, type ExclusionKind } from '../../core/model/types';
 import { exclusionRemove, exclusionUpdate } from '../../state/exclusionActions';
 import { accessRemove, accessUpdate } from '../../state/accessActions';
 import { plannerStore } from '../plannerStoreInstance';

@@ -46,7 +46,7 @@ export function ExportBox() {
     try {
       const [ext, pdf] = format.split(':') as [string, 'sheets' | 'report' | undefined];
       // The writers (PDF, GeoPackage) are large: load them only when someone exports.
-      const { designOutputBytes } = await import('../../io/designOutput');
+      const { designOutputBytes } = await import('../../io/plots/designOutput');
       const bytes = await designOutputBytes(`plots.${ext}`, s.result, s.site, {
         pdf,
         sqlJsInit: sqlJsBrowser,

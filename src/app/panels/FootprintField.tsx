@@ -1,7 +1,7 @@
 import { useId } from 'react';
-import type { Footprint } from '../../core/designTypes';
-import { footprintAreaM2, footprintFormat } from '../../core/footprintParse';
-import { InputError } from '../../core/InputError';
+import type { Footprint } from '../../core/model/designTypes';
+import { footprintAreaM2, footprintFormat } from '../../core/design/footprintParse';
+import { InputError } from '../../core/common/InputError';
 import { designSettingsSet } from '../../state/designActions';
 import { plannerStore } from '../plannerStoreInstance';
 import { attempt, usePlanner } from '../usePlanner';

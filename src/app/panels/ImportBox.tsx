@@ -1,7 +1,7 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { useId, useState } from 'react';
-import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../../core/inputLimits';
-import type { FeatureFileOptions } from '../../io/parseFeatureFile';
+import { limitBytes, limitExceeded, MAX_FILE_BYTES } from '../../core/common/inputLimits';
+import type { FeatureFileOptions } from '../../io/site/parseFeatureFile';
 import type { ExclusionMapping } from '../../state/exclusionPropertiesMap';
 import { type ImportPreview, importAccess, importAttempt, importExclusions, importFieldGuess, importStrata } from '../../state/importActions';
 import type { ImportNeeds } from '../../state/importNeeds';

@@ -1,6 +1,6 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { useId, useState } from 'react';
-import type { FeatureFileOptions } from '../../io/parseFeatureFile';
+import type { FeatureFileOptions } from '../../io/site/parseFeatureFile';
 import { epsgChoices, epsgFromText } from '../../state/epsgChoices';
 import { type ImportNeeds, importEncodingChoices } from '../../state/importNeeds';
 import { usePlanner } from '../usePlanner';

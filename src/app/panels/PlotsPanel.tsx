@@ -1,7 +1,7 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { Fragment, useMemo, useState } from 'react';
-import type { PlotProperties } from '../../core/designTypes';
-import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/plotFieldState';
+import type { PlotProperties } from '../../core/model/designTypes';
+import { fieldTimeText, type PlotFieldState, plotFieldStates, plotFieldStateText, plotRejections } from '../../core/field/plotFieldState';
 import { plotRestore } from '../../state/plotRestore';
 import { PlotCheckBox } from '../plotCheck/PlotCheckBox';
 import { PlotSymbolKey } from '../map/PlotSymbolKey';
@@ -9,6 +9,7 @@ import { plannerStore } from '../plannerStoreInstance';
 import { attempt, usePlanner } from '../usePlanner';
 import { ExportBox } from './ExportBox';
 import { RejectForm } from './RejectForm';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 type SortKey = 'plot_id' | 'stratum' | 'role' | 'rank' | 'status' | 'nearest_exclusion_m';
 const COLUMNS: [SortKey, string][] = [
@@ -118,7 +119,7 @@ export function PlotsPanel() {
             <Fragment key={p.plot_id}>
               <tr data-plot={p.plot_id} data-status={p.status ?? 'planned'} data-state={state?.key} className={[selected === p.plot_id ? 'row-on' : '', state?.key === 'rejected' ? 'row-rejected' : ''].join(' ').trim() || undefined}>
                 <td className="mono">{p.plot_id}</td>
-                <td title={stratum ? `${stratum.label} (${stratum.code})` : p.stratum}>{stratum?.code ?? p.stratum}</td>
+                <td title={stratum ? stratumLabel(stratum.label, stratum.code) : p.stratum}>{stratum?.code ?? p.stratum}</td>
                 <td>{p.role}</td>
                 <td className="num">{p.rank}</td>
                 <td className="plot-status" title={state ? plotFieldStateText(p, state).note : undefined}>

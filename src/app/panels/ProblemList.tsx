@@ -1,5 +1,5 @@
-import { stratumNamesInText } from '../../core/stratumNamesInText';
-import type { Problem } from '../../core/types';
+import { stratumNamesInText } from '../../core/field/stratumNamesInText';
+import type { Problem } from '../../core/model/types';
 import { plannerStore } from '../plannerStoreInstance';
 import { usePlanner } from '../usePlanner';
 

@@ -1,5 +1,5 @@
-import { RNG_VERSION_CURRENT } from '../../core/rng';
-import { rngVersionOf, rngVersionText } from '../../core/rngStreams';
+import { RNG_VERSION_CURRENT } from '../../core/design/place/rng';
+import { rngVersionOf, rngVersionText } from '../../core/design/place/rngStreams';
 import { designSettingsSet } from '../../state/designActions';
 import { plannerStore } from '../plannerStoreInstance';
 import { attempt, usePlanner } from '../usePlanner';

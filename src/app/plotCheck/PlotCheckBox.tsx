@@ -1,8 +1,8 @@
 import { useEffect, useId } from 'react';
-import { footprintFormat } from '../../core/footprintParse';
-import { PLOT_CHECK_SYMBOLS } from '../../core/plotCheckSymbols';
-import { plotCheckCountsText, plotCheckSettingsText } from '../../core/plotCheckSettingsText';
-import type { FeatureFileOptions } from '../../io/parseFeatureFile';
+import { footprintFormat } from '../../core/design/footprintParse';
+import { PLOT_CHECK_SYMBOLS } from '../../core/plotCheck/plotCheckSymbols';
+import { plotCheckCountsText, plotCheckSettingsText } from '../../core/plotCheck/plotCheckSettingsText';
+import type { FeatureFileOptions } from '../../io/site/parseFeatureFile';
 import { plotCheckClear, plotCheckFileRead, plotCheckSettingsSet } from '../../state/plotCheckStore';
 import { ImportChoiceForm } from '../panels/ImportChoiceForm';
 import { plannerStore } from '../plannerStoreInstance';

@@ -1,4 +1,4 @@
-import { PLOT_CHECK_SYMBOLS } from '../../core/plotCheckSymbols';
+import { PLOT_CHECK_SYMBOLS } from '../../core/plotCheck/plotCheckSymbols';
 import { plotCheckSymbolDataUrl } from './plotCheckSymbolImages';
 import { usePlotCheck } from './plotCheckStoreInstance';
 

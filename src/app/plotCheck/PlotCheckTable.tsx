@@ -1,5 +1,5 @@
-import type { PlotCheckRecord } from '../../core/plotCheckTypes';
-import { plotCheckRecordsBySeverity } from '../../core/plotsCheck';
+import type { PlotCheckRecord } from '../../core/plotCheck/plotCheckTypes';
+import { plotCheckRecordsBySeverity } from '../../core/plotCheck/plotsCheck';
 import { plannerStore } from '../plannerStoreInstance';
 import { plotCheckStore, usePlotCheck } from './plotCheckStoreInstance';
 

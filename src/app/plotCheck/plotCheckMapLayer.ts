@@ -1,7 +1,7 @@
 import type { FeatureCollection } from 'geojson';
 import { type GeoJSONSource, type Map as MapLibreMap, Popup } from 'maplibre-gl';
-import type { PlotsCheckReport } from '../../core/plotCheckTypes';
-import { plotCheckIconRgba } from '../../io/plotIcons';
+import type { PlotsCheckReport } from '../../core/plotCheck/plotCheckTypes';
+import { plotCheckIconRgba } from '../../io/common/plotIcons';
 import { LABEL_PREFIX } from '../map/labelImages';
 import { plotCheckFollowSite, plotCheckStore } from './plotCheckStoreInstance';
 import { plotCheckPopupContent } from './plotCheckPopup';

@@ -1,7 +1,8 @@
-import type { PlotCheckRecord } from '../../core/plotCheckTypes';
-import { EXCLUSION_KIND_LABELS } from '../../core/exclusionKindNotes';
-import { EXCLUSION_KINDS } from '../../core/types';
+import type { PlotCheckRecord } from '../../core/plotCheck/plotCheckTypes';
+import { EXCLUSION_KIND_LABELS } from '../../core/site/exclusionKindNotes';
+import { EXCLUSION_KINDS } from '../../core/model/types';
 import { el } from '../dom';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 function row(term: string, value: string): [HTMLElement, HTMLElement] {
   return [el('dt', null, term), el('dd', null, value)];
@@ -14,7 +15,7 @@ function row(term: string, value: string): [HTMLElement, HTMLElement] {
  */
 export function plotCheckPopupContent(r: PlotCheckRecord): HTMLElement {
   const dl = el('dl', 'popup-facts');
-  const stratum = r.stratum ? `${r.stratum.name} (${r.stratum.code})` : r.holeIn ? `none: in a hole in ${r.holeIn.name}` : 'none';
+  const stratum = r.stratum ? stratumLabel(r.stratum.name, r.stratum.code) : r.holeIn ? `none: in a hole in ${r.holeIn.name}` : 'none';
   const pairs = [row('Stratum', stratum), row('In the file', r.where), row('Lat, lon', `${r.lat.toFixed(6)}, ${r.lon.toFixed(6)}`)];
   for (const k of EXCLUSION_KINDS) {
     const n = r.nearestByKind[k];

@@ -1,4 +1,4 @@
-import { STRATPLOT_VERSION } from '../../core/designRun';
+import { STRATPLOT_VERSION } from '../../core/common/version';
 import { downloadFile, fileSafeName } from '../downloadFile';
 import { plannerStore } from '../plannerStoreInstance';
 import { notify } from '../usePlanner';
@@ -21,10 +21,10 @@ export async function plotCheckReportDownload(kind: 'pdf' | 'csv'): Promise<void
   try {
     const base = `${fileSafeName(s.name, 'site')}-plot-check`;
     if (kind === 'csv') {
-      const { plotCheckReportCsv } = await import('../../io/plotCheckReportCsv');
+      const { plotCheckReportCsv } = await import('../../io/plotCheck/plotCheckReportCsv');
       downloadFile(`${base}.csv`, plotCheckReportCsv(report, meta), 'text/csv');
     } else {
-      const { plotCheckReportPdf } = await import('../../io/plotCheckReportPdf');
+      const { plotCheckReportPdf } = await import('../../io/plotCheck/plotCheckReportPdf');
       downloadFile(`${base}.pdf`, plotCheckReportPdf(report, s, meta, { paper: 'a4', design: showDesign ? result : null }), 'application/pdf');
     }
     notify('info', `${base}.${kind} written to your downloads.`);

@@ -1,5 +1,5 @@
 import { useStore } from 'zustand';
-import { InputError } from '../../core/InputError';
+import { InputError } from '../../core/common/InputError';
 import { type PlotCheckRunner, type PlotCheckState, plotCheckRun, plotCheckStoreCreate } from '../../state/plotCheckStore';
 import { plannerStore } from '../plannerStoreInstance';
 import { plannerWorkerStart } from '../siteAnalysisRunner';

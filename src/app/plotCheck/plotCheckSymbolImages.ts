@@ -1,5 +1,5 @@
-import type { PlotCheckSymbolKey } from '../../core/plotCheckSymbols';
-import { plotCheckIconPng } from '../../io/plotIcons';
+import type { PlotCheckSymbolKey } from '../../core/plotCheck/plotCheckSymbols';
+import { plotCheckIconPng } from '../../io/common/plotIcons';
 
 const urls = new Map<PlotCheckSymbolKey, string>();
 

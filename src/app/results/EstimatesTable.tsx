@@ -1,5 +1,5 @@
-import { COLLAPSE_RULE } from '../../core/collapseStrata';
-import type { EstimateReport } from '../../core/estimateFromResults';
+import { COLLAPSE_RULE } from '../../core/results/collapseStrata';
+import type { EstimateReport } from '../../core/results/estimateFromResults';
 import { fmtInterval, fmtValue } from './resultsFormat';
 
 const KIND_WORD = { measure: 'numeric', cover: 'cover %', count: 'count', presence: 'presence/absence' } as const;

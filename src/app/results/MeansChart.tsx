@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import type { EstimateReport } from '../../core/estimateFromResults';
-import { tQuantile95 } from '../../core/tQuantile';
+import type { EstimateReport } from '../../core/results/estimateFromResults';
+import { tQuantile95 } from '../../core/stats/tQuantile';
 import { chartLinear, chartTicks } from './chartScale';
 import { fmtInterval, fmtValue } from './resultsFormat';
 

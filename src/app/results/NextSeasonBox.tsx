@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { DesignSettings, PlotCollection } from '../../core/designTypes';
+import type { DesignSettings, PlotCollection } from '../../core/model/designTypes';
 import { resultsDesignPatch, resultsOptionsSet } from '../../state/resultsStore';
 import { fmtValue } from './resultsFormat';
 import { resultsStore, useResults } from './resultsStoreInstance';

@@ -1,4 +1,4 @@
-import { RECAPTURE_ASSUMPTIONS } from '../../core/recapture';
+import { RECAPTURE_ASSUMPTIONS } from '../../core/results/recapture';
 import { type RecaptureGridForm, recaptureGridAdd, recaptureGridRemove, recaptureGridSet } from '../../state/resultsStore';
 import { recaptureFormResult } from './recaptureFormResult';
 import { fmtInterval, fmtValue } from './resultsFormat';

@@ -1,7 +1,7 @@
-import { countNoun } from '../../core/countNoun';
+import { countNoun } from '../../core/common/countNoun';
 import { useId } from 'react';
-import type { PlotCollection } from '../../core/designTypes';
-import { RESULT_KINDS, type ResultKind } from '../../core/resultsCellParse';
+import type { PlotCollection } from '../../core/model/designTypes';
+import { RESULT_KINDS, type ResultKind } from '../../core/model/designTypes';
 import { resultsClear, resultsLoad, resultsMappingSet, resultsOptionsSet } from '../../state/resultsStore';
 import { resultsStore, useResults } from './resultsStoreInstance';
 

@@ -2,8 +2,8 @@
 import { act } from 'react';
 import { createRoot, type Root } from 'react-dom/client';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import type { DesignSettings } from '../../core/designTypes';
-import { plotCollectionInvented } from '../../core/plotCollectionInvented';
+import type { DesignSettings } from '../../core/model/designTypes';
+import { plotCollectionInvented } from '../../core/field/plotCollectionInvented';
 import { plannerPlotsNamed } from '../../state/plotsNamed';
 import { recaptureGridSet, resultsClear, resultsLoad, resultsOptionsSet } from '../../state/resultsStore';
 import { ResultsPanel } from './ResultsPanel';

@@ -1,9 +1,9 @@
 import { useEffect, useState } from 'react';
-import { COLLAPSE_RULE } from '../../core/collapseStrata';
-import type { DesignSettings, PlotCollection } from '../../core/designTypes';
-import type { EstimateReport } from '../../core/estimateFromResults';
-import type { Site } from '../../core/types';
-import { estimatesToCsv } from '../../io/estimatesToCsv';
+import { COLLAPSE_RULE } from '../../core/results/collapseStrata';
+import type { DesignSettings, PlotCollection } from '../../core/model/designTypes';
+import type { EstimateReport } from '../../core/results/estimateFromResults';
+import type { Site } from '../../core/model/types';
+import { estimatesToCsv } from '../../io/results/estimatesToCsv';
 import { resultsColouringSet, resultsOptionsSet } from '../../state/resultsStore';
 import { ColourLegend } from './ColourLegend';
 import { EstimatesTable } from './EstimatesTable';
@@ -30,12 +30,16 @@ export interface ResultsPanelProps {
 async function reportDownload(collection: PlotCollection, site: Site | null): Promise<string> {
   const s = resultsStore.getState();
   if (!s.report) throw new Error('no estimate to print');
-  const [{ designReportPdf }, { designReportEstimates }] = await Promise.all([import('../../io/designReportPdf'), import('../../io/designReportEstimates')]);
+  const [{ designReportPdf }, { designReportEstimates }, { exportContext }] = await Promise.all([
+    import('../../io/pdf/designReportPdf'),
+    import('../../io/results/designReportEstimates'),
+    import('../../core/field/exportContext'),
+  ]);
   const grids = s.grids.flatMap((g) => {
     const r = recaptureFormResult(g);
     return r.state === 'ok' ? [{ name: g.name, estimate: r.estimate }] : [];
   });
-  const bytes = designReportPdf(collection, site, { paper: 'a4', estimates: designReportEstimates(s.report, s.next, grids) });
+  const bytes = designReportPdf(exportContext(collection, site, { annotate: false }), { paper: 'a4', estimates: designReportEstimates(s.report, s.next, grids) });
   const name = `${fileSafeName(site?.name ?? 'design', 'results')}-report-${fileSafeName(s.report.variable, 'results')}.pdf`;
   downloadFile(name, bytes, 'application/pdf');
   return name;

@@ -1,4 +1,4 @@
-import type { Problem } from '../../core/types';
+import type { Problem } from '../../core/model/types';
 
 const SHOWN = 60;
 

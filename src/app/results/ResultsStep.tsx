@@ -1,5 +1,5 @@
 import { useCallback } from 'react';
-import type { DesignSettings } from '../../core/designTypes';
+import type { DesignSettings } from '../../core/model/designTypes';
 import { designSettingsSet } from '../../state/designActions';
 import { plannerPlotsNamed, stratumRecordById } from '../../state/plotsNamed';
 import { plannerStore } from '../plannerStoreInstance';

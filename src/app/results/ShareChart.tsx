@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { AllocationRow } from '../../core/designTypes';
+import type { AllocationRow } from '../../core/model/designTypes';
 import { fmtPct } from '../format';
 
 /** Each stratum's share of the plots allocated beside its share of the area the design weighted by. */

@@ -1,8 +1,8 @@
 import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it } from 'vitest';
-import { estimateFromResults } from '../../core/estimateFromResults';
-import { plotCollectionInvented } from '../../core/plotCollectionInvented';
-import { parseResultsCsv } from '../../io/parseResultsCsv';
+import { estimateFromResults } from '../../core/results/estimateFromResults';
+import { plotCollectionInvented } from '../../core/field/plotCollectionInvented';
+import { parseResultsCsv } from '../../io/results/parseResultsCsv';
 import { chartTicks } from './chartScale';
 import { MeansChart, stratumMeanBars } from './MeansChart';
 import { allocationShares, ShareChart } from './ShareChart';

@@ -1,5 +1,5 @@
-import { isInputError } from '../../core/InputError';
-import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/recapture';
+import { isInputError } from '../../core/common/InputError';
+import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/results/recapture';
 import type { RecaptureGridForm } from '../../state/resultsStore';
 
 /** What a recapture form gives: nothing yet, a message saying which field is wrong, or the estimate. */

@@ -1,7 +1,7 @@
 import type { FeatureCollection } from 'geojson';
 import type { Map as MapLibreMap } from 'maplibre-gl';
 import { describe, expect, it } from 'vitest';
-import { plotCollectionInvented } from '../../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../../core/field/plotCollectionInvented';
 import { plannerStoreCreate } from '../../state/plannerStore';
 import { resultsColouringSet } from '../../state/resultsStore';
 import { TEST_DESIGN } from '../../state/testDesign';

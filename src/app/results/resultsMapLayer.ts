@@ -1,6 +1,6 @@
 import type { FeatureCollection } from 'geojson';
 import type { GeoJSONSource, Map as MapLibreMap } from 'maplibre-gl';
-import type { PlotCollection } from '../../core/designTypes';
+import type { PlotCollection } from '../../core/model/designTypes';
 import type { PlannerStore } from '../../state/plannerStore';
 import { type ResultsColouring, resultsColouringSet } from '../../state/resultsStore';
 import { resultsStore } from './resultsStoreInstance';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { plotCollectionInvented } from '../../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../../core/field/plotCollectionInvented';
 import { resultsPlotColours, resultsRampColour, VIRIDIS_STOPS } from './resultsPlotColours';
 
 // Invented plot file (not a real site).

@@ -1,4 +1,4 @@
-import type { PlotCollection } from '../../core/designTypes';
+import type { PlotCollection } from '../../core/model/designTypes';
 
 /**
  * Ten evenly spaced stops of the viridis colour map (van der Walt & Smith, matplotlib 2.0, 2015),

@@ -2,7 +2,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { polygonAreaM2 } from '../../core/polygonAreaM2';
+import { polygonAreaM2 } from '../../core/geo/polygonAreaM2';
 import { runCli } from '../main';
 
 const X = 150.5;

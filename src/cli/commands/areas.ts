@@ -1,9 +1,10 @@
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { type StratumAreaTable, stratumAreaTable } from '../../core/stratumAreaTable';
+import { InputError } from '../../core/common/InputError';
+import { type StratumAreaTable, stratumAreaTable } from '../../core/design/stratumAreaTable';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { siteFromInputs } from '../siteFromInputs';
+import { M2_PER_HA } from '../../core/common/units';
 
 const USAGE = `stratplot areas <strata-file> [--field NAME] [--exclude FILE ...] [--boundary FILE] [--json]
                        [--layer NAME] [--epsg CODE] [--encoding NAME] [--x-column X --y-column Y]
@@ -45,8 +46,8 @@ function areasJson(t: StratumAreaTable): string {
 function areasText(t: StratumAreaTable): string {
   const head = ['stratum', 'features', 'mapped ha', 'share %', 'usable ha'];
   const usableTotal = t.rows.reduce((s, r) => s + r.usable_m2, 0);
-  const body = t.rows.map((r) => [r.stratum, String(r.features), (r.area_ha).toFixed(4), (r.share * 100).toFixed(1), (r.usable_m2 / 1e4).toFixed(4)]);
-  const total = ['total', String(t.rows.reduce((s, r) => s + r.features, 0)), (t.total_m2 / 1e4).toFixed(4), t.total_m2 > 0 ? '100.0' : '0.0', (usableTotal / 1e4).toFixed(4)];
+  const body = t.rows.map((r) => [r.stratum, String(r.features), (r.area_ha).toFixed(4), (r.share * 100).toFixed(1), (r.usable_m2 / M2_PER_HA).toFixed(4)]);
+  const total = ['total', String(t.rows.reduce((s, r) => s + r.features, 0)), (t.total_m2 / M2_PER_HA).toFixed(4), t.total_m2 > 0 ? '100.0' : '0.0', (usableTotal / M2_PER_HA).toFixed(4)];
   const rows = [head, ...body, total];
   const widths = head.map((_, c) => Math.max(...rows.map((r) => r[c].length)));
   const line = (r: string[]) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  ');
@@ -64,24 +65,12 @@ function areasText(t: StratumAreaTable): string {
 }
 
 function argsParse(argv: string[]) {
-  try {
-    return parseArgs({
-      args: argv,
-      options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' }, ...IMPORT_FLAG_SPECS },
-      allowPositionals: true,
-      strict: true,
-    });
-  } catch (error) {
-    const e = error as Error & { code?: string };
-    const named = /'([^']+)'/.exec(e.message)?.[1] ?? '';
-    const what =
-      e.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION'
-        ? `unknown option ${named}`
-        : e.code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE'
-          ? `option ${named.split(' ')[0]} needs a value`
-          : e.message.split('\n')[0];
-    throw new InputError(`${what} (see stratplot areas --help)`);
-  }
+  return parseArgs({
+    args: argv,
+    options: { field: { type: 'string' }, exclude: { type: 'string', multiple: true }, boundary: { type: 'string' }, json: { type: 'boolean' }, ...IMPORT_FLAG_SPECS },
+    allowPositionals: true,
+    strict: true,
+  });
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {

@@ -8,8 +8,8 @@ import geomagnetism from 'geomagnetism';
 import Papa from 'papaparse';
 import proj4 from 'proj4';
 import { describe, expect, it } from 'vitest';
-import { featuresToGeoPackage } from '../../io/featuresToGeoPackage';
-import { featuresToShapefileFiles } from '../../io/featuresToShapefileZip';
+import { featuresToGeoPackage } from '../../io/formats/geopackage/featuresToGeoPackage';
+import { featuresToShapefileFiles } from '../../io/formats/shapefile/featuresToShapefileZip';
 import { runCli } from '../main';
 
 const root = join(__dirname, '..', '..', '..');

@@ -1,23 +1,25 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { STRATPLOT_VERSION } from '../../core/designRun';
-import { FIELD_CAUTION } from '../../core/fieldCaution';
-import { footprintParse } from '../../core/footprintParse';
-import { InputError } from '../../core/InputError';
-import { plotCheckRecordJson } from '../../core/plotCheckRecordOut';
-import { plotCheckCountsText, plotCheckSettingsText } from '../../core/plotCheckSettingsText';
-import { PLOT_CHECK_SLACK_M, type PlotCheckRecord, type PlotsCheckReport } from '../../core/plotCheckTypes';
-import { plotCheckRecordsBySeverity, plotsCheck } from '../../core/plotsCheck';
-import { EXCLUSION_KINDS } from '../../core/types';
-import { parseFeatureFile } from '../../io/parseFeatureFile';
-import { type PlotCheckReportMeta, plotCheckReportCsv } from '../../io/plotCheckReportCsv';
-import { plotCheckReportPdf } from '../../io/plotCheckReportPdf';
-import { plotsFromFeatures } from '../../io/plotsFromFeatures';
+import { STRATPLOT_VERSION } from '../../core/common/version';
+import { FIELD_CAUTION } from '../../core/field/fieldCaution';
+import { footprintParse } from '../../core/design/footprintParse';
+import { InputError } from '../../core/common/InputError';
+import { plotCheckRecordJson } from '../../core/plotCheck/plotCheckRecordOut';
+import { plotCheckCountsText, plotCheckSettingsText } from '../../core/plotCheck/plotCheckSettingsText';
+import { PLOT_CHECK_SLACK_M, type PlotCheckRecord, type PlotsCheckReport } from '../../core/plotCheck/plotCheckTypes';
+import { plotCheckRecordsBySeverity, plotsCheck } from '../../core/plotCheck/plotsCheck';
+import { EXCLUSION_KINDS } from '../../core/model/types';
+import { parseFeatureFile } from '../../io/site/parseFeatureFile';
+import { type PlotCheckReportMeta, plotCheckReportCsv } from '../../io/plotCheck/plotCheckReportCsv';
+import { plotCheckReportPdf } from '../../io/plotCheck/plotCheckReportPdf';
+import { plotsFromFeatures } from '../../io/plots/plotsFromFeatures';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsRead, importOptionsFor } from '../importFlags';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
+import { M2_PER_HA } from '../../core/common/units';
+import { stratumLabel } from '../../core/field/stratumLabel';
 
 /** Exit status when at least one plot fails a check (0: every plot passes; 2: bad input). */
 export const CHECK_EXIT_FAILED = 4;
@@ -74,7 +76,7 @@ function distanceOption(v: string | undefined, name: string): number | undefined
 }
 
 function recordLine(r: PlotCheckRecord): string {
-  const where = r.stratum ? `${r.stratum.name} (${r.stratum.code})` : r.holeIn ? `in a hole in ${r.holeIn.name}` : 'no stratum';
+  const where = r.stratum ? stratumLabel(r.stratum.name, r.stratum.code) : r.holeIn ? `in a hole in ${r.holeIn.name}` : 'no stratum';
   const near = EXCLUSION_KINDS.flatMap((k) => (r.nearestByKind[k] ? [`${k} ${r.nearestByKind[k]!.distanceM.toFixed(1)} m`] : []));
   const route = r.access ? `; from ${r.access.accessPointName} ${r.access.distanceM.toFixed(0)} m at ${r.access.bearingTrueDeg.toFixed(1)}° true / ${r.access.bearingMagDeg.toFixed(1)}° magnetic` : '';
   const head = `${r.ok ? 'pass' : 'FAIL'} ${r.id} (${r.where}), ${where}${near.length ? `; nearest ${near.join(', ')}` : ''}${route}`;
@@ -83,7 +85,7 @@ function recordLine(r: PlotCheckRecord): string {
 
 function textReport(report: PlotsCheckReport, plotsFile: string, siteName: string): string {
   const head = ['stratum', 'usable ha', 'plots', 'passing', 'proportional'];
-  const rows = report.strata.map((s) => [`${s.name} (${s.code})`, (s.usableM2 / 1e4).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
+  const rows = report.strata.map((s) => [stratumLabel(s.name, s.code), (s.usableM2 / M2_PER_HA).toFixed(2), String(s.plots), String(s.passing), String(s.proportional)]);
   const widths = head.map((h, j) => Math.max(h.length, ...rows.map((x) => x[j].length)));
   const fmt = (cells: string[]) => cells.map((x, j) => (j === 0 ? x.padEnd(widths[j]) : x.padStart(widths[j]))).join('  ');
   return [
@@ -102,12 +104,7 @@ function textReport(report: PlotsCheckReport, plotsFile: string, siteName: strin
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {
-  let parsed: ReturnType<typeof parse>;
-  try {
-    parsed = parse(argv);
-  } catch (error) {
-    throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot check --help)`);
-  }
+  const parsed = parse(argv);
   const { values: o, positionals } = parsed;
   if (positionals.length !== 1) throw new InputError(`give exactly one plots file (got ${positionals.length}), e.g. stratplot check plots.gpx --strata strata.geojson`);
   if (!o.strata) throw new InputError('--strata FILE is required: plots are checked against the site it maps');

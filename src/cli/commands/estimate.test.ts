@@ -2,7 +2,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { plotCollectionInvented } from '../../core/plotCollectionInvented';
+import { plotCollectionInvented } from '../../core/field/plotCollectionInvented';
 import { runCli } from '../main';
 
 // Invented plot file and field results for an invented site (not real data).

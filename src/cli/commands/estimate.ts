@@ -1,14 +1,15 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { COLLAPSE_RULE } from '../../core/collapseStrata';
-import { type EstimateReport, estimateFromResults } from '../../core/estimateFromResults';
-import { InputError, isInputError } from '../../core/InputError';
-import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../../core/nextSeasonSampleSize';
-import { RESULT_KINDS, type ResultKind, resultsKindGuess } from '../../core/resultsCellParse';
-import { estimatesToCsv } from '../../io/estimatesToCsv';
-import { parsePlotFile } from '../../io/parsePlotFile';
-import { parseResultsCsv } from '../../io/parseResultsCsv';
+import { COLLAPSE_RULE } from '../../core/results/collapseStrata';
+import { type EstimateReport, estimateFromResults } from '../../core/results/estimateFromResults';
+import { InputError, isInputError } from '../../core/common/InputError';
+import { type NextSeasonSampleSize, nextSeasonSampleSize } from '../../core/results/nextSeasonSampleSize';
+import { resultsKindGuess } from '../../core/results/resultsCellParse';
+import { RESULT_KINDS, type ResultKind } from '../../core/model/designTypes';
+import { estimatesToCsv } from '../../io/results/estimatesToCsv';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
+import { parseResultsCsv } from '../../io/results/parseResultsCsv';
 import type { CliIo, Command } from '../command';
 import { optionNumber } from '../optionNumber';
 import { readInputFile } from '../readInput';
@@ -132,13 +133,7 @@ export const estimateCommand: Command = {
   summary: 'stratified estimates with 95 % CIs from field results',
   usage: USAGE,
   async run(argv, io) {
-    let parsed: ReturnType<typeof parseOptions>;
-    try {
-      parsed = parseOptions(argv);
-    } catch (error) {
-      if (error instanceof InputError) throw error;
-      throw new InputError(`${(error as Error).message} (see stratplot estimate --help)`);
-    }
+    const parsed = parseOptions(argv);
     const { values, positionals } = parsed;
     if (positionals.length !== 2) throw new InputError('give the plot file and the results CSV, e.g. stratplot estimate plots.geojson results.csv --value cover');
     if (!values.value) throw new InputError('--value FIELD is required: the results column to estimate');

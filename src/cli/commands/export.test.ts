@@ -8,7 +8,7 @@ import Papa from 'papaparse';
 import { GPX_XSD } from '../../../tests/schemas/paths';
 import { describe, expect, it } from 'vitest';
 import { samplePlots, sampleExclusions, sampleFeatures } from '../../io/fixtures/ioSamples';
-import { parseFeatureFile } from '../../io/parseFeatureFile';
+import { parseFeatureFile } from '../../io/site/parseFeatureFile';
 import { runCli } from '../main';
 
 function workspace() {

@@ -1,11 +1,11 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotRejections } from '../../core/plotFieldState';
-import type { Site } from '../../core/types';
-import { designOutputBytes } from '../../io/designOutput';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotRejections } from '../../core/field/plotFieldState';
+import type { Site } from '../../core/model/types';
+import { designOutputBytes } from '../../io/plots/designOutput';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { optionNumber } from '../optionNumber';
@@ -66,32 +66,27 @@ export const exportCommand: Command = {
   summary: 'write plots (and the site) as GPX, KML/KMZ, CSV, GeoJSON, shapefile, GeoPackage or PDF',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
-    let parsed: ReturnType<typeof parseArgs>;
-    try {
-      parsed = parseArgs({
-        args: argv,
-        allowPositionals: true,
-        options: {
-          format: { type: 'string' },
-          out: { type: 'string' },
-          strata: { type: 'string' },
-          field: { type: 'string' },
-          'site-name': { type: 'string' },
-          exclude: { type: 'string', multiple: true },
-          access: { type: 'string', multiple: true },
-          bom: { type: 'boolean' },
-          paper: { type: 'string' },
-          'survey-date': { type: 'string' },
-          from: { type: 'string' },
-          'cliff-near-m': { type: 'string' },
-          'private-near-m': { type: 'string' },
-          'remote-km': { type: 'string' },
-          ...IMPORT_FLAG_SPECS,
-        },
-      });
-    } catch (error) {
-      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot export --help)`);
-    }
+    const parsed = parseArgs({
+      args: argv,
+      allowPositionals: true,
+      options: {
+        format: { type: 'string' },
+        out: { type: 'string' },
+        strata: { type: 'string' },
+        field: { type: 'string' },
+        'site-name': { type: 'string' },
+        exclude: { type: 'string', multiple: true },
+        access: { type: 'string', multiple: true },
+        bom: { type: 'boolean' },
+        paper: { type: 'string' },
+        'survey-date': { type: 'string' },
+        from: { type: 'string' },
+        'cliff-near-m': { type: 'string' },
+        'private-near-m': { type: 'string' },
+        'remote-km': { type: 'string' },
+        ...IMPORT_FLAG_SPECS,
+      },
+    });
     const { values, positionals } = parsed as { values: Record<string, string | string[] | boolean | undefined>; positionals: string[] };
     if (positionals.length !== 1) throw new InputError('give one plot file, e.g. stratplot export plots.geojson --format gpx --out plots.gpx');
     const formatName = values.format as string | undefined;

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { jStat } from 'jstat';
 import { describe, expect, it } from 'vitest';
-import type { PlotCollection } from '../../core/designTypes';
+import type { PlotCollection } from '../../core/model/designTypes';
 import { runCli } from '../main';
 
 const root = join(__dirname, '..', '..', '..');

@@ -1,20 +1,21 @@
 import { writeFile } from 'node:fs/promises';
 import { basename, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { designRun } from '../../core/designRun';
-import { designSettingsDefault } from '../../core/designSettingsDefault';
-import type { DesignSettings, PlotCollection } from '../../core/designTypes';
-import { footprintParse } from '../../core/footprintParse';
-import { InputError } from '../../core/InputError';
-import { plotCollectionNamed } from '../../core/plotCollectionNamed';
-import { RNG_VERSION_CURRENT, rngSeedFromClock } from '../../core/rng';
-import { rngVersionOf, rngVersionText } from '../../core/rngStreams';
-import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/designOutput';
+import { designRun } from '../../core/design/designRun';
+import { designSettingsDefault } from '../../core/design/designSettingsDefault';
+import type { DesignSettings, PlotCollection } from '../../core/model/designTypes';
+import { footprintParse } from '../../core/design/footprintParse';
+import { InputError } from '../../core/common/InputError';
+import { plotCollectionNamed } from '../../core/field/plotCollectionNamed';
+import { rngSeedFromClock } from '../../core/design/place/rng';
+import { rngVersionOf, rngVersionText } from '../../core/design/place/rngStreams';
+import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/plots/designOutput';
 import { type CliIo, type Command, CommandStatus, EXIT_SHORT } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportChoices, importFlagsHelp, importFlagsRead, importOtherFile } from '../importFlags';
 import { optionNumber } from '../optionNumber';
 import { readInputFile } from '../readInput';
 import { siteFromInputs } from '../siteFromInputs';
+import { M2_PER_HA } from '../../core/common/units';
 
 const USAGE = `stratplot plan <strata-file> --plots N [options]
 
@@ -88,8 +89,8 @@ function wholeOption(v: string | undefined, name: string): number | undefined {
   return x;
 }
 
-function rngVersionOption(v: string | undefined): 1 | 2 {
-  if (v === undefined) return RNG_VERSION_CURRENT;
+function rngVersionOption(v: string | undefined): 1 | 2 | undefined {
+  if (v === undefined) return undefined;
   if (v === '1' || v === '2') return Number(v) as 1 | 2;
   throw new InputError(`--rng-version needs 1 or 2, got "${v}"`);
 }
@@ -124,8 +125,8 @@ function summaryTable(c: PlotCollection): string {
   const head = ['stratum', 'mapped ha', 'usable ha', 'share', 'plots', 'reserve', 'capacity'];
   const rows = c.design.allocation.map((r) => [
     r.stratum,
-    (r.mapped_m2 / 1e4).toFixed(2),
-    (r.usable_m2 / 1e4).toFixed(2),
+    (r.mapped_m2 / M2_PER_HA).toFixed(2),
+    (r.usable_m2 / M2_PER_HA).toFixed(2),
     `${(r.share * 100).toFixed(1)} %`,
     String(r.plots),
     String(r.reserve),
@@ -145,12 +146,7 @@ function summaryTable(c: PlotCollection): string {
 }
 
 async function run(argv: string[], io: CliIo): Promise<number> {
-  let parsed: ReturnType<typeof parse>;
-  try {
-    parsed = parse(argv);
-  } catch (error) {
-    throw new InputError((error as Error).message.split('\n')[0]);
-  }
+  const parsed = parse(argv);
   const { values: o, positionals } = parsed;
   if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot plan --help`);
   if (o.out !== undefined) {
@@ -199,27 +195,27 @@ async function run(argv: string[], io: CliIo): Promise<number> {
   }
   const settings = designSettingsDefault({
     plots: plots ?? 0,
-    allocation: (o.allocation ?? 'proportional') as DesignSettings['allocation'],
-    shareBasis: (o['share-basis'] ?? 'usable') as DesignSettings['shareBasis'],
-    minPerStratum: wholeOption(o['min-per-stratum'], '--min-per-stratum') ?? 2,
+    allocation: o.allocation as DesignSettings['allocation'] | undefined,
+    shareBasis: o['share-basis'] as DesignSettings['shareBasis'] | undefined,
+    minPerStratum: wholeOption(o['min-per-stratum'], '--min-per-stratum'),
     sd: keyValues(o.sd, '--sd', keys),
     cost: keyValues(o.cost, '--cost', keys),
     targetHalfwidth,
     budget,
-    pilotMean: numberOption(o['pilot-mean'], '--pilot-mean') ?? null,
-    spacingM: numberOption(o.spacing, '--spacing') ?? 0,
-    footprint: footprintParse(o.footprint ?? 'point', '--footprint'),
-    edgeBufferM: numberOption(o['edge-buffer'], '--edge-buffer') ?? 0,
-    reservePerStratum: wholeOption(o.reserve, '--reserve') ?? 0,
+    pilotMean: numberOption(o['pilot-mean'], '--pilot-mean'),
+    spacingM: numberOption(o.spacing, '--spacing'),
+    footprint: o.footprint === undefined ? undefined : footprintParse(o.footprint, '--footprint'),
+    edgeBufferM: numberOption(o['edge-buffer'], '--edge-buffer'),
+    reservePerStratum: wholeOption(o.reserve, '--reserve'),
     method: method as DesignSettings['method'],
-    gridSpacingM: numberOption(o['grid-spacing'], '--grid-spacing') ?? null,
-    gridAngleDeg: numberOption(o['grid-angle'], '--grid-angle') ?? 0,
-    baseline: o.baseline ? await readBaseline(io, o.baseline, imports) : null,
-    transectIntervalM: numberOption(o['transect-interval'], '--transect-interval') ?? null,
-    quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval') ?? null,
+    gridSpacingM: numberOption(o['grid-spacing'], '--grid-spacing'),
+    gridAngleDeg: numberOption(o['grid-angle'], '--grid-angle'),
+    baseline: o.baseline ? await readBaseline(io, o.baseline, imports) : undefined,
+    transectIntervalM: numberOption(o['transect-interval'], '--transect-interval'),
+    quadratIntervalM: numberOption(o['quadrat-interval'], '--quadrat-interval'),
     seed,
     rngVersion: rngVersionOption(o['rng-version']),
-    redistributeShortfall: o.redistribute ?? false,
+    redistributeShortfall: o.redistribute,
   });
   const collection = designRun(site, settings);
   // The plot file names strata as people read them (current name and code), as every export does.

@@ -1,6 +1,6 @@
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/recapture';
+import { InputError } from '../../core/common/InputError';
+import { type RecaptureEstimate, recaptureEffectiveAreaHa, recaptureEstimate } from '../../core/results/recapture';
 import type { CliIo, Command } from '../command';
 import { optionNumber } from '../optionNumber';
 
@@ -78,27 +78,22 @@ export const recaptureCommand: Command = {
   summary: 'mark–recapture abundance and density (Petersen, Chapman)',
   usage: USAGE,
   async run(argv, io) {
-    let values: Record<string, string | boolean | undefined>;
-    try {
-      ({ values } = parseArgs({
-        args: argv,
-        strict: true,
-        allowPositionals: false,
-        options: {
-          marked: { type: 'string' },
-          caught: { type: 'string' },
-          recaptured: { type: 'string' },
-          'grid-area-ha': { type: 'string' },
-          'grid-spacing': { type: 'string' },
-          rows: { type: 'string' },
-          cols: { type: 'string' },
-          'strip-m': { type: 'string' },
-          json: { type: 'boolean' },
-        },
-      }));
-    } catch (error) {
-      throw new InputError(`${(error as Error).message} (see stratplot recapture --help)`);
-    }
+    const { values } = parseArgs({
+      args: argv,
+      strict: true,
+      allowPositionals: false,
+      options: {
+        marked: { type: 'string' },
+        caught: { type: 'string' },
+        recaptured: { type: 'string' },
+        'grid-area-ha': { type: 'string' },
+        'grid-spacing': { type: 'string' },
+        rows: { type: 'string' },
+        cols: { type: 'string' },
+        'strip-m': { type: 'string' },
+        json: { type: 'boolean' },
+      },
+    });
     const counts = { marked: count(values, 'marked'), caught: count(values, 'caught'), recaptured: count(values, 'recaptured') };
     const effectiveAreaHa = areaFrom(values);
     const r = recaptureEstimate(counts, { effectiveAreaHa });

@@ -3,8 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import type { PlotCollection } from '../../core/designTypes';
-import { FIELD_CAUTION } from '../../core/fieldCaution';
+import type { PlotCollection } from '../../core/model/designTypes';
+import { FIELD_CAUTION } from '../../core/field/fieldCaution';
 import { runCli } from '../main';
 
 // An invented site (no real place): two strata side by side, the second carrying its own label and

@@ -1,9 +1,9 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotsRejectAndPromote } from '../../core/plotsRejectAndPromote';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotsRejectAndPromote } from '../../core/field/plotsRejectAndPromote';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { readInputFile } from '../readInput';
 
@@ -39,12 +39,7 @@ export const rejectCommand: Command = {
   summary: 'record a plot the crew cannot sample (reason, time) and promote the next reserve',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
-    let parsed: ReturnType<typeof parse>;
-    try {
-      parsed = parse(argv);
-    } catch (error) {
-      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot reject --help)`);
-    }
+    const parsed = parse(argv);
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError('give one plot file, e.g. stratplot reject plots.geojson --plot HEA-03 --reason "Unsafe to reach" --out plots.geojson');
     if (!o.plot) throw new InputError('--plot ID is required: the plot to reject');

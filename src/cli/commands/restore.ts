@@ -1,7 +1,7 @@
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { plotsRestore } from '../../core/plotsRestore';
-import { parsePlotFile } from '../../io/parsePlotFile';
+import { InputError } from '../../core/common/InputError';
+import { plotsRestore } from '../../core/field/plotsRestore';
+import { parsePlotFile } from '../../io/plots/parsePlotFile';
 import type { CliIo, Command } from '../command';
 import { readInputFile } from '../readInput';
 import { plotFileWrite } from './reject';
@@ -20,12 +20,7 @@ export const restoreCommand: Command = {
   summary: 'undo a rejection: the plot is to be visited again, its reserve waits again',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
-    let parsed: ReturnType<typeof parse>;
-    try {
-      parsed = parse(argv);
-    } catch (error) {
-      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot restore --help)`);
-    }
+    const parsed = parse(argv);
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError('give one plot file, e.g. stratplot restore plots.geojson --plot HEA-03 --out plots.geojson');
     if (!o.plot) throw new InputError('--plot ID is required: the rejected plot to restore');

@@ -1,10 +1,10 @@
 import { writeFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { InputError } from '../../core/InputError';
-import { rngSeedFromClock } from '../../core/rng';
-import { type TrapGridLayout, trapGridsPlace } from '../../core/trapGridsPlace';
-import { designOutputBytes } from '../../io/designOutput';
+import { InputError } from '../../core/common/InputError';
+import { rngSeedFromClock } from '../../core/design/place/rng';
+import { type TrapGridLayout, trapGridsPlace } from '../../core/design/trapGridsPlace';
+import { designOutputBytes } from '../../io/plots/designOutput';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, importFlagsHelp, importFlagsRead } from '../importFlags';
 import { optionNumber } from '../optionNumber';
@@ -72,12 +72,7 @@ export const trapsCommand: Command = {
   summary: 'place mark–recapture trapping grids inside strata',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
-    let parsed: ReturnType<typeof parse>;
-    try {
-      parsed = parse(argv);
-    } catch (error) {
-      throw new InputError(`${(error as Error).message.split('\n')[0]} (see stratplot traps --help)`);
-    }
+    const parsed = parse(argv);
     const { values: o, positionals } = parsed;
     if (positionals.length !== 1) throw new InputError(`give exactly one strata file (got ${positionals.length}); see stratplot traps --help`);
     const imports = importFlagsRead(o);

@@ -1,0 +1,161 @@
+import type { AllocationResult } from './allocate/allocateWithMinimum';
+import { designAllocation } from './designAllocation';
+import { designPlace } from './designPlace';
+import { designSettingsCheck } from './designSettingsCheck';
+import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
+import { designUsableAreas } from './designUsableAreas';
+import { designStatements } from './designStatements';
+import type { AllocationRow, DesignSettings, PlotCollection } from '../model/designTypes';
+import { InputError } from '../common/InputError';
+import { placementConstraintsBuild } from './place/placementConstraints';
+import { plotIdsFor } from './place/plotIds';
+import { plotRecord } from './plotRecord';
+import { rngStreams, rngVersionOf, rngVersionText } from './place/rngStreams';
+import { plotsInStrataCheck } from './plotsInStrataCheck';
+import { siteLocalFrame } from '../geo/siteLocalFrame';
+import type { Site } from '../model/types';
+import { STRATPLOT_VERSION } from '../common/version';
+import { M2_PER_HA, roundTo } from '../common/units';
+
+/** Hooks for a long design run (the web worker passes these). */
+export interface DesignRunOptions {
+  /** Called with a fraction in [0, 1] and a stage name. */
+  onProgress?: (fraction: number, stage: string) => void;
+}
+
+/**
+ * Makes a whole survey design: stratum areas on the WGS84 ellipsoid (mapped and usable), the
+ * allocation of plots (proportional, equal or Neyman, the smallest size meeting a target 95 % CI
+ * half-width, or the largest a budget pays for; see designAllocation), placement in the site's UTM frame under every constraint (footprint wholly inside its
+ * stratum, edge buffer, clear of buffered exclusions, minimum spacing), ranked reserves, and the
+ * design summary with warnings and statements. Pure and deterministic: the same site, settings and
+ * seed give byte-identical output in Node and in browsers.
+ * Sources: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (allocation and sample size);
+ * Robertson et al. 2013 (balanced acceptance sampling); see each step's module.
+ * A relative target half-width is a fraction of `pilotMean` (0.1 = 10 %).
+ * Throws InputError for settings or a map that make the design impossible (naming what and where).
+ * The planner cancels a run by ending its worker, so the run polls nothing.
+ */
+export function designRun(site: Site, settings: DesignSettings, options: DesignRunOptions = {}): PlotCollection {
+  designSettingsCheck(settings);
+  const progress = options.onProgress ?? (() => {});
+  if (site.strata.length === 0) throw new InputError('the site has no strata');
+  designSizeCheck(settings, site.strata.length);
+  placementPolygonsCheck(site);
+  progress(0, 'areas');
+  const frame = siteLocalFrame(site.parts);
+  const keys = site.strata.map((s) => s.key);
+  const areas = designUsableAreas(site, frame);
+  const { mapped, usable } = areas;
+  const basis = settings.shareBasis === 'usable' ? usable : mapped;
+  const totalBasis = basis.reduce((a, b) => a + b, 0);
+  if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
+  progress(0.2, 'allocation');
+  const warnings: string[] = [...areas.warnings];
+  // A stratum with no basis area cannot hold a plot: it is left out of the allocation, and said so.
+  const active = keys.map((_, i) => i).filter((i) => basis[i] > 0);
+  for (let i = 0; i < keys.length; i++) {
+    if (basis[i] > 0) continue;
+    warnings.push(`stratum "${keys[i]}" has no ${settings.shareBasis} area (buffered exclusions cover it): it gets no plots and the estimates do not cover it.`);
+  }
+  const strataBasis = active.map((i) => ({ key: keys[i], basisM2: basis[i] }));
+  const extraStatements: string[] = [];
+  let allocation: AllocationResult | null = null;
+  let weights = basis.slice();
+  if (settings.method === 'random' || settings.method === 'balanced') {
+    const planned = designAllocation(strataBasis, settings);
+    allocation = planned.allocation;
+    extraStatements.push(...planned.statements);
+    weights = keys.map(() => 0);
+    active.forEach((i, k) => {
+      weights[i] = planned.weights[k];
+    });
+    // Back from the strata that have ground to every stratum, in site order.
+    const plots = keys.map(() => 0);
+    active.forEach((i, k) => {
+      plots[i] = allocation!.plots[k];
+    });
+    allocation = { ...allocation, plots };
+  }
+  progress(0.3, 'placing');
+  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
+  const rngVersion = rngVersionOf(settings);
+  const streams = rngStreams(settings.seed, rngVersion);
+  let ticks = 0;
+  const placement = designPlace(constraints, settings, {
+    wanted: allocation?.plots ?? keys.map(() => 0),
+    weights,
+    basisM2: basis,
+    streams,
+    hooks: {
+      tick: () => {
+        if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
+      },
+    },
+  });
+  warnings.push(...placement.warnings);
+  progress(0.9, 'writing');
+  const ids = plotIdsFor(site.strata, placement.primaries, placement.reserves);
+  const counters = keys.map(() => ({ primary: 0, reserve: 0 }));
+  const density = keys.map((_, i) => (basis[i] > 0 ? placement.primaries[i] / (basis[i] / M2_PER_HA) : 0));
+  const drafts = placement.placed.x.map((x, k) => {
+    const s = placement.placed.stratum[k];
+    const isReserve = placement.placed.reserve[k];
+    const rank = isReserve ? ++counters[s].reserve : ++counters[s].primary;
+    return {
+      order: s * 2 + (isReserve ? 1 : 0),
+      draft: {
+        plotId: isReserve ? ids[s].reserve[rank - 1] : ids[s].primary[rank - 1],
+        stratum: keys[s],
+        role: isReserve ? ('reserve' as const) : ('primary' as const),
+        rank,
+        x,
+        y: placement.placed.y[k],
+        densityPerHa: density[s],
+        transect: placement.placed.transect[k],
+        chainageM: placement.placed.chainageM[k],
+      },
+    };
+  });
+  // Stratum by stratum, primaries then reserves, each in rank order (a stable sort keeps the rank order).
+  drafts.sort((a, b) => a.order - b.order);
+  plotsInStrataCheck(
+    site,
+    drafts.map(({ draft }) => {
+      const [lon, lat] = constraints.frame.toLonLat(draft.x, draft.y);
+      return { id: draft.plotId, stratum: draft.stratum, lon, lat };
+    }),
+  );
+  const features = drafts.map((d) => plotRecord(constraints, d.draft));
+  const rows: AllocationRow[] = keys.map((key, i) => ({
+    stratum: key,
+    mapped_m2: roundTo(mapped[i], 2),
+    usable_m2: roundTo(usable[i], 2),
+    share: roundTo(basis[i] / totalBasis, 6),
+    plots: placement.primaries[i],
+    reserve: placement.reserves[i],
+    capacity: placement.capacity[i],
+  }));
+  const statements = [...designStatements(settings, constraints.convergenceDeg), ...placement.statements, ...extraStatements];
+  statements.push(`Seed ${settings.seed}, ${rngVersionText(rngVersion)}.`);
+  if (rngVersion === 1) {
+    warnings.push(
+      'Made with random generator version 1, as plans saved before version 2 were: the plots are reproduced exactly, but designs from neighbouring seeds are correlated. Switch to version 2 for a new design.',
+    );
+  }
+  progress(1, 'done');
+  return {
+    type: 'FeatureCollection',
+    features,
+    design: {
+      settings: { ...settings, rngVersion },
+      seed: settings.seed,
+      crs: { utm_zone: frame.utmZone, epsg: frame.epsg },
+      allocation: rows,
+      warnings,
+      statements,
+      software: { name: 'stratplot', version: STRATPLOT_VERSION },
+    },
+  };
+}

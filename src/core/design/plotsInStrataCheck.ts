@@ -1,0 +1,141 @@
+import Flatbush from 'flatbush';
+import { InputError } from '../common/InputError';
+import { siteLongitudeUnwrap } from '../geo/siteLocalFrame';
+import type { Site } from '../model/types';
+
+/** One placed plot to check: its WGS84 position and the stratum it was placed in. */
+export interface PlacedPlotLonLat {
+  id: string;
+  stratum: string;
+  lon: number;
+  lat: number;
+}
+
+/** Mean Earth radius, m (IUGG R1), for the edge-model tolerance. */
+const EARTH_RADIUS_M = 6_371_008.8;
+/** Metres per degree of latitude and of longitude at the equator, for local distances (common practice, no source). */
+const M_PER_DEG_LAT = 110_574;
+const M_PER_DEG_LON = 111_320;
+const CHUNK = 8;
+
+/** One stratum's edges in unwrapped lon/lat (x1, y1, x2, y2 …), chunked in a flatbush index. */
+interface StratumEdges {
+  edges: Float64Array;
+  index: Flatbush;
+  /** Longest edge, metres (roughly), which bounds the tolerance. */
+  longestM: number;
+}
+
+function edgesOf(site: Site, key: string, unwrap: (lon: number) => number): StratumEdges | null {
+  const flat: number[] = [];
+  const chunks: number[][] = [];
+  let longestM = 0;
+  for (const part of site.parts) {
+    if (part.stratum !== key) continue;
+    const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
+    for (const poly of polys) {
+      for (const ring of poly) {
+        for (let i = 0; i + 1 < ring.length; i++) {
+          if (flat.length % (4 * CHUNK) === 0) chunks.push([Infinity, Infinity, -Infinity, -Infinity]);
+          const x1 = unwrap(ring[i][0]);
+          const y1 = ring[i][1];
+          const x2 = unwrap(ring[i + 1][0]);
+          const y2 = ring[i + 1][1];
+          flat.push(x1, y1, x2, y2);
+          const box = chunks[chunks.length - 1];
+          box[0] = Math.min(box[0], x1, x2);
+          box[1] = Math.min(box[1], y1, y2);
+          box[2] = Math.max(box[2], x1, x2);
+          box[3] = Math.max(box[3], y1, y2);
+          const kx = Math.cos((((y1 + y2) / 2) * Math.PI) / 180) * M_PER_DEG_LON;
+          longestM = Math.max(longestM, Math.hypot((x2 - x1) * kx, (y2 - y1) * M_PER_DEG_LAT));
+        }
+        // Chunks never span two rings' gap as one edge; a new ring starts a new chunk.
+        while (flat.length % (4 * CHUNK) !== 0) flat.push(Number.NaN, Number.NaN, Number.NaN, Number.NaN);
+      }
+    }
+  }
+  if (chunks.length === 0) return null;
+  const index = new Flatbush(chunks.length);
+  for (const b of chunks) index.add(b[0], b[1], b[2], b[3]);
+  index.finish();
+  return { edges: Float64Array.from(flat), index, longestM };
+}
+
+/** Sagitta bound, metres: how far the straight edges of the grid or of lon/lat may stand from the geodesic one of length L. */
+function edgeToleranceM(lengthM: number, latDeg: number): number {
+  return (lengthM * lengthM * (1 + Math.abs(Math.tan((latDeg * Math.PI) / 180)))) / (8 * EARTH_RADIUS_M) + 0.05;
+}
+
+/** Whether the point lies inside the stratum (crossing number to the east, half-open in y). */
+function isInside(s: StratumEdges, x: number, y: number): boolean {
+  let inside = false;
+  for (const c of s.index.search(x, y, Number.POSITIVE_INFINITY, y)) {
+    for (let e = c * CHUNK * 4; e < (c + 1) * CHUNK * 4 && e < s.edges.length; e += 4) {
+      const y1 = s.edges[e + 1];
+      const y2 = s.edges[e + 3];
+      if (!(y1 > y) !== !(y2 > y) && !Number.isNaN(y1)) {
+        const x1 = s.edges[e];
+        const x2 = s.edges[e + 2];
+        if (x1 + ((y - y1) / (y2 - y1)) * (x2 - x1) > x) inside = !inside;
+      }
+    }
+  }
+  return inside;
+}
+
+/** Distance, metres, from the point to the nearest edge within `reachM`, with that edge's tolerance; null when none is that near. */
+function nearestEdge(s: StratumEdges, x: number, y: number, reachM: number): { distanceM: number; toleranceM: number } | null {
+  const kx = Math.max(Math.cos((y * Math.PI) / 180) * M_PER_DEG_LON, 1e-6);
+  const dx = reachM / kx;
+  const dy = reachM / M_PER_DEG_LAT;
+  let best: { distanceM: number; toleranceM: number } | null = null;
+  for (const c of s.index.search(x - dx, y - dy, x + dx, y + dy)) {
+    for (let e = c * CHUNK * 4; e < (c + 1) * CHUNK * 4 && e < s.edges.length; e += 4) {
+      if (Number.isNaN(s.edges[e])) continue;
+      const ax = (s.edges[e] - x) * kx;
+      const ay = (s.edges[e + 1] - y) * M_PER_DEG_LAT;
+      const bx = (s.edges[e + 2] - x) * kx;
+      const by = (s.edges[e + 3] - y) * M_PER_DEG_LAT;
+      const ex = bx - ax;
+      const ey = by - ay;
+      const len2 = ex * ex + ey * ey;
+      const t = len2 > 0 ? Math.max(0, Math.min(1, -(ax * ex + ay * ey) / len2)) : 0;
+      const d = Math.hypot(ax + t * ex, ay + t * ey);
+      if (!best || d < best.distanceM) best = { distanceM: d, toleranceM: edgeToleranceM(Math.sqrt(len2), y) };
+    }
+  }
+  return best;
+}
+
+/**
+ * Checks, after placement in the UTM frame, that every plot's WGS84 position lies inside its
+ * stratum on the ellipsoid (crossing number over the stratum's rings in lon/lat, unwrapped across
+ * the antimeridian as the site frame is). A plot just outside is accepted when it is within the
+ * distance by which the grid's straight edges, lon/lat's straight edges and the ellipsoid's
+ * geodesic edges may differ (L²(1 + |tan φ|)/8R for an edge of length L, plus 5 cm for rounding the
+ * coordinates to 1 cm); beyond that, the frame has distorted the site and the design is refused
+ * rather than handed over with a plot outside its stratum.
+ * Source of the test: the crossing-number rule (Shimrat 1962, ACM Algorithm 112; common practice).
+ * Throws InputError naming the plot, its stratum and how far outside it lies.
+ */
+export function plotsInStrataCheck(site: Site, plots: readonly PlacedPlotLonLat[]): void {
+  const unwrap = siteLongitudeUnwrap(site.parts);
+  const cache = new Map<string, StratumEdges | null>();
+  for (const p of plots) {
+    let s = cache.get(p.stratum);
+    if (s === undefined) {
+      s = edgesOf(site, p.stratum, unwrap);
+      cache.set(p.stratum, s);
+    }
+    const x = unwrap(p.lon);
+    if (s && isInside(s, x, p.lat)) continue;
+    const reach = s ? edgeToleranceM(s.longestM, p.lat) : 0;
+    const near = s ? nearestEdge(s, x, p.lat, reach) : null;
+    if (near && near.distanceM <= near.toleranceM) continue;
+    const how = near ? `${near.distanceM.toFixed(1)} m` : `more than ${Math.max(1, Math.round(reach))} m`;
+    throw new InputError(
+      `plot ${p.id} was placed at ${p.lon.toFixed(6)}, ${p.lat.toFixed(6)}, ${how} outside its stratum "${p.stratum}" on the ellipsoid: the site is too distorted in its UTM frame; split it into smaller sites`,
+    );
+  }
+}
