@@ -1,37 +1,21 @@
 import Flatbush from 'flatbush';
-import { polygonsIntersection } from '../geometry/polygonClip';
-import { areaGeometryPlanar, type PolygonsLonLat, planarPieces } from '../geometry/areaGeometryPlanar';
-import { problemMake } from '../common/problemMake';
+import { areaGeometryPlanar, type PolygonsLonLat } from '../geometry/areaGeometryPlanar';
+import { strataOverlapCandidates } from './strataOverlapCandidates';
+import { boxesMayOverlap, partBox, strataPairOverlap } from './strataOverlapsByClipping';
 import type { Problem, StratumPart } from '../model/types';
 
-/** Overlaps smaller than this, m², are taken as digitising noise on shared edges (common practice, no source). */
-export const MIN_OVERLAP_M2 = 0.01;
-
-/** More than the m² of one square degree anywhere (111.32 km per degree at the equator, × 1.2). */
-const BOX_M2_PER_DEG2 = (1.2 * 111_320) ** 2;
-
-/** Lon/lat bounding box of a part. */
-function partBox(part: StratumPart): [number, number, number, number] {
-  const box: [number, number, number, number] = [Infinity, Infinity, -Infinity, -Infinity];
-  const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
-  for (const poly of polys) {
-    for (const [lon, lat] of poly[0] ?? []) {
-      if (lon < box[0]) box[0] = lon;
-      if (lat < box[1]) box[1] = lat;
-      if (lon > box[2]) box[2] = lon;
-      if (lat > box[3]) box[3] = lat;
-    }
-  }
-  return box;
-}
+export { MIN_OVERLAP_M2 } from './strataOverlapsByClipping';
 
 /**
  * Pairs of strata features that overlap (a point in two features), as errors with the overlap's
  * ellipsoidal area (m²) and a position inside it. Features of different strata make the design
  * ambiguous; two features of one stratum would count their overlap twice in the mapped area.
- * Candidate pairs come from a flatbush index of bounding boxes, then polyclip-ts intersects each
- * pair in plane lon/lat (so shared edges stay exactly shared) and the overlap is measured on the
- * ellipsoid. `indices[i]` is the feature index reported for `parts[i]`.
+ * A screen over all edges at once (strataOverlapCandidates: shared edges cancelled by a hash of
+ * their ends, a sweep for contacts, one point-in-polygon test per run of edges) proves most pairs
+ * apart; only the pairs it cannot clear are intersected with polyclip-ts in plane lon/lat (so shared
+ * edges stay exactly shared) and measured on the ellipsoid, exactly as strataOverlapsByClipping
+ * does for every pair, with the same problems in the same order.
+ * `indices[i]` is the feature index reported for `parts[i]`.
  */
 export function strataOverlaps(parts: readonly StratumPart[], indices?: readonly number[]): Problem[] {
   if (parts.length < 2) return [];
@@ -39,33 +23,34 @@ export function strataOverlaps(parts: readonly StratumPart[], indices?: readonly
   const index = new Flatbush(parts.length);
   for (const b of boxes) index.add(b[0], b[1], b[2], b[3]);
   index.finish();
+  // Only parts whose box meets another part's box go through the screen (separate strata cost nothing).
+  const near = new Uint8Array(parts.length);
+  for (let i = 0; i < parts.length; i++) {
+    const b = boxes[i];
+    for (const j of index.search(b[0], b[1], b[2], b[3])) {
+      if (j === i || !boxesMayOverlap(b, boxes[j])) continue;
+      near[i] = 1;
+      near[j] = 1;
+    }
+  }
+  const screened = parts.map((_, i) => i).filter((i) => near[i]);
+  if (screened.length < 2) return [];
+  const found = strataOverlapCandidates(
+    screened.map((i) => parts[i]),
+    screened.map((i) => boxes[i]),
+  );
+  if (found.size === 0) return [];
+  const candidates = new Set<number>();
+  for (const k of found) candidates.add(screened[Math.floor(k / screened.length)] * parts.length + screened[k % screened.length]);
   const planar: (PolygonsLonLat | undefined)[] = [];
   const planarOf = (i: number) => (planar[i] ??= areaGeometryPlanar(parts[i].geometry));
   const problems: Problem[] = [];
   for (let i = 0; i < parts.length; i++) {
     const b = boxes[i];
     for (const j of index.search(b[0], b[1], b[2], b[3])) {
-      if (j <= i) continue;
-      // Boxes that only touch (shared edges, the usual case for neighbouring strata) cannot
-      // overlap by MIN_OVERLAP_M2: bound the common box's area generously (1.2 × 111.32 km per
-      // degree both ways) and skip the clipper.
-      const c = boxes[j];
-      const w = Math.min(b[2], c[2]) - Math.max(b[0], c[0]);
-      const h = Math.min(b[3], c[3]) - Math.max(b[1], c[1]);
-      if (w <= 0 || h <= 0 || w * h * BOX_M2_PER_DEG2 < MIN_OVERLAP_M2) continue;
-      const common = polygonsIntersection(planarOf(i), planarOf(j)) as PolygonsLonLat;
-      if (common.length === 0) continue;
-      const pieces = planarPieces(common);
-      const areaM2 = pieces.reduce((s, p) => s + p.areaM2, 0);
-      if (areaM2 < MIN_OVERLAP_M2) continue;
-      const [a, o] = [parts[i], parts[j]];
-      const other = `feature ${indices?.[j] ?? j}${o.id ? ` (${o.id})` : ''}`;
-      const what = a.stratum === o.stratum ? `of the same stratum "${a.stratum}"` : `in stratum "${o.stratum}"`;
-      problems.push(
-        problemMake('error', a.stratum === o.stratum ? 'parts-overlap' : 'strata-overlap',
-          { featureIndex: indices?.[i] ?? i, featureId: a.id || undefined, lonLat: pieces[0].lonLat },
-          `stratum "${a.stratum}" overlaps ${other} ${what} by ${areaM2.toFixed(2)} m²`, areaM2),
-      );
+      if (j <= i || !candidates.has(i * parts.length + j)) continue;
+      const found = strataPairOverlap(parts, boxes, planarOf, i, j, indices);
+      if (found) problems.push(found);
     }
   }
   return problems;
