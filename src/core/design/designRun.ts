@@ -1,13 +1,13 @@
 import type { AllocationResult } from './allocate/allocateWithMinimum';
 import { designAllocation } from './designAllocation';
-import { designPlace } from './designPlace';
+import { type DesignPlacement, designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
 import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from '../model/designTypes';
 import { InputError } from '../common/InputError';
-import { placementConstraintsBuild } from './place/placementConstraints';
+import { type PlacementConstraints, placementConstraintsBuild } from './place/placementConstraints';
 import { plotIdsFor } from './place/plotIds';
 import { plotRecord } from './plotRecord';
 import { rngStreams, rngVersionOf, rngVersionText } from './place/rngStreams';
@@ -23,35 +23,20 @@ export interface DesignRunOptions {
   onProgress?: (fraction: number, stage: string) => void;
 }
 
+/** What the allocation step gives placement: plots per stratum (random and balanced designs), weights for a shortfall, and what to tell the user. */
+interface DesignShares {
+  allocation: AllocationResult | null;
+  weights: number[];
+  warnings: string[];
+  statements: string[];
+}
+
 /**
- * Makes a whole survey design: stratum areas on the WGS84 ellipsoid (mapped and usable), the
- * allocation of plots (proportional, equal or Neyman, the smallest size meeting a target 95 % CI
- * half-width, or the largest a budget pays for; see designAllocation), placement in the site's UTM frame under every constraint (footprint wholly inside its
- * stratum, edge buffer, clear of buffered exclusions, minimum spacing), ranked reserves, and the
- * design summary with warnings and statements. Pure and deterministic: the same site, settings and
- * seed give byte-identical output in Node and in browsers.
- * Sources: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (allocation and sample size);
- * Robertson et al. 2013 (balanced acceptance sampling); see each step's module.
- * A relative target half-width is a fraction of `pilotMean` (0.1 = 10 %).
- * Throws InputError for settings or a map that make the design impossible (naming what and where).
- * The planner cancels a run by ending its worker, so the run polls nothing.
+ * Shares plots among the strata that have basis area (designAllocation) and maps the result back to
+ * every stratum in site order; a stratum with no basis area gets none, and a warning says so.
  */
-export function designRun(site: Site, settings: DesignSettings, options: DesignRunOptions = {}): PlotCollection {
-  designSettingsCheck(settings);
-  const progress = options.onProgress ?? (() => {});
-  if (site.strata.length === 0) throw new InputError('the site has no strata');
-  designSizeCheck(settings, site.strata.length);
-  placementPolygonsCheck(site);
-  progress(0, 'areas');
-  const frame = siteLocalFrame(site.parts);
-  const keys = site.strata.map((s) => s.key);
-  const areas = designUsableAreas(site, frame);
-  const { mapped, usable } = areas;
-  const basis = settings.shareBasis === 'usable' ? usable : mapped;
-  const totalBasis = basis.reduce((a, b) => a + b, 0);
-  if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
-  progress(0.2, 'allocation');
-  const warnings: string[] = [...areas.warnings];
+function designShares(keys: readonly string[], basis: readonly number[], settings: DesignSettings): DesignShares {
+  const warnings: string[] = [];
   // A stratum with no basis area cannot hold a plot: it is left out of the allocation, and said so.
   const active = keys.map((_, i) => i).filter((i) => basis[i] > 0);
   for (let i = 0; i < keys.length; i++) {
@@ -59,13 +44,13 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     warnings.push(`stratum "${keys[i]}" has no ${settings.shareBasis} area (buffered exclusions cover it): it gets no plots and the estimates do not cover it.`);
   }
   const strataBasis = active.map((i) => ({ key: keys[i], basisM2: basis[i] }));
-  const extraStatements: string[] = [];
+  const statements: string[] = [];
   let allocation: AllocationResult | null = null;
   let weights = basis.slice();
   if (settings.method === 'random' || settings.method === 'balanced') {
     const planned = designAllocation(strataBasis, settings);
     allocation = planned.allocation;
-    extraStatements.push(...planned.statements);
+    statements.push(...planned.statements);
     weights = keys.map(() => 0);
     active.forEach((i, k) => {
       weights[i] = planned.weights[k];
@@ -77,25 +62,16 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     });
     allocation = { ...allocation, plots };
   }
-  progress(0.3, 'placing');
-  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
-  if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
-  const rngVersion = rngVersionOf(settings);
-  const streams = rngStreams(settings.seed, rngVersion);
-  let ticks = 0;
-  const placement = designPlace(constraints, settings, {
-    wanted: allocation?.plots ?? keys.map(() => 0),
-    weights,
-    basisM2: basis,
-    streams,
-    hooks: {
-      tick: () => {
-        if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
-      },
-    },
-  });
-  warnings.push(...placement.warnings);
-  progress(0.9, 'writing');
+  return { allocation, weights, warnings, statements };
+}
+
+/**
+ * The plot records of a placement: ids by stratum code and rank, density per hectare of basis area,
+ * ordered stratum by stratum, primaries then reserves, each in rank order; every plot is checked to
+ * lie in its stratum (plotsInStrataCheck) before it is written.
+ */
+function designPlotRecords(site: Site, constraints: PlacementConstraints, placement: DesignPlacement, basis: readonly number[]) {
+  const keys = site.strata.map((s) => s.key);
   const ids = plotIdsFor(site.strata, placement.primaries, placement.reserves);
   const counters = keys.map(() => ({ primary: 0, reserve: 0 }));
   const density = keys.map((_, i) => (basis[i] > 0 ? placement.primaries[i] / (basis[i] / M2_PER_HA) : 0));
@@ -128,6 +104,61 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
     }),
   );
   const features = drafts.map((d) => plotRecord(constraints, d.draft));
+  return features;
+}
+
+/**
+ * Makes a whole survey design: stratum areas on the WGS84 ellipsoid (mapped and usable), the
+ * allocation of plots (proportional, equal or Neyman, the smallest size meeting a target 95 % CI
+ * half-width, or the largest a budget pays for; see designAllocation), placement in the site's UTM frame under every constraint (footprint wholly inside its
+ * stratum, edge buffer, clear of buffered exclusions, minimum spacing), ranked reserves, and the
+ * design summary with warnings and statements. Pure and deterministic: the same site, settings and
+ * seed give byte-identical output in Node and in browsers.
+ * Sources: Cochran, Sampling Techniques, 3rd ed. 1977, ch. 5 (allocation and sample size);
+ * Robertson et al. 2013 (balanced acceptance sampling); see each step's module.
+ * A relative target half-width is a fraction of `pilotMean` (0.1 = 10 %).
+ * Throws InputError for settings or a map that make the design impossible (naming what and where).
+ * The planner cancels a run by ending its worker, so the run polls nothing.
+ */
+export function designRun(site: Site, settings: DesignSettings, options: DesignRunOptions = {}): PlotCollection {
+  designSettingsCheck(settings);
+  const progress = options.onProgress ?? (() => {});
+  if (site.strata.length === 0) throw new InputError('the site has no strata');
+  designSizeCheck(settings, site.strata.length);
+  placementPolygonsCheck(site);
+  progress(0, 'areas');
+  const frame = siteLocalFrame(site.parts);
+  const keys = site.strata.map((s) => s.key);
+  const areas = designUsableAreas(site, frame);
+  const { mapped, usable } = areas;
+  const basis = settings.shareBasis === 'usable' ? usable : mapped;
+  const totalBasis = basis.reduce((a, b) => a + b, 0);
+  if (!(totalBasis > 0)) throw new InputError(`the strata have no ${settings.shareBasis} area to place plots in`);
+  progress(0.2, 'allocation');
+  const shares = designShares(keys, basis, settings);
+  const { allocation, weights } = shares;
+  const warnings: string[] = [...areas.warnings, ...shares.warnings];
+  const extraStatements = shares.statements;
+  progress(0.3, 'placing');
+  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
+  const rngVersion = rngVersionOf(settings);
+  const streams = rngStreams(settings.seed, rngVersion);
+  let ticks = 0;
+  const placement = designPlace(constraints, settings, {
+    wanted: allocation?.plots ?? keys.map(() => 0),
+    weights,
+    basisM2: basis,
+    streams,
+    hooks: {
+      tick: () => {
+        if (++ticks % 16 === 0) progress(Math.min(0.9, 0.3 + ticks / 4000), 'placing');
+      },
+    },
+  });
+  warnings.push(...placement.warnings);
+  progress(0.9, 'writing');
+  const features = designPlotRecords(site, constraints, placement, basis);
   const rows: AllocationRow[] = keys.map((key, i) => ({
     stratum: key,
     mapped_m2: roundTo(mapped[i], 2),
