@@ -43,6 +43,9 @@ export function App() {
         <FileBar />
         <StepPath step={step} onStep={setStep} done={done} />
         <HistoryButtons />
+        <a className="to-field" href="#field" title="Walk the plan on a phone or tablet: live position, the next plot, safety warnings and the plot form">
+          Field view
+        </a>
       </header>
       <main className="workspace">
         <div className="map-pane">

@@ -1,11 +1,10 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import type { PlanFile } from '../state/planFileTypes';
-import { planFileFromState, planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
+import { planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
 import { planReplace } from '../state/planReplace';
-import { resultsSnapshotTake } from '../state/resultsSnapshot';
 import { ConfirmDialog } from './ConfirmDialog';
 import { demoDesign, demoSiteLoad } from './demoSite';
-import { downloadFile, fileSafeName } from './downloadFile';
+import { planSaveDownload } from './planSaveDownload';
 import { EarlierWork } from './EarlierWork';
 import { plannerStore } from './plannerStoreInstance';
 import { resultsStore } from './results/resultsStoreInstance';
@@ -46,11 +45,7 @@ export function FileBar() {
 
   const save = () => {
     setMenu(false);
-    const s = plannerStore.getState();
-    const plan = planFileFromState(s, new Date().toISOString(), resultsSnapshotTake(resultsStore.getState()));
-    downloadFile(`${fileSafeName(s.site.name, 'plan')}.stratplot.json`, JSON.stringify(plan, null, 1), 'application/json');
-    plannerStore.setState({ savedRevision: s.revision });
-    notify('info', 'Plan saved to your downloads.');
+    planSaveDownload();
   };
 
   const open = async (file: File | undefined) => {

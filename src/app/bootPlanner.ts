@@ -4,6 +4,7 @@ import { demoDesign, demoSiteLoad } from './demoSite';
 import { plannerStore } from './plannerStoreInstance';
 import { resultsStore } from './results/resultsStoreInstance';
 import { browserStorage as storage } from './browserStorage';
+import { autosaveFlushSet } from './autosaveFlush';
 
 /** Opens the work kept in this browser, or the invented demo site on a first visit; then keeps autosaving. */
 export async function bootPlanner(): Promise<void> {
@@ -27,6 +28,7 @@ export async function bootPlanner(): Promise<void> {
     () => plannerStore.setState({ notice: { tone: 'error', text: 'This browser refused to keep a copy of your work: save a plan file to be safe.' } }),
     resultsStore,
   );
+  autosaveFlushSet(flush);
   // An edit made just before the page is hidden or closed is written at once, not after the delay.
   document.addEventListener('visibilitychange', () => document.visibilityState === 'hidden' && void flush());
   window.addEventListener('pagehide', () => void flush());

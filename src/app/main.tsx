@@ -1,7 +1,7 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import './styles.css';
 import { createRoot } from 'react-dom/client';
-import { App } from './App';
+import { Root } from './Root';
 import { bootPlanner } from './bootPlanner';
 import { siteAnalysisRunnerStart } from './siteAnalysisRunner';
 
@@ -9,7 +9,7 @@ const root = document.getElementById('root');
 if (root) {
   bootPlanner().then(() => {
     siteAnalysisRunnerStart();
-    createRoot(root).render(<App />);
+    createRoot(root).render(<Root />);
   });
 }
 

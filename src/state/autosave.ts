@@ -59,7 +59,7 @@ export function autosaveStart(
       .catch((e) => onError?.(e));
   };
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.savedRevision === prev.savedRevision && s.planOpened === prev.planOpened) return;
+    if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.field === prev.field && s.savedRevision === prev.savedRevision && s.planOpened === prev.planOpened) return;
     if (timer === null) timer = setTimeout(write, delayMs);
   });
   const unsubscribeResults = results?.subscribe((s, prev) => {

@@ -156,6 +156,13 @@ function statusPhrase(a: PlotProperties, b: PlotProperties): string | null {
   return `${b.plot_id} ${was} → ${now}`;
 }
 
+function visitPhrase(a: PlotProperties, b: PlotProperties): string | null {
+  if (!a.visited_at && b.visited_at) return `${b.plot_id} visited`;
+  if (a.visited_at && !b.visited_at) return `visit to ${b.plot_id} taken back`;
+  if (JSON.stringify([a.field_values, a.crew_note]) !== JSON.stringify([b.field_values, b.crew_note])) return `entries for ${b.plot_id}`;
+  return null;
+}
+
 function resultPhrases(older: PlannerPlan, newer: PlannerPlan): { design: string[]; field: string[] } {
   const a = older.result;
   const b = newer.result;
@@ -168,7 +175,7 @@ function resultPhrases(older: PlannerPlan, newer: PlannerPlan): { design: string
       design.push(`made a design of ${countNoun(primaries, 'primary plot')} and ${countNoun(b.features.length - primaries, 'reserve')}`);
     } else {
       b.features.forEach((f, i) => {
-        const phrase = statusPhrase(a.features[i].properties, f.properties);
+        const phrase = statusPhrase(a.features[i].properties, f.properties) ?? visitPhrase(a.features[i].properties, f.properties);
         if (phrase) field.push(phrase);
       });
       if (field.length === 0) field.push('changed the field notes of the plots');
@@ -196,6 +203,7 @@ export function planChangeDescribe(older: PlannerPlan, newer: PlannerPlan): Plan
   const strata = older.site === newer.site ? [] : strataPhrases(older.site, newer.site);
   const ground = older.site === newer.site ? [] : groundPhrases(older.site, newer.site);
   const settings = older.design === newer.design ? [] : designPhrases(older.design, newer.design);
+  if (older.field !== newer.field) settings.push('changed the field setup (crew, measurements, arrival radius)');
   const groups: [string[], PlannerStep][] = [
     [field, 'plots'],
     [made, 'design'],

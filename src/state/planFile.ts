@@ -1,6 +1,9 @@
 import type { DesignSettings } from '../core/model/designTypes';
 import { PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
+import { FIELD_SETUP_EMPTY } from '../core/model/fieldTypes';
+import { fieldSetupRead } from './fieldSetupRead';
+import { plotVisitFieldsCheck } from '../io/plots/plotVisitFieldsCheck';
 import { plotCollectionById, plotCollectionNamed } from '../core/field/plotCollectionNamed';
 import type { Site, StratumInfo, StratumPart } from '../core/model/types';
 import { planFileMigrateV1 } from './planFileMigrate';
@@ -34,6 +37,7 @@ export function planFileFromState(state: PlannerState, savedAt: string, results?
     design: state.design,
     result: state.result ? plotCollectionNamed(state.result, strata, { ids: true }) : null,
   };
+  if (state.field.crew || state.field.variables.length || state.field.arrivalRadiusM !== FIELD_SETUP_EMPTY.arrivalRadiusM) plan.field = state.field;
   if (results && !resultsSnapshotIsEmpty(results)) plan.results = results;
   return plan;
 }
@@ -94,6 +98,8 @@ export function planFileParse(text: string, fileName: string): PlanFile {
   if (!isObject(data.design)) throw new InputError(`${fileName}: "design" settings are missing`);
   const result = data.result ?? null;
   if (result !== null && (!isObject(result) || !Array.isArray(result.features))) throw new InputError(`${fileName}: "result" is not a plot collection`);
+  const field = data.field === undefined || data.field === null ? undefined : fieldSetupRead(data.field, fileName);
+  if (result !== null) plotVisitFieldsCheck((result as { features: unknown[] }).features, fileName);
   const results = data.results === undefined || data.results === null ? undefined : resultsSnapshotParse(data.results, fileName);
   return {
     format: 'stratplot-plan',
@@ -102,6 +108,7 @@ export function planFileParse(text: string, fileName: string): PlanFile {
     site,
     design: { ...(data.design as unknown as DesignSettings), rngVersion: (data.design.rngVersion as DesignSettings['rngVersion']) ?? 1 },
     result: result === null ? null : plotCollectionById(result as unknown as NonNullable<PlanFile['result']>),
+    ...(field ? { field } : {}),
     ...(results ? { results } : {}),
   };
 }
@@ -120,6 +127,7 @@ export function planFileApply(store: PlannerStore, plan: PlanFile, defaults: Des
     site: plan.site,
     design: { ...defaults, ...plan.design },
     result: plan.result,
+    field: plan.field ?? FIELD_SETUP_EMPTY,
     resultStale: false,
     revision,
     savedRevision: saved ? revision : s.savedRevision,

@@ -1,4 +1,5 @@
 import type { DesignSettings, PlotCollection, ResultKind } from '../core/model/designTypes';
+import type { FieldSetup } from '../core/model/fieldTypes';
 import type { Site, StratumPart } from '../core/model/types';
 
 /** The plan-file version this program writes; older versions are migrated on open (planFileMigrate). */
@@ -16,6 +17,8 @@ export interface PlanFile {
   site: Site;
   design: DesignSettings;
   result: PlotCollection | null;
+  /** The field setup: crew name, variables to measure, arrival radius (absent in plans saved before the field view). */
+  field?: FieldSetup;
   /** The Results step's work (absent in plans saved before it was kept, or with nothing entered). */
   results?: ResultsSnapshot;
 }

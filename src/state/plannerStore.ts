@@ -1,6 +1,7 @@
 import { temporal } from 'zundo';
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
+import { FIELD_SETUP_EMPTY, type FieldSetup } from '../core/model/fieldTypes';
 import type { ResultsSnapshot } from './planFileTypes';
 import type { Site } from '../core/model/types';
 import type { SiteAnalysis } from '../core/design/siteAnalyse';
@@ -54,6 +55,8 @@ export interface PlannerState {
   design: DesignSettings;
   /** The design; its plots carry their field state (rejections and promotions live there only). */
   result: PlotCollection | null;
+  /** Who walks the plan, what they measure at each plot, and the arrival radius (the field view's setup). */
+  field: FieldSetup;
   /** True once the site has changed after the result was made. */
   resultStale: boolean;
   /** Attribute chosen to group imported polygons into strata. */
@@ -141,6 +144,7 @@ export function plannerStoreCreate(design: DesignSettings, site: Site = siteEmpt
         site,
         design,
         result: null,
+        field: FIELD_SETUP_EMPTY,
         resultStale: false,
         strataField: 'stratum',
         revision: 0,

@@ -1,4 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
+import { FIELD_RESULTS_FIXED_COLUMNS } from '../core/field/fieldVariablesCheck';
 import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
 import type { RecaptureGridSaved } from './planFileTypes';
 import { type EstimateReport, estimateFromResults } from '../core/results/estimateFromResults';
@@ -116,7 +117,9 @@ export function resultsLoad(store: ResultsStore, fileName: string, bytes: Uint8A
     if (c === idColumn || c === statusColumn || c === replacedByColumn) continue;
     kinds[c] = resultsKindGuess(c, table.rows.map((r) => r.cells[c] ?? ''));
   }
-  const variable = Object.keys(kinds)[0] ?? null;
+  // A field results table (fieldResultsToCsv) leads with its fixed columns: the first measurement comes after them.
+  const fixed = new Set<string>(FIELD_RESULTS_FIXED_COLUMNS);
+  const variable = Object.keys(kinds).find((c) => !fixed.has(c)) ?? Object.keys(kinds)[0] ?? null;
   const sourceText = typeof bytes === 'string' ? bytes : new TextDecoder().decode(bytes);
   store.setState({ fileName, sourceText, table, loadError: null, mapping: { idColumn, statusColumn, replacedByColumn, kinds }, variable });
   resultsRecompute(store, collection);

@@ -9,6 +9,7 @@ import { NOTHING_LOST_SCENARIO } from './nothingLost.scenario.mjs';
 import { RESULTS_SCENARIO } from './results.scenario.mjs';
 import { FIELD_STATE_SCENARIO } from './fieldState.scenario.mjs';
 import { PLOT_CHECK_SCENARIO } from './plotCheck.scenario.mjs';
+import { FIELD_VIEW_SCENARIO } from './fieldView.scenario.mjs';
 import { browserCopyWait, check, clickLngLat, drawSquare, strataRows, geodesicAreaM2, mapIdle, mappedHaOf, openPlanner, sourceData } from './helpers.mjs';
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -278,6 +279,11 @@ export const SCENARIOS = [
       await openPlanner(page, origin);
       check((await mappedHaOf(page, 'Restored stratum')) !== null, 'offline, the planner did not open with the work restored');
       await shot('5-offline');
+      // The field view's own address (#field, for a phone's home screen) opens offline too.
+      await page.goto(`${origin}/#field`);
+      await page.reload();
+      await page.waitForSelector('.field-view', { timeout: 20_000 });
+      check(await page.getByText('In the field').isVisible(), 'offline, the field view did not open at #field');
       await context.setOffline(false);
     },
   },
@@ -313,4 +319,5 @@ export const SCENARIOS = [
   GUIDANCE_SCENARIO,
   PLOT_CHECK_SCENARIO,
   HOSTILE_IMPORT_SCENARIO,
+  FIELD_VIEW_SCENARIO,
 ];

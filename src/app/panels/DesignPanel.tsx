@@ -1,3 +1,4 @@
+import { FieldVariablesBox } from './FieldVariablesBox';
 import { AllocationTable } from './AllocationTable';
 import { DesignPlacementFields } from './DesignPlacementFields';
 import { DesignRunRow } from './DesignRunRow';
@@ -17,6 +18,7 @@ export function DesignPanel() {
       <DesignSeedFields />
       <DesignRunRow />
       <AllocationTable />
+      <FieldVariablesBox />
     </section>
   );
 }

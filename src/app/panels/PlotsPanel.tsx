@@ -24,7 +24,8 @@ const COLUMNS: [SortKey, string][] = [
 function statusOf(p: PlotProperties, s: PlotFieldState | undefined): string {
   if (!s) return 'planned';
   if (s.key === 'rejected') return `rejected: ${s.reason}`;
-  return plotFieldStateText(p, s).short;
+  const visit = p.visited_at ? `; visited ${fieldTimeText(p.visited_at)}${p.visited_by ? ` by ${p.visited_by}` : ''}` : '';
+  return `${plotFieldStateText(p, s).short}${visit}`;
 }
 
 function zoomTo(p: PlotProperties): void {

@@ -53,6 +53,9 @@ export const MAX_NAME_LENGTH = 200;
 /** Characters in a note or description that goes onto field sheets. */
 export const MAX_NOTE_LENGTH = 2_000;
 
+/** Measurements a plan can ask for at each plot (the field form's variables). */
+export const MAX_FIELD_VARIABLES = 50;
+
 /**
  * Farthest ground distance, km, of any stratum vertex from the central meridian of the site's UTM
  * zone (a UTM zone itself reaches about 330 km at the equator). Placement stays correct beyond the

@@ -124,6 +124,17 @@ export interface PlotProperties {
   /** The plot id a promoted reserve replaces (kept when that reserve is itself rejected). */
   replaces?: string;
   notes?: string;
+  /** When a crew recorded the plot as visited, ISO 8601, and who (the crew name); see plotVisit. */
+  visited_at?: string;
+  visited_by?: string;
+  /** Where the device put the crew when the visit was recorded, WGS84 degrees, and its accuracy, metres (absent without a position). */
+  visit_lon?: number;
+  visit_lat?: number;
+  visit_accuracy_m?: number;
+  /** The measurements typed on site, as typed, by variable name (the plan's field variables). */
+  field_values?: Record<string, string>;
+  /** The crew's free-text note on the plot. */
+  crew_note?: string;
   /** Navigation added for field kits: the access point measured from, geodesic distance, bearings. */
   access_point?: string;
   distance_m?: number;

@@ -1,7 +1,7 @@
 import type { PlotCollection, PlotProperties } from '../model/designTypes';
 import { plotFieldStates } from '../field/plotFieldState';
-import { MAX_RESULT_MAGNITUDE } from '../common/inputLimits';
 import { type DecimalMark, resultsCellNumber, resultsCellPresence } from './resultsCellParse';
+import { resultsValueRead } from './resultsValueRead';
 import type { ResultKind } from '../model/designTypes';
 import type { Problem } from '../model/types';
 
@@ -208,34 +208,10 @@ export function resultsReview(plots: PlotCollection, table: ResultsTable, variab
 
   function readValue(cell: string, r: ResultsRow, id: string): number | undefined {
     const col = variable.column;
-    const text = cell.trim();
-    const value = variable.kind === 'presence' ? resultsCellPresence(text) : resultsCellNumber(text, table.decimal);
-    if (value === null) return undefined;
-    if (Number.isNaN(value)) {
-      const what =
-        variable.kind === 'presence'
-          ? 'is not a presence/absence value (use 1/0, yes/no, y/n, present/absent, true/false)'
-          : `is not a number${table.decimal === ',' ? ' (this file uses decimal commas)' : ''}`;
-      add('error', 'results-not-a-number', `${at(r, col)}: "${text}" ${what}`, r, col, id);
-      return undefined;
-    }
-    if (!(Math.abs(value) <= MAX_RESULT_MAGNITUDE)) {
-      add('error', 'results-too-large', `${at(r, col)}: ${text.slice(0, 40)} is beyond ±${MAX_RESULT_MAGNITUDE} (stratplot's limit for a measured value)`, r, col, id);
-      return undefined;
-    }
-    if (variable.kind === 'cover' && (value < 0 || value > 100)) {
-      add('error', 'results-out-of-range', `${at(r, col)}: cover ${text} is outside 0–100 %`, r, col, id);
-      return undefined;
-    }
-    if (variable.kind === 'count' && value < 0) {
-      add('error', 'results-out-of-range', `${at(r, col)}: count ${text} is negative`, r, col, id);
-      return undefined;
-    }
-    if (variable.kind === 'count' && !Number.isInteger(value)) {
-      add('error', 'results-fractional-count', `${at(r, col)}: count ${text} is not a whole number (if the column is not a count, give --kind measure)`, r, col, id);
-      return undefined;
-    }
-    return value;
+    const read = resultsValueRead(cell, variable.kind, table.decimal);
+    if (read.ok) return read.value ?? undefined;
+    add('error', read.code, `${at(r, col)}: ${read.problem}`, r, col, id);
+    return undefined;
   }
 
   columnKindChecked();

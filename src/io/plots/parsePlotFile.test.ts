@@ -19,4 +19,16 @@ describe('parsePlotFile', () => {
     delete bad.features[0].properties.stratum;
     expect(() => parsePlotFile('p.geojson', JSON.stringify(bad))).toThrow('p.geojson: feature 0 has no stratum');
   });
+
+  it('keeps the visit record a crew left and names a damaged one', () => {
+    const walked = structuredClone(good);
+    Object.assign(walked.features[0].properties, { visited_at: '2026-12-03T01:00:00Z', visited_by: 'Crew A (invented)', visit_lon: 119.1, visit_lat: -34.4, visit_accuracy_m: 4, field_values: { cover: '35' }, crew_note: 'dry' });
+    expect(parsePlotFile('p.geojson', JSON.stringify(walked))).toEqual(walked);
+    const bad = structuredClone(walked) as unknown as { features: { properties: Record<string, unknown> }[] };
+    bad.features[0].properties.visit_accuracy_m = -2;
+    expect(() => parsePlotFile('p.geojson', JSON.stringify(bad))).toThrow('p.geojson: feature 0 (HEA-01): visit_accuracy_m -2 is out of range');
+    bad.features[0].properties.visit_accuracy_m = 4;
+    bad.features[0].properties.field_values = ['35'];
+    expect(() => parsePlotFile('p.geojson', JSON.stringify(bad))).toThrow('p.geojson: feature 0 (HEA-01): field_values must be an object of measurements by variable name');
+  });
 });

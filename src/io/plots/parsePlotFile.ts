@@ -3,13 +3,15 @@ import { footprintAreaM2 } from '../../core/design/footprintParse';
 import { jsonDepthOver, limitExceeded, limitNumber, limitText, MAX_AREA_M2, MAX_DESIGN_PLOTS, MAX_ID_LENGTH, MAX_NAME_LENGTH, MAX_NESTING_DEPTH } from '../../core/common/inputLimits';
 import { InputError } from '../../core/common/InputError';
 import { PLOT_DERIVED_FIELDS } from '../../core/field/plotCollectionForField';
+import { plotVisitFieldsCheck } from './plotVisitFieldsCheck';
 
 /**
  * Reads a plot file as `stratplot plan` writes it: a GeoJSON FeatureCollection of points whose
  * properties carry plot_id, stratum, role and rank, with the design summary in `design`. The
  * plots' field state (status, reject_reason, rejected_at, replaces) is kept as it is; the fields
  * worked out from it for people (field_state, field_note) are dropped, so a copy never drives
- * anything: writers work them out again.
+ * anything: writers work them out again. A crew's visit record (visited_at, the visit position,
+ * field_values, crew_note) is kept too, checked by plotVisitFieldsCheck.
  * @throws InputError naming the file (and feature index) when the text is not JSON, not a
  *   FeatureCollection, has no design summary with an allocation table and footprint, states an
  *   area that is not a finite number within the Earth's surface or a footprint of no known shape,
@@ -71,5 +73,6 @@ export function parsePlotFile(fileName: string, bytes: Uint8Array | string): Plo
     }
     for (const k of PLOT_DERIVED_FIELDS) delete p[k];
   });
+  plotVisitFieldsCheck(fc.features, fileName);
   return fc as PlotCollection;
 }

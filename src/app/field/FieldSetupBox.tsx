@@ -1,0 +1,152 @@
+import { useId, useState } from 'react';
+import type { PlanFile } from '../../state/planFileTypes';
+import { planFileParse, planHasUnsavedWork } from '../../state/planFile';
+import { planFromPlotFile } from '../../state/planFromPlotFile';
+import { planReplace } from '../../state/planReplace';
+import { fieldSetupSet } from '../../state/fieldActions';
+import { plannerPlotsNamed } from '../../state/plotsNamed';
+import { resultsLoad, resultsMappingSet, resultsOptionsSet } from '../../state/resultsStore';
+import { fieldVariableResultKind } from '../../core/results/fieldValueCheck';
+import type { ResultKind } from '../../core/model/designTypes';
+import { ConfirmDialog } from '../ConfirmDialog';
+import { demoDesign } from '../demoSite';
+import { downloadFile, fileSafeName } from '../downloadFile';
+import { FieldVariablesBox } from '../panels/FieldVariablesBox';
+import { planSaveDownload } from '../planSaveDownload';
+import { plannerStore } from '../plannerStoreInstance';
+import { resultsStore } from '../results/resultsStoreInstance';
+import { attempt, notify, usePlanner } from '../usePlanner';
+
+/** Reads a plan file or a plot file written by `stratplot plan`, whichever the text is. */
+async function planOfFile(file: File): Promise<PlanFile> {
+  const text = await file.text();
+  if (/"format"\s*:\s*"stratplot-plan"/.test(text.slice(0, 4096))) return planFileParse(text, file.name);
+  const { parsePlotFile } = await import('../../io/plots/parsePlotFile');
+  return planFromPlotFile(parsePlotFile(file.name, text), file.name);
+}
+
+async function resultsCsv(): Promise<{ name: string; text: string } | null> {
+  const s = plannerStore.getState();
+  const named = plannerPlotsNamed(s);
+  if (!named) {
+    notify('error', 'this plan has no plots yet: nothing to hand back');
+    return null;
+  }
+  const { fieldResultsToCsv } = await import('../../io/results/fieldResultsToCsv');
+  return { name: `${fileSafeName(s.site.name, 'site')}-field-results.csv`, text: fieldResultsToCsv(named, s.field.variables) };
+}
+
+/**
+ * The crew's setup and the files of the field view: the crew name recorded with each visit, the
+ * arrival radius, the measurements, opening a plan or plot file, and handing the work back (the
+ * results CSV for the Results step and `stratplot estimate`, the plan file with visits and
+ * rejections, the plot file).
+ */
+export function FieldSetupBox({ open }: { open: boolean }) {
+  const ids = { crew: useId(), radius: useId(), file: useId() };
+  const field = usePlanner((s) => s.field);
+  const hasPlots = usePlanner((s) => s.result !== null);
+  const [crew, setCrew] = useState(field.crew);
+  const [radius, setRadius] = useState(String(field.arrivalRadiusM));
+  const [pending, setPending] = useState<{ plan: PlanFile; what: string } | null>(null);
+  const apply = (plan: PlanFile, what: string) => planReplace(plannerStore, plan, demoDesign(null), what, false, resultsStore);
+
+  const openFile = async (file: File | undefined) => {
+    if (!file) return;
+    try {
+      const plan = await planOfFile(file);
+      if (planHasUnsavedWork(plannerStore.getState())) setPending({ plan, what: `“${file.name}”` });
+      else apply(plan, `“${file.name}”`);
+    } catch (e) {
+      notify('error', `${(e as Error).message}; the plan you had is unchanged`);
+    }
+  };
+  const exportCsv = async () => {
+    const csv = await resultsCsv();
+    if (!csv) return;
+    downloadFile(csv.name, csv.text, 'text/csv');
+    notify('info', `${csv.name} written to your downloads.`);
+  };
+  const toResults = async () => {
+    const csv = await resultsCsv();
+    if (!csv) return;
+    const s = plannerStore.getState();
+    const named = plannerPlotsNamed(s);
+    resultsLoad(resultsStore, csv.name, csv.text, named);
+    // The plan says what each column is: no guessing from the column names.
+    const kinds = Object.fromEntries(s.field.variables.flatMap((v) => (fieldVariableResultKind(v.kind) ? [[v.name, fieldVariableResultKind(v.kind) as ResultKind]] : [])));
+    resultsMappingSet(resultsStore, { kinds }, named);
+    const first = s.field.variables.find((v) => fieldVariableResultKind(v.kind));
+    if (first) resultsOptionsSet(resultsStore, { variable: first.name }, named);
+    plannerStore.setState({ step: 'results' });
+    window.location.hash = 'plan';
+  };
+  const exportPlots = async () => {
+    const s = plannerStore.getState();
+    if (!s.result) return;
+    const { designOutputBytes } = await import('../../io/plots/designOutput');
+    const name = `${fileSafeName(s.site.name, 'design')}-plots.geojson`;
+    downloadFile(name, await designOutputBytes('plots.geojson', s.result, s.site, { name: s.site.name, annotate: false }));
+    notify('info', `${name} written to your downloads.`);
+  };
+
+  return (
+    <details className="fv-card fv-setup" open={open}>
+      <summary>Crew, files and measurements</summary>
+      <div className="fv-input">
+        <label htmlFor={ids.crew}>Crew name (recorded with every visit)</label>
+        <input id={ids.crew} value={crew} autoComplete="name" onChange={(e) => setCrew(e.currentTarget.value)} onBlur={() => attempt(() => fieldSetupSet(plannerStore, { crew: crew.trim() }))} />
+      </div>
+      <div className="fv-input">
+        <label htmlFor={ids.radius}>Arrival radius, m</label>
+        <input
+          id={ids.radius}
+          inputMode="decimal"
+          value={radius}
+          onChange={(e) => setRadius(e.currentTarget.value)}
+          onBlur={() => {
+            if (attempt(() => fieldSetupSet(plannerStore, { arrivalRadiusM: Number(radius) })) === undefined && plannerStore.getState().notice?.tone === 'error') setRadius(String(plannerStore.getState().field.arrivalRadiusM));
+          }}
+        />
+      </div>
+      <FieldVariablesBox />
+      <h3>Files</h3>
+      <div className="fv-actions">
+        <label htmlFor={ids.file} className="file-label fv-big">
+          Open a plan or plot file
+        </label>
+        <input id={ids.file} className="file-input" type="file" accept=".json,.geojson,application/json,application/geo+json" data-open-field onChange={(e) => {
+          void openFile(e.currentTarget.files?.[0]);
+          e.currentTarget.value = '';
+        }} />
+      </div>
+      <div className="fv-actions">
+        <button type="button" className="fv-big" disabled={!hasPlots} onClick={() => void exportCsv()}>
+          Results CSV
+        </button>
+        <button type="button" className="fv-big" disabled={!hasPlots} onClick={() => void toResults()}>
+          Open in the Results step
+        </button>
+        <button type="button" className="fv-big" onClick={planSaveDownload}>
+          Plan file
+        </button>
+        <button type="button" className="fv-big" disabled={!hasPlots} onClick={() => void exportPlots()}>
+          Plot file (GeoJSON)
+        </button>
+      </div>
+      <p className="fv-fine">Everything typed here is kept on this device as you go. Hand the work back with the plan file (visits and rejections) and the results CSV.</p>
+      {pending ? (
+        <ConfirmDialog
+          title="Replace the plan on this device?"
+          body={`${pending.what} would replace the plan here, which has changes not saved to a file. The planner's Undo or “Earlier work” can bring it back.`}
+          confirmLabel="Replace it"
+          onCancel={() => setPending(null)}
+          onConfirm={() => {
+            apply(pending.plan, pending.what);
+            setPending(null);
+          }}
+        />
+      ) : null}
+    </details>
+  );
+}

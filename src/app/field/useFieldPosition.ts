@@ -1,0 +1,61 @@
+import { useEffect, useState } from 'react';
+import type { PositionFix } from '../../core/model/fieldTypes';
+
+/** The device's live position and compass, as the field view uses them. */
+export interface FieldPosition {
+  fix: PositionFix | null;
+  /** What the position source is doing, in words for the crew ("waiting for a position", "no position: …"). */
+  status: string;
+  /** Compass heading from magnetic north, degrees, when the device gives one; else null. */
+  headingMagDeg: number | null;
+}
+
+type OrientationEvent = DeviceOrientationEvent & { webkitCompassHeading?: number };
+
+/**
+ * Watches the browser's geolocation (high accuracy, no cached fixes older than 10 s) and the
+ * device compass. Without geolocation, or when it is refused, `fix` stays null and `status` says
+ * why: the field view then lists plots with their coordinates and still records them.
+ */
+export function useFieldPosition(): FieldPosition {
+  const [fix, setFix] = useState<PositionFix | null>(null);
+  const [status, setStatus] = useState('waiting for a position');
+  const [headingMagDeg, setHeading] = useState<number | null>(null);
+
+  useEffect(() => {
+    const geo = typeof navigator !== 'undefined' ? navigator.geolocation : undefined;
+    if (!geo) {
+      setStatus('no position: this browser gives none (record plots by their coordinates)');
+      return;
+    }
+    const id = geo.watchPosition(
+      (p) => {
+        setFix({ lon: p.coords.longitude, lat: p.coords.latitude, accuracyM: p.coords.accuracy, atIso: new Date(p.timestamp || Date.now()).toISOString() });
+        setStatus('live');
+      },
+      (e) => {
+        setStatus(
+          e.code === e.PERMISSION_DENIED
+            ? 'no position: location is not allowed for this page (allow it in the browser settings)'
+            : 'no position yet: the device has no fix (under cover or indoors?)',
+        );
+      },
+      { enableHighAccuracy: true, maximumAge: 10_000, timeout: 60_000 },
+    );
+    return () => geo.clearWatch(id);
+  }, []);
+
+  useEffect(() => {
+    const onTurn = (e: Event) => {
+      const o = e as OrientationEvent;
+      // iOS gives the compass heading directly; elsewhere an absolute alpha counts anticlockwise from north.
+      if (typeof o.webkitCompassHeading === 'number') setHeading(o.webkitCompassHeading);
+      else if (o.absolute && typeof o.alpha === 'number') setHeading((360 - o.alpha) % 360);
+    };
+    const kind = 'ondeviceorientationabsolute' in window ? 'deviceorientationabsolute' : 'deviceorientation';
+    window.addEventListener(kind, onTurn);
+    return () => window.removeEventListener(kind, onTurn);
+  }, []);
+
+  return { fix, status, headingMagDeg };
+}
