@@ -8,7 +8,7 @@ import { planFromPlotFile } from './planFromPlotFile';
 import { plannerStoreCreate } from './plannerStore';
 import { plotReject } from './plotReject';
 import { planChangeDescribe } from './planChangeDescribe';
-import { plannerPlanOf } from './plannerStore';
+import { type PlannerPlan, plannerPlanOf } from './plannerStore';
 
 function memoryStorage(): AutosaveStorage {
   const data = new Map<string, unknown>();
@@ -43,7 +43,7 @@ describe('field actions', () => {
     fieldSetupSet(store, { crew: 'Crew B (invented)', variables: [{ name: 'cover', kind: 'percent' }] });
     fieldVisit(store, id, { lon: 1, lat: 2, accuracyM: 5, atIso: '2026-12-03T02:00:00Z' }, '2026-12-03T02:00:01Z');
     fieldEntrySave(store, id, { cover: '40' }, 'dry');
-    const past = store.temporal.getState().pastStates;
+    const past = store.temporal.getState().pastStates as PlannerPlan[];
     expect(planChangeDescribe(past[past.length - 1], plannerPlanOf(store.getState())).text).toBe(`entries for ${id}`);
     expect(planChangeDescribe(past[past.length - 2], past[past.length - 1]).text).toBe(`${id} visited`);
     expect(plotOf(store, id)).toMatchObject({ visited_at: '2026-12-03T02:00:01Z', visited_by: 'Crew B (invented)', visit_accuracy_m: 5, field_values: { cover: '40' }, crew_note: 'dry' });

@@ -283,7 +283,7 @@ export const SCENARIOS = [
       await page.goto(`${origin}/#field`);
       await page.reload();
       await page.waitForSelector('.field-view', { timeout: 20_000 });
-      check(await page.getByText('In the field').isVisible(), 'offline, the field view did not open at #field');
+      check((await page.locator('.fv-title').textContent()) === 'In the field', 'offline, the field view did not open at #field');
       await context.setOffline(false);
     },
   },

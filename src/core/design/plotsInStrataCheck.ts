@@ -1,4 +1,5 @@
 import Flatbush from 'flatbush';
+import { edgeCrossesRayEast } from '../geometry/edgeCrossesRayEast';
 import { InputError } from '../common/InputError';
 import { siteLongitudeUnwrap } from '../geo/siteLocalFrame';
 import type { Site } from '../model/types';
@@ -72,13 +73,8 @@ function isInside(s: StratumEdges, x: number, y: number): boolean {
   let inside = false;
   for (const c of s.index.search(x, y, Number.POSITIVE_INFINITY, y)) {
     for (let e = c * CHUNK * 4; e < (c + 1) * CHUNK * 4 && e < s.edges.length; e += 4) {
-      const y1 = s.edges[e + 1];
-      const y2 = s.edges[e + 3];
-      if (!(y1 > y) !== !(y2 > y) && !Number.isNaN(y1)) {
-        const x1 = s.edges[e];
-        const x2 = s.edges[e + 2];
-        if (x1 + ((y - y1) / (y2 - y1)) * (x2 - x1) > x) inside = !inside;
-      }
+      // NaN marks the gap between two rings' edges in the flat list.
+      if (!Number.isNaN(s.edges[e + 1]) && edgeCrossesRayEast(x, y, s.edges[e], s.edges[e + 1], s.edges[e + 2], s.edges[e + 3])) inside = !inside;
     }
   }
   return inside;

@@ -1,3 +1,4 @@
+import { edgeCrossesRayEast } from './edgeCrossesRayEast';
 import Flatbush from 'flatbush';
 import type { equalAreaXY } from '../geo/equalAreaXY';
 import type { LonLat } from '../model/types';
@@ -86,11 +87,7 @@ export function segmentsContain(s: Segments, index: Flatbush, px: number, py: nu
   const v = s.xy;
   index.search(px, py, Number.POSITIVE_INFINITY, py, (i) => {
     const o = 4 * i;
-    const y0 = v[o + 1];
-    const y1 = v[o + 3];
-    if (y0 > py === y1 > py) return false;
-    const x = v[o] + ((py - y0) / (y1 - y0)) * (v[o + 2] - v[o]);
-    if (x > px) inside = !inside;
+    if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
     return false;
   });
   return inside;
@@ -109,10 +106,7 @@ export function piecesContaining(s: Segments, ranges: Int32Array, pieceIndex: Fl
     let inside = false;
     for (let i = ranges[2 * p], end = ranges[2 * p + 1]; i < end; i++) {
       const o = 4 * i;
-      const y0 = v[o + 1];
-      const y1 = v[o + 3];
-      if (y0 > py === y1 > py) continue;
-      if (v[o] + ((py - y0) / (y1 - y0)) * (v[o + 2] - v[o]) > px) inside = !inside;
+      if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
     }
     if (inside) {
       parity[p] = 1;

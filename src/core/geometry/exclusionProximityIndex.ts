@@ -1,4 +1,5 @@
 import Flatbush from 'flatbush';
+import { edgeCrossesRayEast } from './edgeCrossesRayEast';
 import type { LocalFrame } from '../geo/localFrame';
 import type { Exclusion, ExclusionKind, LonLat } from '../model/types';
 
@@ -151,7 +152,7 @@ function isInsideRings(x: number, y: number, rings: readonly Float64Array[]): bo
       const yi = r[2 * i + 1];
       const xj = r[2 * j];
       const yj = r[2 * j + 1];
-      if (yi > y !== yj > y && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside;
+      if (edgeCrossesRayEast(x, y, xi, yi, xj, yj)) inside = !inside;
     }
   }
   return inside;

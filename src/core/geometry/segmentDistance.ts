@@ -1,3 +1,5 @@
+import { edgeCrossesRayEast } from './edgeCrossesRayEast';
+
 /**
  * Planar distance helpers for the placement engine, on scalar arguments (no allocation in loops).
  * Formulas: closest point on a segment by projection, and the orientation test for crossing
@@ -113,11 +115,7 @@ function isInConvex(cx: number, cy: number, vx: Float64Array, vy: Float64Array, 
 export function isInRingFlat(px: number, py: number, xy: Float64Array, start: number, end: number): boolean {
   let inside = false;
   for (let i = start, j = end - 2; i < end; j = i, i += 2) {
-    const xi = xy[i];
-    const yi = xy[i + 1];
-    const xj = xy[j];
-    const yj = xy[j + 1];
-    if (yi > py !== yj > py && px < ((xj - xi) * (py - yi)) / (yj - yi) + xi) inside = !inside;
+    if (edgeCrossesRayEast(px, py, xy[i], xy[i + 1], xy[j], xy[j + 1])) inside = !inside;
   }
   return inside;
 }

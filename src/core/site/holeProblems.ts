@@ -1,5 +1,6 @@
 import type { Position } from 'geojson';
 import { problemMake } from '../common/problemMake';
+import { edgeCrossesRayEast } from '../geometry/edgeCrossesRayEast';
 import type { Problem, ProblemLocation } from '../model/types';
 
 /** Even–odd ray test of a point against a closed ring (planar in lon/lat; ring closure optional). */
@@ -8,7 +9,7 @@ export function ringContainsPoint(ring: readonly Position[], x: number, y: numbe
   for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
     const [xi, yi] = ring[i];
     const [xj, yj] = ring[j];
-    if (yi > y !== yj > y && x < ((xj - xi) * (y - yi)) / (yj - yi) + xi) inside = !inside;
+    if (edgeCrossesRayEast(x, y, xi, yi, xj, yj)) inside = !inside;
   }
   return inside;
 }

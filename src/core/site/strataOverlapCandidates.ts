@@ -1,4 +1,5 @@
 import Flatbush from 'flatbush';
+import { edgeCrossesRayEast } from '../geometry/edgeCrossesRayEast';
 import type { Position } from 'geojson';
 import type { StratumPart } from '../model/types';
 
@@ -216,11 +217,7 @@ function segmentsMeet(s: Segments, i: number, j: number): boolean {
 function isInsidePart(s: Segments, p: number, x: number, y: number): boolean {
   let inside = false;
   for (let k = s.partStart[p]; k < s.partStart[p + 1]; k++) {
-    const ay = s.ay[k];
-    const by = s.by[k];
-    if (ay > y === by > y) continue;
-    const xCross = s.ax[k] + ((y - ay) * (s.bx[k] - s.ax[k])) / (by - ay);
-    if (x < xCross) inside = !inside;
+    if (edgeCrossesRayEast(x, y, s.ax[k], s.ay[k], s.bx[k], s.by[k])) inside = !inside;
   }
   return inside;
 }
