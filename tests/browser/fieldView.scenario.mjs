@@ -189,5 +189,24 @@ export const FIELD_VIEW_SCENARIO = {
     check((await page.locator('.results-clean').count()) === 1, 'the Results step finds problems in the field results');
     await sleep(100);
     await shot('field-results-step');
+
+    // The planner's Plots step shows which plots were done, when and by whom.
+    await page.getByRole('button', { name: /4\s*Plots/ }).click();
+    const row = await page.locator(`tr[data-plot="${first.plot_id}"] .plot-status`).textContent();
+    check(/visited .* by Crew Banksia \(invented\)/.test(row), `the Plots step says "${row}" for ${first.plot_id}`);
+
+    // With no position (location refused), the plots are listed with coordinates and still recorded.
+    await context.clearPermissions();
+    await page.goto(`${origin}/#field`);
+    await page.reload();
+    await page.waitForSelector('.fv-position', { timeout: 30_000 });
+    await page.waitForFunction(() => /No position/.test(document.querySelector(".fv-position")?.textContent ?? ''), null, { timeout: 10_000 });
+    check((await page.locator('.fv-row-coords').count()) >= order.length, 'without a position the plots are not listed with their coordinates');
+    await page.locator(`ol.fv-list li[data-plot="${first.plot_id}"] button`).click();
+    await page.getByRole('button', { name: 'Take back the visit' }).click();
+    await page.getByRole('button', { name: /^Mark .* visited$/ }).click();
+    await page.waitForFunction(() => /no position/.test(document.querySelector('.fv-record .fv-state')?.textContent ?? ''), null, { timeout: 5000 });
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await shot('field-phone-no-position');
   },
 };

@@ -27,10 +27,10 @@ export function FieldGuide(props: {
           </div>
         </div>
         {arrow !== null ? (
-          <svg className="fv-arrow" viewBox="-50 -50 100 100" role="img" aria-label={guidance?.arrowDeg === null ? `Bearing on a north-up dial` : `Turn to the arrow`}>
+          <svg className="fv-arrow" viewBox="-50 -64 100 114" role="img" aria-label={guidance?.arrowDeg === null ? `Bearing on a north-up dial` : `Turn to the arrow`}>
             <circle r="46" className="fv-dial" />
             {guidance?.arrowDeg === null ? (
-              <text x="0" y="-32" textAnchor="middle" className="fv-dial-n">
+              <text x="0" y="-51" textAnchor="middle" className="fv-dial-n">
                 N
               </text>
             ) : null}

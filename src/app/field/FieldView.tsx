@@ -86,7 +86,7 @@ export function FieldView() {
               </span>
             </>
           ) : (
-            <span>Position: {position.status}</span>
+            <span>{position.status === 'waiting for a position' ? 'Waiting for a position…' : `No position: ${position.status}.`}</span>
           )}
         </section>
         {!result ? (

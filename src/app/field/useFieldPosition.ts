@@ -4,7 +4,7 @@ import type { PositionFix } from '../../core/model/fieldTypes';
 /** The device's live position and compass, as the field view uses them. */
 export interface FieldPosition {
   fix: PositionFix | null;
-  /** What the position source is doing, in words for the crew ("waiting for a position", "no position: …"). */
+  /** Why there is no position, in words for the crew ("waiting for a position", "location is not allowed…"); "live" with one. */
   status: string;
   /** Compass heading from magnetic north, degrees, when the device gives one; else null. */
   headingMagDeg: number | null;
@@ -25,7 +25,7 @@ export function useFieldPosition(): FieldPosition {
   useEffect(() => {
     const geo = typeof navigator !== 'undefined' ? navigator.geolocation : undefined;
     if (!geo) {
-      setStatus('no position: this browser gives none (record plots by their coordinates)');
+      setStatus('this browser gives none (record plots by their coordinates)');
       return;
     }
     const id = geo.watchPosition(
@@ -36,8 +36,8 @@ export function useFieldPosition(): FieldPosition {
       (e) => {
         setStatus(
           e.code === e.PERMISSION_DENIED
-            ? 'no position: location is not allowed for this page (allow it in the browser settings)'
-            : 'no position yet: the device has no fix (under cover or indoors?)',
+            ? 'location is not allowed for this page (allow it in the browser settings)'
+            : 'the device has no fix yet (under cover or indoors?)',
         );
       },
       { enableHighAccuracy: true, maximumAge: 10_000, timeout: 60_000 },
