@@ -43,8 +43,8 @@ export function App() {
         <FileBar />
         <StepPath step={step} onStep={setStep} done={done} />
         <HistoryButtons />
-        <a className="to-field" href="#field" title="Walk the plan on a phone or tablet: live position, the next plot, safety warnings and the plot form">
-          Field view
+        <a className="to-field" href="#field" aria-label="Field view" title="Walk the plan on a phone or tablet: live position, the next plot, safety warnings and the plot form">
+          Field<span className="to-field-more"> view</span>
         </a>
       </header>
       <main className="workspace">
