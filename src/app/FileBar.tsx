@@ -1,13 +1,9 @@
 import { useEffect, useId, useRef, useState } from 'react';
-import type { PlanFile } from '../state/planFileTypes';
 import { planFileOf, planFileParse, planHasUnsavedWork } from '../state/planFile';
-import { planReplace } from '../state/planReplace';
-import { ConfirmDialog } from './ConfirmDialog';
+import { usePlanOffer } from './usePlanOffer';
 import { demoDesign, demoSiteLoad } from './demoSite';
 import { planSaveDownload } from './planSaveDownload';
 import { EarlierWork } from './EarlierWork';
-import { plannerStore } from './plannerStoreInstance';
-import { resultsStore } from './results/resultsStoreInstance';
 import { notify, usePlanner } from './usePlanner';
 
 /**
@@ -20,7 +16,7 @@ export function FileBar() {
   const menuId = useId();
   const siteName = usePlanner((s) => s.site.name);
   const unsaved = usePlanner(planHasUnsavedWork);
-  const [pending, setPending] = useState<{ plan: PlanFile; what: string } | null>(null);
+  const { offer, question } = usePlanOffer();
   const [earlier, setEarlier] = useState(false);
   const [menu, setMenu] = useState(false);
   const bar = useRef<HTMLDivElement>(null);
@@ -37,12 +33,6 @@ export function FileBar() {
     };
   }, [menu]);
 
-  const apply = (plan: PlanFile, what: string) => planReplace(plannerStore, plan, demoDesign(null), what, true, resultsStore);
-  const offer = (plan: PlanFile, what: string) => {
-    if (planHasUnsavedWork(plannerStore.getState())) setPending({ plan, what });
-    else apply(plan, what);
-  };
-
   const save = () => {
     setMenu(false);
     planSaveDownload();
@@ -52,7 +42,7 @@ export function FileBar() {
     setMenu(false);
     if (!file) return;
     try {
-      offer(planFileParse(await file.text(), file.name), `“${file.name}”`);
+      offer(planFileParse(await file.text(), file.name), `“${file.name}”`, true);
     } catch (e) {
       // The plan on screen and its browser copy stay as they were.
       notify('error', `${(e as Error).message}; your current plan is unchanged`);
@@ -62,7 +52,7 @@ export function FileBar() {
   const demo = async () => {
     setMenu(false);
     const { site, baseline } = await demoSiteLoad();
-    offer(planFileOf(site, demoDesign(baseline)), 'the invented demo site');
+    offer(planFileOf(site, demoDesign(baseline)), 'the invented demo site', true);
   };
 
   return (
@@ -101,18 +91,7 @@ export function FileBar() {
           </button>
         </div>
       </div>
-      {pending ? (
-        <ConfirmDialog
-          title="Replace the plan you are working on?"
-          body={`${pending.what[0].toUpperCase()}${pending.what.slice(1)} would replace your current plan, which has changes not saved to a file. Undo or “Earlier work” can bring it back; save it first if you want it in a file.`}
-          confirmLabel="Replace it"
-          onCancel={() => setPending(null)}
-          onConfirm={() => {
-            apply(pending.plan, pending.what);
-            setPending(null);
-          }}
-        />
-      ) : null}
+      {question}
       {earlier ? <EarlierWork onClose={() => setEarlier(false)} /> : null}
     </>
   );

@@ -20,7 +20,7 @@ function offset(p, m, azi) {
 async function walkTo(context, page, at, accuracy = 3) {
   await context.setGeolocation({ latitude: at.lat, longitude: at.lon, accuracy });
   await page.waitForFunction(
-    ([lat, lon]) => document.querySelector('[data-figure="position"]')?.textContent?.startsWith(`${Math.abs(lat).toFixed(6)}°`) && document.querySelector('[data-figure="position"]').textContent.includes(`${Math.abs(lon).toFixed(6)}°`),
+    ([lat, lon]) => document.querySelector('[data-figure="position"]')?.textContent === `${lat.toFixed(6)}, ${lon.toFixed(6)}`,
     [at.lat, at.lon],
     { timeout: 10_000 },
   );

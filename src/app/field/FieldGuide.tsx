@@ -2,7 +2,9 @@ import type { FieldArrival } from '../../core/field/fieldArrival';
 import type { FieldGuidance } from '../../core/field/fieldGuidance';
 import type { FieldHazard } from '../../core/field/fieldHazards';
 import type { PlotProperties } from '../../core/model/designTypes';
-import { fieldDegText, fieldDistanceText, fieldLatLonText, KIND_WORDS } from './fieldText';
+import { EXCLUSION_KIND_LABELS } from '../../core/site/exclusionKindNotes';
+import { decimalDegreesText, declinationText, mgrsSpacedText, utmText } from '../../io/common/coordinateText';
+import { fieldDegText, fieldDistanceText } from './fieldText';
 
 /** Where the plot to walk to lies: its id, distance and bearings, an arrow, and whether the crew is there. */
 export function FieldGuide(props: {
@@ -60,8 +62,7 @@ export function FieldGuide(props: {
       )}
       {guidance ? (
         <p className="fv-fine">
-          Declination {guidance.declinationDeg >= 0 ? '+' : ''}
-          {guidance.declinationDeg.toFixed(1)}° (east positive; {guidance.magModel}, today, here).
+          Declination {declinationText(guidance.declinationDeg)} ({guidance.magModel}, today, here).
           {guidance.arrowDeg === null ? ' No compass heading from this device: the arrow shows the bearing with north up.' : ' The arrow turns with the device.'}
           {guidance.magWarning ? ` ${guidance.magWarning}` : ''}
         </p>
@@ -77,16 +78,18 @@ export function FieldGuide(props: {
           The straight line to {plot.plot_id} enters{' '}
           {props.onRoute.map((h, i) => (
             <span key={h.exclusion.id}>
-              {i ? '; ' : ''}the {h.exclusion.bufferM} m buffer of {KIND_WORDS[h.exclusion.kind] ?? h.exclusion.kind} “{h.exclusion.name?.trim() || h.exclusion.id}”
+              {i ? '; ' : ''}the {h.exclusion.bufferM} m buffer of {(EXCLUSION_KIND_LABELS[h.exclusion.kind] ?? h.exclusion.kind).toLowerCase()} “{h.exclusion.name?.trim() || h.exclusion.id}”
             </span>
           ))}
           . Do not follow the bearing through it: go around by a safe route.
         </div>
       ) : null}
       <p className="fv-coords">
-        {fieldLatLonText(plot.lon, plot.lat)}
+        {decimalDegreesText(plot.lon, plot.lat)}
         <br />
-        UTM {plot.utm_zone} {Math.round(plot.easting)} E {Math.round(plot.northing)} N · MGRS {plot.mgrs}
+        UTM {utmText(plot.utm_zone, plot.easting, plot.northing)}
+        <br />
+        MGRS {mgrsSpacedText(plot.mgrs)}
       </p>
     </section>
   );

@@ -1,5 +1,5 @@
 import type { FieldHazard } from '../../core/field/fieldHazards';
-import { KIND_WORDS } from './fieldText';
+import { EXCLUSION_KIND_LABELS, EXCLUSION_KIND_NOTES } from '../../core/site/exclusionKindNotes';
 
 /**
  * The warning shown while the live position lies within an exclusion's buffer: its kind, name,
@@ -14,10 +14,10 @@ export function FieldHazardAlert({ hazards }: { hazards: FieldHazard[] }) {
         {hazards.map((h) => (
           <li key={h.exclusion.id} data-exclusion={h.exclusion.id}>
             <strong>
-              {(KIND_WORDS[h.exclusion.kind] ?? h.exclusion.kind).replace(/^./, (c) => c.toUpperCase())} “{h.exclusion.name?.trim() || h.exclusion.id}”
+              {EXCLUSION_KIND_LABELS[h.exclusion.kind] ?? h.exclusion.kind} “{h.exclusion.name?.trim() || h.exclusion.id}”
             </strong>{' '}
             — {h.distanceM > 0 ? `${Math.round(h.distanceM)} m away, inside its ${h.exclusion.bufferM} m buffer` : h.exclusion.bufferM > 0 ? `you are on it (buffer ${h.exclusion.bufferM} m)` : 'you are on it'}.
-            {h.exclusion.notes ? ` ${h.exclusion.notes}` : ''}
+            {h.exclusion.notes ? ` ${h.exclusion.notes}` : ''} {EXCLUSION_KIND_NOTES[h.exclusion.kind] ?? EXCLUSION_KIND_NOTES.other}
           </li>
         ))}
       </ul>

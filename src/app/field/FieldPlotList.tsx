@@ -1,7 +1,8 @@
 import type { FieldPlotOrder } from '../../core/field/fieldPlotOrder';
 import { plotFieldStates, plotFieldStateText } from '../../core/field/plotFieldState';
 import type { PlotProperties } from '../../core/model/designTypes';
-import { fieldLatLonText, fieldWhenText } from './fieldText';
+import { decimalDegreesText } from '../../io/common/coordinateText';
+import { fieldWhenText } from './fieldText';
 
 /**
  * Every plot of the plan: those to visit in walking order (done ones ticked), then the rejected
@@ -31,7 +32,7 @@ export function FieldPlotList(props: { plots: PlotProperties[]; order: FieldPlot
               {p.stratum} · {text}
               {p.visited_at ? ` · visited ${fieldWhenText(p.visited_at)}` : ''}
             </span>
-            <span className="fv-row-coords">{fieldLatLonText(p.lon, p.lat)}</span>
+            <span className="fv-row-coords">{decimalDegreesText(p.lon, p.lat)}</span>
           </span>
         </button>
       </li>

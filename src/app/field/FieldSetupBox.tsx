@@ -1,28 +1,29 @@
 import { useId, useState } from 'react';
 import type { PlanFile } from '../../state/planFileTypes';
-import { planFileParse, planHasUnsavedWork } from '../../state/planFile';
+import { planFileParse } from '../../state/planFile';
 import { planFromPlotFile } from '../../state/planFromPlotFile';
-import { planReplace } from '../../state/planReplace';
 import { fieldSetupSet } from '../../state/fieldActions';
 import { plannerPlotsNamed } from '../../state/plotsNamed';
 import { resultsLoad, resultsMappingSet, resultsOptionsSet } from '../../state/resultsStore';
 import { fieldVariableResultKind } from '../../core/results/fieldValueCheck';
 import type { ResultKind } from '../../core/model/designTypes';
-import { ConfirmDialog } from '../ConfirmDialog';
-import { demoDesign } from '../demoSite';
 import { downloadFile, fileSafeName } from '../downloadFile';
 import { FieldVariablesBox } from '../panels/FieldVariablesBox';
 import { planSaveDownload } from '../planSaveDownload';
+import { usePlanOffer } from '../usePlanOffer';
 import { plannerStore } from '../plannerStoreInstance';
 import { resultsStore } from '../results/resultsStoreInstance';
 import { attempt, notify, usePlanner } from '../usePlanner';
 
-/** Reads a plan file or a plot file written by `stratplot plan`, whichever the text is. */
-async function planOfFile(file: File): Promise<PlanFile> {
+/**
+ * Reads a plan file or a plot file written by `stratplot plan`, whichever the text is; `saved`
+ * says whether the plan equals the file (a plot file becomes a plan not yet saved as one).
+ */
+async function planOfFile(file: File): Promise<{ plan: PlanFile; saved: boolean }> {
   const text = await file.text();
-  if (/"format"\s*:\s*"stratplot-plan"/.test(text.slice(0, 4096))) return planFileParse(text, file.name);
+  if (/"format"\s*:\s*"stratplot-plan"/.test(text.slice(0, 4096))) return { plan: planFileParse(text, file.name), saved: true };
   const { parsePlotFile } = await import('../../io/plots/parsePlotFile');
-  return planFromPlotFile(parsePlotFile(file.name, text), file.name);
+  return { plan: planFromPlotFile(parsePlotFile(file.name, text), file.name), saved: false };
 }
 
 async function resultsCsv(): Promise<{ name: string; text: string } | null> {
@@ -48,15 +49,13 @@ export function FieldSetupBox({ open }: { open: boolean }) {
   const hasPlots = usePlanner((s) => s.result !== null);
   const [crew, setCrew] = useState(field.crew);
   const [radius, setRadius] = useState(String(field.arrivalRadiusM));
-  const [pending, setPending] = useState<{ plan: PlanFile; what: string } | null>(null);
-  const apply = (plan: PlanFile, what: string) => planReplace(plannerStore, plan, demoDesign(null), what, false, resultsStore);
+  const { offer, question } = usePlanOffer();
 
   const openFile = async (file: File | undefined) => {
     if (!file) return;
     try {
-      const plan = await planOfFile(file);
-      if (planHasUnsavedWork(plannerStore.getState())) setPending({ plan, what: `“${file.name}”` });
-      else apply(plan, `“${file.name}”`);
+      const { plan, saved } = await planOfFile(file);
+      offer(plan, `“${file.name}”`, saved);
     } catch (e) {
       notify('error', `${(e as Error).message}; the plan you had is unchanged`);
     }
@@ -135,18 +134,7 @@ export function FieldSetupBox({ open }: { open: boolean }) {
         </button>
       </div>
       <p className="fv-fine">Everything typed here is kept on this device as you go. Hand the work back with the plan file (visits and rejections) and the results CSV.</p>
-      {pending ? (
-        <ConfirmDialog
-          title="Replace the plan on this device?"
-          body={`${pending.what} would replace the plan here, which has changes not saved to a file. The planner's Undo or “Earlier work” can bring it back.`}
-          confirmLabel="Replace it"
-          onCancel={() => setPending(null)}
-          onConfirm={() => {
-            apply(pending.plan, pending.what);
-            setPending(null);
-          }}
-        />
-      ) : null}
+      {question}
     </details>
   );
 }

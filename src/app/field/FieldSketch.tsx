@@ -1,16 +1,11 @@
 import type { PlotProperties } from '../../core/model/designTypes';
 import type { PositionFix } from '../../core/model/fieldTypes';
 import type { Exclusion, LonLat } from '../../core/model/types';
+import { niceStepM } from '../../core/common/niceStepM';
 import { fieldDistanceText } from './fieldText';
 
 const R = 150;
 const M_PER_DEG_LAT = 111_320;
-
-/** A nice round length for the scale bar: 1, 2 or 5 × 10ⁿ metres, at most `m`. */
-function roundLength(m: number): number {
-  const p = 10 ** Math.floor(Math.log10(Math.max(m, 1)));
-  return [5, 2, 1].map((k) => k * p).find((v) => v <= m) ?? p;
-}
 
 function paths(e: Exclusion): { rings: LonLat[][]; lines: LonLat[][]; points: LonLat[] } {
   const g = e.geometry;
@@ -46,7 +41,8 @@ export function FieldSketch(props: { fix: PositionFix | null; target: PlotProper
   const kx = M_PER_DEG_LAT * Math.cos((centre.lat * Math.PI) / 180);
   const xy = ([lon, lat]: LonLat): [number, number] => [(lon - centre.lon) * kx * scale, -(lat - centre.lat) * M_PER_DEG_LAT * scale];
   const d = (line: LonLat[], close: boolean) => `M${line.map((p) => xy(p).map((v) => v.toFixed(1)).join(',')).join('L')}${close ? 'Z' : ''}`;
-  const bar = roundLength(span / 2);
+  // The scale bar takes the nice step of the printed maps, about a third of the way to the edge.
+  const bar = niceStepM(span / 3);
   return (
     <section className="fv-card fv-sketch-card" aria-label="Sketch around your position">
       <svg className="fv-sketch" viewBox={`${-R} ${-R} ${2 * R} ${2 * R}`} role="img" aria-label={`North-up sketch, ${fieldDistanceText(span)} from centre to edge`}>

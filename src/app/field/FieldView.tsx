@@ -16,7 +16,7 @@ import { FieldPlotList } from './FieldPlotList';
 import { FieldPlotRecord } from './FieldPlotRecord';
 import { FieldSetupBox } from './FieldSetupBox';
 import { FieldSketch } from './FieldSketch';
-import { fieldLatLonText } from './fieldText';
+import { decimalDegreesText } from '../../io/common/coordinateText';
 import { useFieldPosition } from './useFieldPosition';
 import './fieldView.css';
 
@@ -80,7 +80,7 @@ export function FieldView() {
         <section className="fv-card fv-position" aria-label="Your position">
           {fix ? (
             <>
-              <span data-figure="position">{fieldLatLonText(fix.lon, fix.lat)}</span>{' '}
+              <span data-figure="position">{decimalDegreesText(fix.lon, fix.lat)}</span>{' '}
               <span className="fv-accuracy-text" data-figure="accuracy">
                 ±{Math.round(fix.accuracyM)} m
               </span>

@@ -1,6 +1,3 @@
-/** An exclusion kind as the crew reads it. */
-export const KIND_WORDS: Readonly<Record<string, string>> = { cliff: 'cliff edge', water: 'water', private: 'private land', hazard: 'hazard', other: 'exclusion' };
-
 /** Metres as the field view shows them: whole metres below 10 km, km with two decimals beyond. */
 export function fieldDistanceText(m: number): string {
   return m < 10_000 ? `${Math.round(m).toLocaleString('en')} m` : `${(m / 1000).toFixed(2)} km`;
@@ -9,11 +6,6 @@ export function fieldDistanceText(m: number): string {
 /** Degrees to one decimal, with the degree sign. */
 export function fieldDegText(deg: number): string {
   return `${deg.toFixed(1)}°`;
-}
-
-/** "34.440112° S, 119.123456° E": latitude and longitude for reading out and typing into a GPS. */
-export function fieldLatLonText(lon: number, lat: number): string {
-  return `${Math.abs(lat).toFixed(6)}° ${lat < 0 ? 'S' : 'N'}, ${Math.abs(lon).toFixed(6)}° ${lon < 0 ? 'W' : 'E'}`;
 }
 
 /** A local clock time "09:41" for a visit recorded today, else the date and time. */

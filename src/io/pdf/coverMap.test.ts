@@ -2,7 +2,7 @@ import { jsPDF } from 'jspdf';
 import { describe, expect, it } from 'vitest';
 import type { Site } from '../../core/model/types';
 import { coverMapDraw } from './coverMap';
-import { niceStepM } from './coverMapFurniture';
+import { niceStepM } from '../../core/common/niceStepM';
 import { fieldKitPlots, fieldKitSite } from '../fixtures/fieldKitSample';
 import { pdfFontRegister } from './pdfFont';
 

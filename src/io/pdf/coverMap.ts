@@ -3,7 +3,8 @@ import type { PlotCollection } from '../../core/model/designTypes';
 import type { LocalFrame } from '../../core/geo/localFrame';
 import { designFrame } from '../../core/field/designFrame';
 import type { Exclusion, LonLat, Site } from '../../core/model/types';
-import { drawGridTicks, drawLegend, drawNorthArrow, drawScaleBar, niceStepM, type PageBox, trueNorthFromGridDeg } from './coverMapFurniture';
+import { drawGridTicks, drawLegend, drawNorthArrow, drawScaleBar, type PageBox, trueNorthFromGridDeg } from './coverMapFurniture';
+import { niceStepM } from '../../core/common/niceStepM';
 import { plotFieldStates } from '../../core/field/plotFieldState';
 import { drawBuffers, drawExclusion, drawPlotSymbol, fillGrey, haloText, strokeRing, type XYRing } from './coverMapSymbols';
 

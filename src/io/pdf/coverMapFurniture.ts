@@ -12,14 +12,6 @@ export interface PageBox {
   h: number;
 }
 
-const NICE = [10, 20, 25, 50, 100, 200, 250, 500, 1000, 2000, 2500, 5000, 10_000, 20_000, 50_000];
-
-
-/** The nice step (from 10 m to 50 km) nearest above `roughM`. */
-export function niceStepM(roughM: number): number {
-  return NICE.find((s) => s >= roughM) ?? NICE[NICE.length - 1];
-}
-
 /** Ground metres (UTM) to page mm, and the map's centre and scale. */
 export interface Projector {
   px(x: number): number;
