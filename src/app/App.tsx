@@ -44,7 +44,7 @@ export function App() {
         <StepPath step={step} onStep={setStep} done={done} />
         <HistoryButtons />
         <a className="to-field" href="#field" aria-label="Field view" title="Walk the plan on a phone or tablet: live position, the next plot, safety warnings and the plot form">
-          Field<span className="to-field-more"> view</span>
+          Field<span className="to-field-more">{'\u00a0'}view</span>
         </a>
       </header>
       <main className="workspace">

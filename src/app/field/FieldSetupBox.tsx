@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useEffect, useId, useState } from 'react';
 import type { PlanFile } from '../../state/planFileTypes';
 import { planFileParse } from '../../state/planFile';
 import { planFromPlotFile } from '../../state/planFromPlotFile';
@@ -49,6 +49,9 @@ export function FieldSetupBox({ open }: { open: boolean }) {
   const hasPlots = usePlanner((s) => s.result !== null);
   const [crew, setCrew] = useState(field.crew);
   const [radius, setRadius] = useState(String(field.arrivalRadiusM));
+  // Another plan opened (or Undo): the boxes show its setup.
+  useEffect(() => setCrew(field.crew), [field.crew]);
+  useEffect(() => setRadius(String(field.arrivalRadiusM)), [field.arrivalRadiusM]);
   const { offer, question } = usePlanOffer();
 
   const openFile = async (file: File | undefined) => {
