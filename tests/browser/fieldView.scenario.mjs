@@ -99,6 +99,12 @@ export const FIELD_VIEW_SCENARIO = {
     check(Math.abs(shownMag - mag) <= 0.1, `magnetic bearing shown ${shownMag}°, WMM2025 gives ${mag.toFixed(3)}° (declination ${decl.toFixed(3)}°)`);
     await page.evaluate(() => window.scrollTo(0, 0));
     await shot('field-phone-guide');
+    // A compass facing magnetic east (absolute alpha 270°, counted anticlockwise): the arrow turns by the heading from true north.
+    await page.evaluate(() => window.dispatchEvent(new DeviceOrientationEvent('deviceorientationabsolute', { alpha: 270, beta: 0, gamma: 0, absolute: true })));
+    await page.waitForSelector('svg.fv-arrow[aria-label="Turn to the arrow"]', { timeout: 5000 });
+    const turned = Number((await page.locator('svg.fv-arrow g').getAttribute('transform')).match(/rotate\(([-\d.]+)\)/)[1]);
+    const wanted = (((azi - (90 + decl)) % 360) + 360) % 360;
+    check(Math.abs(turned - wanted) <= 0.1, `the arrow turns to ${turned}° with the device facing magnetic east, expected ${wanted.toFixed(2)}°`);
 
     // Arrival at the radius (5 m): not at 7 m, yes at 4 m; with ±12 m the radius widens to 12 m.
     await walkTo(context, page, offset(first, 7, 40), 3);

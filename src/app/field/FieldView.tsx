@@ -18,6 +18,7 @@ import { FieldSetupBox } from './FieldSetupBox';
 import { FieldSketch } from './FieldSketch';
 import { decimalDegreesText } from '../../io/common/coordinateText';
 import { useFieldPosition } from './useFieldPosition';
+import { useScreenAwake } from './useScreenAwake';
 import './fieldView.css';
 
 /**
@@ -33,6 +34,7 @@ export function FieldView() {
   const field = usePlanner((s) => s.field);
   const notice = usePlanner((s) => s.notice);
   const position = useFieldPosition();
+  useScreenAwake();
   const [chosen, setChosen] = useState<string | null>(null);
   // biome-ignore lint/correctness/useExhaustiveDependencies: a change of the plots or the setup is what must be written at once
   useEffect(() => {
@@ -94,6 +96,11 @@ export function FieldView() {
             <h2>No plots on this device yet</h2>
             <p>Open the plan file or the plot file made for this survey below, or make a design in the planner.</p>
           </section>
+        ) : null}
+        {position.compassAsk ? (
+          <button type="button" className="fv-big" onClick={position.compassAsk}>
+            Turn the arrow with the compass
+          </button>
         ) : null}
         {target ? <FieldGuide plot={target} isNext={target.plot_id === next} guidance={guidance} arrival={arrival} onRoute={onRoute} positionStatus={position.status} /> : null}
         {result && !target ? <section className="fv-card">Every plot to visit is done. Hand the work back below.</section> : null}

@@ -8,7 +8,11 @@ export interface FieldPosition {
   status: string;
   /** Compass heading from magnetic north, degrees, when the device gives one; else null. */
   headingMagDeg: number | null;
+  /** Asks for the compass where the browser wants a tap first (iOS); null where no asking is needed. */
+  compassAsk: (() => void) | null;
 }
+
+type OrientationPermission = { requestPermission?: () => Promise<'granted' | 'denied'> };
 
 type OrientationEvent = DeviceOrientationEvent & { webkitCompassHeading?: number };
 
@@ -21,6 +25,8 @@ export function useFieldPosition(): FieldPosition {
   const [fix, setFix] = useState<PositionFix | null>(null);
   const [status, setStatus] = useState('waiting for a position');
   const [headingMagDeg, setHeading] = useState<number | null>(null);
+  const [asked, setAsked] = useState(false);
+  const needsAsk = typeof window !== 'undefined' && typeof (window.DeviceOrientationEvent as unknown as OrientationPermission | undefined)?.requestPermission === 'function';
 
   useEffect(() => {
     const geo = typeof navigator !== 'undefined' ? navigator.geolocation : undefined;
@@ -57,5 +63,13 @@ export function useFieldPosition(): FieldPosition {
     return () => window.removeEventListener(kind, onTurn);
   }, []);
 
-  return { fix, status, headingMagDeg };
+  const compassAsk =
+    needsAsk && !asked && headingMagDeg === null
+      ? () => {
+          setAsked(true);
+          // The events start once allowed; a refusal leaves the north-up dial.
+          void (window.DeviceOrientationEvent as unknown as OrientationPermission).requestPermission?.().catch(() => undefined);
+        }
+      : null;
+  return { fix, status, headingMagDeg, compassAsk };
 }
