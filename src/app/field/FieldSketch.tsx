@@ -1,3 +1,4 @@
+import { type LocalFrame, localFrameAt } from '../../core/geo/localFrame';
 import type { PlotProperties } from '../../core/model/designTypes';
 import type { PositionFix } from '../../core/model/fieldTypes';
 import type { Exclusion, LonLat } from '../../core/model/types';
@@ -5,7 +6,6 @@ import { niceStepM } from '../../core/common/niceStepM';
 import { fieldDistanceText } from './fieldText';
 
 const R = 150;
-const M_PER_DEG_LAT = 111_320;
 
 function paths(e: Exclusion): { rings: LonLat[][]; lines: LonLat[][]; points: LonLat[] } {
   const g = e.geometry;
@@ -32,14 +32,19 @@ function paths(e: Exclusion): { rings: LonLat[][]; lines: LonLat[][]; points: Lo
  * plot to walk to and its neighbours, and the exclusions drawn as wide as their buffers, so the
  * crew sees which side of a cliff or creek the plot lies. Works with no tiles and no network.
  */
-export function FieldSketch(props: { fix: PositionFix | null; target: PlotProperties | null; plots: PlotProperties[]; exclusions: readonly Exclusion[]; distanceM: number | null }) {
+export function FieldSketch(props: { fix: PositionFix | null; target: PlotProperties | null; plots: PlotProperties[]; exclusions: readonly Exclusion[]; distanceM: number | null; frame: LocalFrame | null }) {
   const { fix, target } = props;
   const centre = fix ?? (target ? { lon: target.lon, lat: target.lat, accuracyM: 0 } : null);
   if (!centre) return null;
   const span = Math.max(30, (props.distanceM ?? 0) * 1.25, fix ? fix.accuracyM * 1.4 : 0);
   const scale = R / span;
-  const kx = M_PER_DEG_LAT * Math.cos((centre.lat * Math.PI) / 180);
-  const xy = ([lon, lat]: LonLat): [number, number] => [(lon - centre.lon) * kx * scale, -(lat - centre.lat) * M_PER_DEG_LAT * scale];
+  // Drawn in the design's UTM frame (grid north up, a fraction of a degree from true north at site scale).
+  const frame = props.frame ?? localFrameAt(centre.lon, centre.lat);
+  const [cx, cy] = frame.toXY(centre.lon, centre.lat);
+  const xy = ([lon, lat]: LonLat): [number, number] => {
+    const [x, y] = frame.toXY(lon, lat);
+    return [(x - cx) * scale, -(y - cy) * scale];
+  };
   const d = (line: LonLat[], close: boolean) => `M${line.map((p) => xy(p).map((v) => v.toFixed(1)).join(',')).join('L')}${close ? 'Z' : ''}`;
   // The scale bar takes the nice step of the printed maps, about a third of the way to the edge.
   const bar = niceStepM(span / 3);

@@ -7,7 +7,6 @@ import { fieldArrival } from '../../core/field/fieldArrival';
 import { fieldGuidance } from '../../core/field/fieldGuidance';
 import { fieldHazardIndex } from '../../core/field/fieldHazards';
 import { fieldNextPlot, fieldPlotOrder } from '../../core/field/fieldPlotOrder';
-import { magneticDeclination } from '../../core/geo/magneticDeclination';
 import { plannerPlotsNamed } from '../../state/plotsNamed';
 import { usePlanner } from '../usePlanner';
 import { FieldGuide } from './FieldGuide';
@@ -59,8 +58,7 @@ export function FieldView() {
   const target = plots.find((p) => p.plot_id === (chosen ?? next)) ?? plots.find((p) => p.plot_id === next) ?? null;
   const fix = position.fix;
   const now = new Date();
-  const headingTrue = fix && position.headingMagDeg !== null ? position.headingMagDeg + magneticDeclination([fix.lat, fix.lon], 0, now).declinationDeg : null;
-  const guidance = fix && target ? fieldGuidance(fix, target, now, headingTrue) : null;
+  const guidance = fix && target ? fieldGuidance(fix, target, now, position.headingMagDeg) : null;
   const arrival = guidance && fix ? fieldArrival(guidance.distanceM, field.arrivalRadiusM, fix.accuracyM) : null;
   const here = fix && hazards ? hazards.at(fix.lon, fix.lat) : [];
   const onRoute = fix && hazards && target ? hazards.along(fix, target) : [];
@@ -105,7 +103,7 @@ export function FieldView() {
         {target ? <FieldGuide plot={target} isNext={target.plot_id === next} guidance={guidance} arrival={arrival} onRoute={onRoute} positionStatus={position.status} /> : null}
         {result && !target ? <section className="fv-card">Every plot to visit is done. Hand the work back below.</section> : null}
         {result && !site.exclusions.length ? <p className="fv-card fv-fine">This plan carries no exclusions, so no safety warnings can be given here: use the field sheets and the briefing.</p> : null}
-        <FieldSketch fix={fix} target={target} plots={plots} exclusions={site.exclusions} distanceM={guidance?.distanceM ?? null} />
+        <FieldSketch fix={fix} target={target} plots={plots} exclusions={site.exclusions} distanceM={guidance?.distanceM ?? null} frame={frame} />
         {target ? <FieldPlotRecord plot={target} variables={field.variables} fix={fix} /> : null}
         {result ? <FieldPlotList plots={plots} order={order} targetId={target?.plot_id ?? null} onChoose={setChosen} /> : null}
         <FieldSetupBox open={!result || !field.crew} />

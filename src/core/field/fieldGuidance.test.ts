@@ -26,11 +26,14 @@ describe('fieldGuidance', () => {
     expect(g.magModel).toMatch(/WMM/);
   });
 
-  it('turns the arrow by the device heading', () => {
-    const g = fieldGuidance(fix(145, -38), { lon: 145.02, lat: -38.01 }, new Date('2026-06-01T00:00:00Z'), 100);
-    expect(g.arrowDeg).toBeCloseTo(22.29528569881, 8);
-    const behind = fieldGuidance(fix(145, -38), { lon: 145.02, lat: -38.01 }, new Date('2026-06-01T00:00:00Z'), 300);
-    expect(behind.arrowDeg).toBeCloseTo(182.29528569881, 8);
+  it('turns the arrow by the compass heading, taken from magnetic north', () => {
+    const date = new Date('2026-06-01T00:00:00Z');
+    const decl = magneticDeclination([-38, 145], 0, date).declinationDeg;
+    // Heading 100° magnetic is 100° + D true; the plot lies at 122.29528569881° true (GeodSolve, above).
+    const g = fieldGuidance(fix(145, -38), { lon: 145.02, lat: -38.01 }, date, 100);
+    expect(g.arrowDeg).toBeCloseTo(122.29528569881 - (100 + decl), 8);
+    const behind = fieldGuidance(fix(145, -38), { lon: 145.02, lat: -38.01 }, date, 300);
+    expect(behind.arrowDeg).toBeCloseTo(122.29528569881 - (300 + decl) + 360, 8);
   });
 
   it('refuses a position outside WGS84 ranges', () => {

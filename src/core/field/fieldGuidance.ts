@@ -16,8 +16,8 @@ export interface FieldGuidance {
   magWarning: string | null;
   /**
    * Angle of the plot from the direction the device faces, degrees clockwise [0, 360), when the
-   * device reports a heading from true north; null without one (the arrow then points to the
-   * bearing on a north-up dial).
+   * device reports a compass heading; null without one (the arrow then points to the bearing on a
+   * north-up dial).
    */
   arrowDeg: number | null;
 }
@@ -25,21 +25,23 @@ export interface FieldGuidance {
 /**
  * Distance and bearings from the crew's position to a plot, with the magnetic bearing for that
  * date and place and the arrow angle relative to the device's heading.
- * @param headingTrueDeg the device's heading from true north, degrees, or null when it gives none.
+ * @param headingMagDeg the device's compass heading from magnetic north, degrees, or null when it
+ *   gives none; the arrow is the magnetic bearing less it (the same declination cancels).
  * Sources: Karney (2013) geodesic inverse via geographiclib-geodesic; declination from WMM2025
  * (NOAA NCEI / BGS) via the geomagnetism package.
  * @throws RangeError for a position outside WGS84 ranges.
  */
-export function fieldGuidance(fix: PositionFix, plot: { lon: number; lat: number }, date: Date, headingTrueDeg: number | null): FieldGuidance {
+export function fieldGuidance(fix: PositionFix, plot: { lon: number; lat: number }, date: Date, headingMagDeg: number | null): FieldGuidance {
   const bd = bearingDistance(fix.lon, fix.lat, plot.lon, plot.lat);
   const decl = magneticDeclination([fix.lat, fix.lon], 0, date);
+  const bearingMagDeg = bearingMagneticDeg(bd.bearingTrueDeg, decl.declinationDeg);
   return {
     distanceM: bd.distanceM,
     bearingTrueDeg: bd.bearingTrueDeg,
-    bearingMagDeg: bearingMagneticDeg(bd.bearingTrueDeg, decl.declinationDeg),
+    bearingMagDeg,
     declinationDeg: decl.declinationDeg,
     magModel: `${decl.model}, for ${decl.decimalYear.toFixed(2)}`,
     magWarning: decl.warning,
-    arrowDeg: headingTrueDeg === null || !Number.isFinite(headingTrueDeg) ? null : bearingNormalizeDeg(bd.bearingTrueDeg - headingTrueDeg),
+    arrowDeg: headingMagDeg === null || !Number.isFinite(headingMagDeg) ? null : bearingNormalizeDeg(bearingMagDeg - headingMagDeg),
   };
 }

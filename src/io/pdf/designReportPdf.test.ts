@@ -48,7 +48,7 @@ describe('designReportPdf', () => {
       expect(text).toContain('Minimum plots per stratum');
       execFileSync('pdftoppm', ['-png', '-r', '50', file, join(dir, 'page')]);
       expect(readdirSync(dir).filter((f) => f.endsWith('.png')).length).toBeGreaterThanOrEqual(2);
-      if (process.env.STRATPLOT_KEEP_PDF) writeFileSync(`/tmp/design-report-${paper}.pdf`, bytes);
+      if (process.env.STRATPLOT_KEEP_PDF) writeFileSync(join(tmpdir(), `design-report-${paper}.pdf`), bytes);
     });
   }
 

@@ -35,7 +35,7 @@ describe('fieldSheetsPdf', () => {
       const info = execFileSync('pdfinfo', [file], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] });
       // ISO 216 A4 is 595 × 842 pt; ANSI Letter 612 × 792 pt.
       expect(info).toMatch(paper === 'a4' ? /Page size:\s+595\.2\d? x 841\.8\d?/ : /Page size:\s+612 x 792/);
-      if (process.env.STRATPLOT_KEEP_PDF) writeFileSync(`/tmp/field-sheets-${paper}.pdf`, bytes);
+      if (process.env.STRATPLOT_KEEP_PDF) writeFileSync(join(tmpdir(), `field-sheets-${paper}.pdf`), bytes);
     });
   }
 

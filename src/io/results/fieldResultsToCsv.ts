@@ -4,12 +4,8 @@ import { FIELD_RESULTS_FIXED_COLUMNS } from '../../core/field/fieldVariablesChec
 import type { PlotCollection } from '../../core/model/designTypes';
 import type { FieldVariable } from '../../core/model/fieldTypes';
 import { resultsValueRead } from '../../core/results/resultsValueRead';
+import Papa from 'papaparse';
 import { csvCell } from '../common/csvCell';
-
-function cellText(v: string | number): string {
-  const t = String(v);
-  return /[",\r\n]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
-}
 
 /**
  * The results table of a walked plan, as the Results step and `stratplot estimate` read it: one
@@ -24,7 +20,7 @@ export function fieldResultsToCsv(collection: PlotCollection, variables: readonl
   const plots = collection.features.map((f) => f.properties);
   const states = plotFieldStates(plots);
   const header = [...FIELD_RESULTS_FIXED_COLUMNS.filter((c) => c !== 'crew_note'), ...variables.map((v) => v.name), 'crew_note'];
-  const lines = [header.map((h) => cellText(csvCell(h))).join(',')];
+  const data: (string | number)[][] = [];
   for (const p of plots) {
     const s = states.get(p.plot_id);
     if (!s || s.key === 'reserve') continue;
@@ -51,7 +47,8 @@ export function fieldResultsToCsv(collection: PlotCollection, variables: readonl
       ...values,
       p.crew_note,
     ];
-    lines.push(row.map((c) => cellText(csvCell(c))).join(','));
+    data.push(row.map(csvCell));
   }
-  return `${lines.join('\r\n')}\r\n`;
+  // Written as the plot table is (featuresToCsv): papaparse quotes where RFC 4180 needs it.
+  return `${Papa.unparse({ fields: header.map((h) => String(csvCell(h))), data }, { newline: '\r\n', escapeFormulae: false, quotes: false })}\r\n`;
 }

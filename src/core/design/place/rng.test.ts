@@ -45,7 +45,7 @@ describe('splitmix64', () => {
 });
 
 describe('xoroshiro128PlusFromHalves', () => {
-  it('agrees with pure-rand 8.4.2 (low 32 bits) and a 64-bit BigInt transcription of Blackman & Vigna (2018) over 20 000 outputs', () => {
+  it('agrees with pure-rand 8.4.2 (low 32 bits) and a 64-bit BigInt port of Blackman & Vigna (2018) over 20 000 outputs', () => {
     const state = [0x12345678 | 0, 0x9abcdef0 | 0, 0xdeadbeef | 0, 0x01234567];
     const reference = xoroshiro128plusFromState(state);
     const g = xoroshiro128PlusFromHalves(state[0], state[1], state[2], state[3]);
