@@ -1,4 +1,5 @@
 import Flatbush from 'flatbush';
+import type { Position } from 'geojson';
 import { edgeCrossesRayEast } from '../geometry/edgeCrossesRayEast';
 import { InputError } from '../common/InputError';
 import { siteLongitudeUnwrap } from '../geo/siteLocalFrame';
@@ -28,39 +29,44 @@ interface StratumEdges {
 }
 
 function edgesOf(site: Site, key: string, unwrap: (lon: number) => number): StratumEdges | null {
-  const flat: number[] = [];
-  const chunks: number[][] = [];
-  let longestM = 0;
+  const rings: Position[][] = [];
   for (const part of site.parts) {
     if (part.stratum !== key) continue;
     const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
-    for (const poly of polys) {
-      for (const ring of poly) {
-        for (let i = 0; i + 1 < ring.length; i++) {
-          if (flat.length % (4 * CHUNK) === 0) chunks.push([Infinity, Infinity, -Infinity, -Infinity]);
-          const x1 = unwrap(ring[i][0]);
-          const y1 = ring[i][1];
-          const x2 = unwrap(ring[i + 1][0]);
-          const y2 = ring[i + 1][1];
-          flat.push(x1, y1, x2, y2);
-          const box = chunks[chunks.length - 1];
-          box[0] = Math.min(box[0], x1, x2);
-          box[1] = Math.min(box[1], y1, y2);
-          box[2] = Math.max(box[2], x1, x2);
-          box[3] = Math.max(box[3], y1, y2);
-          const kx = Math.cos((((y1 + y2) / 2) * Math.PI) / 180) * M_PER_DEG_LON;
-          longestM = Math.max(longestM, Math.hypot((x2 - x1) * kx, (y2 - y1) * M_PER_DEG_LAT));
-        }
-        // Chunks never span two rings' gap as one edge; a new ring starts a new chunk.
-        while (flat.length % (4 * CHUNK) !== 0) flat.push(Number.NaN, Number.NaN, Number.NaN, Number.NaN);
+    for (const poly of polys) for (const ring of poly) if (ring.length > 1) rings.push(ring);
+  }
+  // Each ring starts a new chunk, so no chunk spans the gap between two rings; NaN pads the rest.
+  let chunkCount = 0;
+  for (const ring of rings) chunkCount += Math.ceil((ring.length - 1) / CHUNK);
+  if (chunkCount === 0) return null;
+  const edges = new Float64Array(chunkCount * CHUNK * 4).fill(Number.NaN);
+  const index = new Flatbush(chunkCount);
+  let longestM = 0;
+  let c = 0;
+  for (const ring of rings) {
+    for (let start = 0; start + 1 < ring.length; start += CHUNK, c++) {
+      let [x0, y0, x1, y1] = [Infinity, Infinity, -Infinity, -Infinity];
+      for (let i = start, e = c * CHUNK * 4; i < start + CHUNK && i + 1 < ring.length; i++, e += 4) {
+        const ax = unwrap(ring[i][0]);
+        const ay = ring[i][1];
+        const bx = unwrap(ring[i + 1][0]);
+        const by = ring[i + 1][1];
+        edges[e] = ax;
+        edges[e + 1] = ay;
+        edges[e + 2] = bx;
+        edges[e + 3] = by;
+        x0 = Math.min(x0, ax, bx);
+        y0 = Math.min(y0, ay, by);
+        x1 = Math.max(x1, ax, bx);
+        y1 = Math.max(y1, ay, by);
+        const kx = Math.cos((((ay + by) / 2) * Math.PI) / 180) * M_PER_DEG_LON;
+        longestM = Math.max(longestM, Math.hypot((bx - ax) * kx, (by - ay) * M_PER_DEG_LAT));
       }
+      index.add(x0, y0, x1, y1);
     }
   }
-  if (chunks.length === 0) return null;
-  const index = new Flatbush(chunks.length);
-  for (const b of chunks) index.add(b[0], b[1], b[2], b[3]);
   index.finish();
-  return { edges: Float64Array.from(flat), index, longestM };
+  return { edges, index, longestM };
 }
 
 /** Sagitta bound, metres: how far the straight edges of the grid or of lon/lat may stand from the geodesic one of length L. */

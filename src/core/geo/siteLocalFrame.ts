@@ -3,16 +3,19 @@ import { InputError } from '../common/InputError';
 import { type LocalFrame, localFrameAt } from './localFrame';
 import type { LonLat, StratumPart } from '../model/types';
 
-/** Signed planar area and first moments of a lon/lat ring, with longitudes scaled by cos(lat0). */
-function ringMoments(ring: readonly LonLat[], cosLat0: number): [a: number, mx: number, my: number] {
+/**
+ * Signed planar area and first moments of a lon/lat ring about (lon0, lat0), longitudes unwrapped
+ * and scaled by cos(lat0); worked vertex by vertex, with no shifted copy of the ring.
+ */
+function ringMoments(ring: readonly LonLat[], unwrap: (lon: number) => number, lon0: number, lat0: number, cosLat0: number): [a: number, mx: number, my: number] {
   let a = 0;
   let mx = 0;
   let my = 0;
   for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const x0 = ring[j][0] * cosLat0;
-    const y0 = ring[j][1];
-    const x1 = ring[i][0] * cosLat0;
-    const y1 = ring[i][1];
+    const x0 = (unwrap(ring[j][0]) - lon0) * cosLat0;
+    const y0 = ring[j][1] - lat0;
+    const x1 = (unwrap(ring[i][0]) - lon0) * cosLat0;
+    const y1 = ring[i][1] - lat0;
     const c = x0 * y1 - x1 * y0;
     a += c;
     mx += (x0 + x1) * c;
@@ -82,7 +85,9 @@ export function siteLocalFrame(parts: readonly StratumPart[]): LocalFrame {
     for (const poly of polys) {
       for (const ring of poly) {
         rings.push(ring);
-        for (const [lon, lat] of ring) {
+        for (let i = 0; i < ring.length; i++) {
+          const lon = ring[i][0];
+          const lat = ring[i][1];
           if (lon < minLon) minLon = lon;
           if (lon > maxLon) maxLon = lon;
           if (lat < minLat) minLat = lat;
@@ -108,8 +113,7 @@ export function siteLocalFrame(parts: readonly StratumPart[]): LocalFrame {
     const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
     for (const poly of polys) {
       poly.forEach((ring, r) => {
-        const shifted = ring.map(([lon, lat]) => [unwrap(lon) - lon0, lat - lat0]);
-        const [a, x, y] = ringMoments(shifted, cosLat0);
+        const [a, x, y] = ringMoments(ring, unwrap, lon0, lat0, cosLat0);
         // Shells count positive and holes negative, whatever the winding in the file.
         const sign = (r === 0 ? 1 : -1) * Math.sign(a);
         area += sign * a;
@@ -136,7 +140,9 @@ function frameReachChecked(frame: LocalFrame, rings: readonly (readonly LonLat[]
   const limit = Math.sin(MAX_FRAME_REACH_KM / EARTH_RADIUS_KM);
   let worst = 0;
   for (const ring of rings) {
-    for (const [lon, lat] of ring) {
+    for (let i = 0; i < ring.length; i++) {
+      const lon = ring[i][0];
+      const lat = ring[i][1];
       if (!(lat >= -80 && lat <= 84)) {
         throw new InputError(`the site reaches latitude ${lat.toFixed(5)} at longitude ${lon.toFixed(5)}, outside UTM's 80°S–84°N (polar ground is not supported)`);
       }

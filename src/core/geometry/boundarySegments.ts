@@ -94,25 +94,27 @@ export function segmentsContain(s: Segments, index: Flatbush, px: number, py: nu
 }
 
 /**
- * Even–odd tests against the pieces whose boxes hold (px, py): afterwards `parity[p]` is 1 exactly for
- * the pieces containing the point, and `touched` lists them. `ranges` holds each piece's first and
- * past-last segment.
+ * Whether any piece that `accept` takes holds (px, py), by the even–odd rule over that piece's own
+ * segments; pieces are tried only where their box holds the point, and the search stops at the
+ * first that does. `ranges` holds each piece's first and past-last segment.
  */
-export function piecesContaining(s: Segments, ranges: Int32Array, pieceIndex: Flatbush, px: number, py: number, parity: Uint8Array, touched: number[]): void {
-  for (const p of touched) parity[p] = 0;
-  touched.length = 0;
+export function anyPieceContains(
+  s: Segments,
+  ranges: Int32Array,
+  pieceIndex: Flatbush,
+  px: number,
+  py: number,
+  accept: (piece: number) => boolean,
+): boolean {
   const v = s.xy;
-  pieceIndex.search(px, py, px, py, (p) => {
+  return pieceIndex.collides(px, py, px, py, (p) => {
+    if (!accept(p)) return false;
     let inside = false;
     for (let i = ranges[2 * p], end = ranges[2 * p + 1]; i < end; i++) {
       const o = 4 * i;
       if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
     }
-    if (inside) {
-      parity[p] = 1;
-      touched.push(p);
-    }
-    return false;
+    return inside;
   });
 }
 

@@ -1,8 +1,14 @@
 import Flatbush from 'flatbush';
-import { cutsAlong, type PolygonsLonLat, piecesContaining, type Segments, segmentsContain, segmentsIndex, segmentsOf } from './boundarySegments';
+import { anyPieceContains, cutsAlong, type PolygonsLonLat, type Segments, segmentsContain, segmentsIndex, segmentsOf } from './boundarySegments';
 import { equalAreaXY } from '../geo/equalAreaXY';
 
 export type { PolygonsLonLat } from './boundarySegments';
+
+/** Where a piece lies against the part: not yet known, near its boundary, wholly inside, wholly outside. */
+const SIDE_UNKNOWN = 0;
+const SIDE_NEAR = 1;
+const SIDE_IN = 2;
+const SIDE_OUT = 3;
 
 /** The lon/lat box of every piece's shells: west, south, east, north. */
 function piecesBox(pieces: readonly PolygonsLonLat[]): [number, number, number, number] {
@@ -107,15 +113,8 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
     else pieceIndex.add(boxes[q], boxes[q + 1], boxes[q + 2], boxes[q + 3]);
   }
   pieceIndex.finish();
-  const parity = new Uint8Array(pieces.length);
-  const parityRight = new Uint8Array(pieces.length);
-  const touched: number[] = [];
-  const touchedRight: number[] = [];
-  const inUnion = (x: number, y: number) => {
-    piecesContaining(b, ranges, pieceIndex, x, y, parity, touched);
-    for (const p of touched) if (parity[p]) return true;
-    return false;
-  };
+  const every = () => true;
+  const inUnion = (x: number, y: number) => anyPieceContains(b, ranges, pieceIndex, x, y, every);
   let area = 0;
   const cuts: number[] = [];
   const near = new Uint8Array(a.count);
@@ -133,17 +132,29 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
     cutsAlong(a.xy, 4 * i, b, bIndex, -1, cuts);
     area += boundaryTerm(a, i, cuts, (lx, ly) => inUnion(lx, ly));
   }
+  // Margin about a piece's box, metres: far beyond the micrometre offsets of the point tests.
+  const margin = 1e-3;
+  const side = new Uint8Array(pieces.length);
+  const pieceSide = (p: number): number => {
+    const q = 4 * p;
+    const [x0, y0, x1, y1] = [boxes[q] - margin, boxes[q + 1] - margin, boxes[q + 2] + margin, boxes[q + 3] + margin];
+    if (aIndex.collides(x0, y0, x1, y1)) return SIDE_NEAR;
+    return inA((x0 + x1) / 2, (y0 + y1) / 2) ? SIDE_IN : SIDE_OUT;
+  };
   for (let i = 0; i < b.count; i++) {
     const o = 4 * i;
     const v = b.xy;
     // East of every kept part edge: no ray from there meets the part, so the edge is outside it.
     if (Math.min(v[o], v[o + 2]) > aIndex.maxX) continue;
     const own = b.owner[i];
+    // A piece that no edge of the part comes near lies wholly inside or outside the part: one test settles all its edges.
+    if (side[own] === SIDE_UNKNOWN) side[own] = pieceSide(own);
+    if (side[own] === SIDE_OUT) continue;
     cuts.length = 0;
-    cutsAlong(b.xy, o, a, aIndex, -1, cuts);
+    if (side[own] === SIDE_NEAR) cutsAlong(b.xy, o, a, aIndex, -1, cuts);
     // An edge that never meets the part's boundary is wholly inside or outside it: one test settles it.
-    let wholeInA = false;
-    if (cuts.length === 0) {
+    let wholeInA = side[own] === SIDE_IN;
+    if (!wholeInA && cuts.length === 0) {
       const dx = v[o + 2] - v[o];
       const dy = v[o + 3] - v[o + 1];
       const len = Math.hypot(dx, dy);
@@ -155,14 +166,10 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
     }
     cutsAlong(b.xy, o, b, bIndex, own, cuts);
     area += boundaryTerm(b, i, cuts, (lx, ly, rx, ry) => {
-      piecesContaining(b, ranges, pieceIndex, rx, ry, parityRight, touchedRight);
-      for (const p of touchedRight) if (p !== own && parityRight[p]) return false;
+      if (anyPieceContains(b, ranges, pieceIndex, rx, ry, (p) => p !== own)) return false;
       if (!wholeInA && (!inA(lx, ly) || !inA(rx, ry))) return false;
       // The same edge on an earlier piece, facing the same way, is counted there.
-      if (own === 0) return true;
-      piecesContaining(b, ranges, pieceIndex, lx, ly, parity, touched);
-      for (const p of touched) if (p < own && parity[p]) return false;
-      return true;
+      return own === 0 || !anyPieceContains(b, ranges, pieceIndex, lx, ly, (p) => p < own);
     });
   }
   return Math.max(0, area);

@@ -70,27 +70,33 @@ function segmentsOf(parts: readonly StratumPart[]): Segments {
   return s;
 }
 
-const words = new Float64Array(4);
+const words = new Float64Array(2);
 const bits = new Uint32Array(words.buffer);
 
-/** A 32-bit hash of up to four doubles by their bits (murmur3's finaliser on each word, common practice). */
-function hashDoubles(a: number, b: number, c: number, d: number): number {
-  words[0] = a;
-  words[1] = b;
-  words[2] = c;
-  words[3] = d;
+/** A 32-bit hash of a point's two doubles by their bits (murmur3's mixing steps, common practice). */
+function pointHash(x: number, y: number): number {
+  words[0] = x;
+  words[1] = y;
   let h = 0x9e3779b9;
-  for (let k = 0; k < 8; k++) {
-    let w = Math.imul(bits[k], 0xcc9e2d51);
-    w = (w << 15) | (w >>> 17);
-    h ^= Math.imul(w, 0x1b873593);
-    h = (h << 13) | (h >>> 19);
-    h = (Math.imul(h, 5) + 0xe6546b64) | 0;
+  for (let k = 0; k < 4; k++) {
+    h ^= Math.imul(bits[k], 0xcc9e2d51);
+    h = Math.imul((h << 13) | (h >>> 19), 5) + 0xe6546b64;
   }
   h ^= h >>> 16;
   h = Math.imul(h, 0x85ebca6b);
   h ^= h >>> 13;
   return h >>> 0;
+}
+
+/** Hashes of every segment's start and end point. */
+function endHashes(s: Segments): { start: Uint32Array; end: Uint32Array } {
+  const start = new Uint32Array(s.count);
+  const end = new Uint32Array(s.count);
+  for (let i = 0; i < s.count; i++) {
+    start[i] = pointHash(s.ax[i], s.ay[i]);
+    end[i] = pointHash(s.bx[i], s.by[i]);
+  }
+  return { start, end };
 }
 
 function tableSize(n: number): number {
@@ -105,25 +111,29 @@ function tableSize(n: number): number {
  * Any other repeat (the same direction, three uses, twice in one part) is not shared, so the sweep
  * sees it.
  */
-function sharedPartners(s: Segments): Int32Array {
+function sharedPartners(s: Segments, ends: { start: Uint32Array; end: Uint32Array }): Int32Array {
   const size = tableSize(s.count);
   const mask = size - 1;
   const head = new Int32Array(size).fill(-1);
-  const next = new Int32Array(s.count);
-  const bucket = new Int32Array(s.count);
+  // Each entry's next index and full key side by side: a chain is walked with one memory read per
+  // entry, and coordinates are read only where the keys agree.
+  const chain = new Int32Array(2 * s.count);
   for (let i = 0; i < s.count; i++) {
-    const forward = s.ax[i] < s.bx[i] || (s.ax[i] === s.bx[i] && s.ay[i] < s.by[i]);
-    const h = (forward ? hashDoubles(s.ax[i], s.ay[i], s.bx[i], s.by[i]) : hashDoubles(s.bx[i], s.by[i], s.ax[i], s.ay[i])) & mask;
-    bucket[i] = h;
-    next[i] = head[h];
+    // Symmetric in the two ends, so a segment and its reverse have one key.
+    const x = ends.start[i] ^ ends.end[i];
+    const key = Math.imul(x ^ (x >>> 16), 0x7feb352d) ^ (x >>> 15);
+    const h = key & mask;
+    chain[2 * i] = head[h];
+    chain[2 * i + 1] = key;
     head[h] = i;
   }
   const partner = new Int32Array(s.count).fill(-1);
   for (let i = 0; i < s.count; i++) {
     let same = 0;
     let match = -1;
-    for (let t = head[bucket[i]]; t !== -1; t = next[t]) {
-      if (t === i) continue;
+    const key = chain[2 * i + 1];
+    for (let t = head[key & mask]; t !== -1; t = chain[2 * t]) {
+      if (t === i || chain[2 * t + 1] !== key) continue;
       const reversed = s.ax[t] === s.bx[i] && s.ay[t] === s.by[i] && s.bx[t] === s.ax[i] && s.by[t] === s.ay[i];
       const forward = s.ax[t] === s.ax[i] && s.ay[t] === s.ay[i] && s.bx[t] === s.bx[i] && s.by[t] === s.by[i];
       if (!reversed && !forward) continue;
@@ -139,23 +149,22 @@ function sharedPartners(s: Segments): Int32Array {
  * For each segment, whether its start vertex (exact coordinates) is used by a part other than the
  * segment's owners (its part, and its partner's part when shared).
  */
-function foreignStarts(s: Segments, other: Int32Array): Uint8Array {
+function foreignStarts(s: Segments, other: Int32Array, starts: Uint32Array): Uint8Array {
   const size = tableSize(s.count);
   const mask = size - 1;
   const head = new Int32Array(size).fill(-1);
   const next = new Int32Array(s.count);
-  const bucket = new Int32Array(s.count);
   for (let i = 0; i < s.count; i++) {
-    const h = hashDoubles(s.ax[i], s.ay[i], 0, 0) & mask;
-    bucket[i] = h;
+    const h = starts[i] & mask;
     next[i] = head[h];
     head[h] = i;
   }
   // Every vertex of a ring is the start of one of its segments, so starts stand for all vertices.
   const foreign = new Uint8Array(s.count);
   for (let i = 0; i < s.count; i++) {
-    for (let t = head[bucket[i]]; t !== -1; t = next[t]) {
-      if (s.part[t] !== s.part[i] && s.part[t] !== other[i] && s.ax[t] === s.ax[i] && s.ay[t] === s.ay[i]) {
+    const key = starts[i];
+    for (let t = head[key & mask]; t !== -1; t = next[t]) {
+      if (starts[t] === key && s.part[t] !== s.part[i] && s.part[t] !== other[i] && s.ax[t] === s.ax[i] && s.ay[t] === s.ay[i]) {
         foreign[i] = 1;
         break;
       }
@@ -249,7 +258,8 @@ export function strataOverlapCandidates(parts: readonly StratumPart[], boxes: re
   const found = new Set<number>();
   if (n < 2) return found;
   const s = segmentsOf(parts);
-  const partner = sharedPartners(s);
+  const ends = endHashes(s);
+  const partner = sharedPartners(s, ends);
   // The second owner of each segment (its partner's part) or -1; a shared edge is kept in its lower part only.
   const other = new Int32Array(s.count).fill(-1);
   const kept: number[] = [];
@@ -257,7 +267,7 @@ export function strataOverlapCandidates(parts: readonly StratumPart[], boxes: re
     if (partner[i] >= 0) other[i] = s.part[partner[i]];
     if (other[i] < 0 || s.part[i] < other[i]) kept.push(i);
   }
-  const foreign = foreignStarts(s, other);
+  const foreign = foreignStarts(s, other, ends.start);
   const flag = (a: number, b: number) => {
     if (a >= 0 && b >= 0 && a !== b) found.add(a < b ? a * n + b : b * n + a);
   };
