@@ -7,8 +7,10 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 /** Bundles src/cli into dist-cli/stratplot.mjs (one file, dependencies inlined, for a quick start). */
 export async function buildCli() {
   await build({
-    entryPoints: [join(root, 'src/cli/index.ts')],
-    outfile: join(root, 'dist-cli/stratplot.mjs'),
+    // The design's second thread is a file of its own beside the command (src/cli/designStagesAhead.ts).
+    entryPoints: { stratplot: join(root, 'src/cli/index.ts'), designStagesWorker: join(root, 'src/cli/designStagesWorker.ts') },
+    outdir: join(root, 'dist-cli'),
+    outExtension: { '.js': '.mjs' },
     bundle: true,
     platform: 'node',
     format: 'esm',

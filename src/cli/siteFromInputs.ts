@@ -23,6 +23,8 @@ export interface SiteInputs {
   name?: string;
   /** Reader options from the import flags (see importFlagsRead); default: none. */
   imports?: ImportChoices;
+  /** Called with the strata as soon as they are read, before they are checked (to start work in another thread). */
+  onStrataRead?: (strata: readonly StratumInfo[], parts: readonly StratumPart[]) => void;
 }
 
 function failOn(file: string, problems: Problem[]): string[] {
@@ -52,6 +54,7 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   };
   const strataFile = await load(inputs.strata, true);
   const { strata, parts }: { strata: StratumInfo[]; parts: StratumPart[] } = strataFromFeatures(strataFile.fc, { field: inputs.field, fileName: strataFile.name });
+  inputs.onStrataRead?.(strata, parts);
   if (inputs.name !== undefined) limitText(inputs.name.trim(), MAX_NAME_LENGTH, '--site-name', 'the site name');
   const empty: Site = { name: inputs.name?.trim() || basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
   const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));

@@ -2,6 +2,7 @@ import { writeFile } from 'node:fs/promises';
 import { basename, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { designRun } from '../../core/design/designRun';
+import { type DesignStagesAhead, designStagesAhead } from '../designStagesAhead';
 import { designSettingsDefault } from '../../core/design/designSettingsDefault';
 import type { DesignSettings, PlotCollection } from '../../core/model/designTypes';
 import { footprintParse } from '../../core/design/footprintParse';
@@ -157,14 +158,26 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     }
   }
   const imports = importFlagsRead(o);
+  const ahead = designStagesAhead();
+  try {
+    return await planWith(ahead, o, positionals[0], imports, io);
+  } finally {
+    ahead?.stop();
+  }
+}
+
+type PlanOptions = ReturnType<typeof parse>['values'];
+
+async function planWith(ahead: DesignStagesAhead | null, o: PlanOptions, strataPath: string, imports: ImportChoices, io: CliIo): Promise<number> {
   const loaded = await siteFromInputs(io, {
-    strata: positionals[0],
+    strata: strataPath,
     field: o.field,
     exclude: o.exclude,
     access: o.access,
     boundary: o.boundary,
     name: o['site-name'],
     imports,
+    onStrataRead: ahead ? (strata, parts) => ahead.strataRead(strata, parts) : undefined,
   });
   const { site } = loaded;
   const { strata } = site;
@@ -217,7 +230,8 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     rngVersion: rngVersionOption(o['rng-version']),
     redistributeShortfall: o.redistribute,
   });
-  const collection = designRun(site, settings);
+  const stages = ahead ? await ahead.finish(site) : null;
+  const collection = designRun(site, settings, { made: stages?.made });
   // The plot file names strata as people read them (current name and code), as every export does.
   const named = plotCollectionNamed(collection, site.strata);
   const geojson = JSON.stringify(named);

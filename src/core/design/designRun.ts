@@ -4,6 +4,8 @@ import { type DesignPlacement, designPlace } from './designPlace';
 import { designSettingsCheck } from './designSettingsCheck';
 import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
+import type { PartAreas } from './partAreas';
+import type { StratumTrianglesXY } from './place/stratumTrianglesXY';
 import { designStatements } from './designStatements';
 import type { AllocationRow, DesignSettings, PlotCollection } from '../model/designTypes';
 import { InputError } from '../common/InputError';
@@ -21,6 +23,18 @@ import { M2_PER_HA, roundTo } from '../common/units';
 export interface DesignRunOptions {
   /** Called with a fraction in [0, 1] and a stage name. */
   onProgress?: (fraction: number, stage: string) => void;
+  /**
+   * The slow per-stratum and per-part stages, already made for this very site (the command line
+   * makes them in a second thread while it checks the map); used only when their counts match the
+   * site's, and they must come from the same code on the same input, so the design is unchanged.
+   */
+  made?: DesignStagesMade;
+}
+
+/** Stages of a design that depend on the site only, made ahead: each part's areas and each stratum's triangles. */
+export interface DesignStagesMade {
+  partAreas: readonly PartAreas[];
+  strata: readonly StratumTrianglesXY[];
 }
 
 /** What the allocation step gives placement: plots per stratum (random and balanced designs), weights for a shortfall, and what to tell the user. */
@@ -129,7 +143,8 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
-  const areas = designUsableAreas(site, frame);
+  const made = options.made && options.made.partAreas.length === site.parts.length && options.made.strata.length === site.strata.length ? options.made : undefined;
+  const areas = designUsableAreas(site, frame, undefined, made?.partAreas);
   const { mapped, usable } = areas;
   const basis = settings.shareBasis === 'usable' ? usable : mapped;
   const totalBasis = basis.reduce((a, b) => a + b, 0);
@@ -140,7 +155,7 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const warnings: string[] = [...areas.warnings, ...shares.warnings];
   const extraStatements = shares.statements;
   progress(0.3, 'placing');
-  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM });
+  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM, strataMade: made?.strata });
   if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
   const rngVersion = rngVersionOf(settings);
   const streams = rngStreams(settings.seed, rngVersion);

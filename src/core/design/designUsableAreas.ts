@@ -1,120 +1,32 @@
-import Flatbush from 'flatbush';
-import { exclusionBufferPartsXY } from '../geometry/exclusionBufferPartsXY';
 import type { LocalFrame } from '../geo/localFrame';
-import { polygonAreaM2 } from '../geo/polygonAreaM2';
-import { type PolygonsLonLat, polygonCoveredAreaM2 } from '../geometry/polygonCoveredAreaM2';
-import { usableAreaByGrid } from './usableAreaByGrid';
-import type { ExclusionGeometry, LonLat, Site } from '../model/types';
-
-type Box = [number, number, number, number];
-
-/** Relative agreement of the covered-area measurement with the mapped area (see polygonCoveredAreaM2). */
-const COVERED_TOLERANCE = 1e-6;
-
-function boxOf(positions: Iterable<LonLat>): Box {
-  const b: Box = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const p of positions) {
-    if (p[0] < b[0]) b[0] = p[0];
-    if (p[1] < b[1]) b[1] = p[1];
-    if (p[0] > b[2]) b[2] = p[0];
-    if (p[1] > b[3]) b[3] = p[1];
-  }
-  return b;
-}
-
-function* exclusionPositions(g: ExclusionGeometry): Iterable<LonLat> {
-  if (g.type === 'Point') yield g.coordinates;
-  else if (g.type === 'MultiPoint' || g.type === 'LineString') yield* g.coordinates;
-  else if (g.type === 'MultiLineString' || g.type === 'Polygon') for (const l of g.coordinates) yield* l;
-  else for (const poly of g.coordinates) for (const l of poly) yield* l;
-}
-
-/** Each buffered piece of an exclusion as its own lon/lat polygon, with its lon/lat box. */
-function bufferPiecesLonLat(e: Site['exclusions'][number], frame: LocalFrame): { piece: PolygonsLonLat; box: Box }[] {
-  const anchor = exclusionPositions(e.geometry)[Symbol.iterator]().next().value;
-  if (!anchor) return [];
-  const [ax, ay] = frame.toXY(anchor[0], anchor[1]);
-  // Buffers are drawn near the exclusion, away from the frame origin, to keep their precision.
-  const origin: [number, number] = [Math.round(ax), Math.round(ay)];
-  return exclusionBufferPartsXY(e, frame, origin).map((poly) => {
-    const piece = [poly.map((ring) => ring.map(([x, y]) => frame.toLonLat(x + origin[0], y + origin[1])))];
-    return { piece, box: boxOf(piece[0][0]) };
-  });
-}
+import type { Site } from '../model/types';
+import { type PartAreas, partAreasMeasurer } from './partAreas';
 
 /**
- * Mapped and usable area of every stratum, m² on the WGS84 ellipsoid, in site order. Usable area is
- * worked out part by part: a part that no buffered exclusion comes near keeps its mapped area
- * exactly; from the others, the ground under the union of the buffered pieces that reach them
- * (exclusionBufferPartsXY, each exclusion buffered once, pieces left overlapping) is measured directly by
- * {@link polygonCoveredAreaM2} and taken away, so a large part is never clipped. This agrees with
- * clipping the stratum (stratumUsableRegion) to within 1e-6 of the stratum's area (tested).
- * Summing parts equals the stratum's usable area because parts of a valid site do not overlap
- * (overlaps are errors in siteValidate). Should that measurement fail, a part's usable area is counted
- * on a fine grid instead ({@link usableAreaByGrid}) and a warning says so.
- * Source of the areas: polygonAreaM2 (Snyder 1987 equal-area route or Karney 2013) and Green's theorem.
+ * Mapped and usable area of every stratum, m² on the WGS84 ellipsoid, in site order: the sum over
+ * its parts, in site order, of each part's areas ({@link partAreasMeasurer}, or `made` where another
+ * thread has measured every part of this site). Summing parts equals the stratum's usable area
+ * because parts of a valid site do not overlap (overlaps are errors in siteValidate).
  */
 export function designUsableAreas(
   site: Site,
   frame: LocalFrame,
   tick: () => void = () => {},
+  made?: readonly PartAreas[],
 ): { mapped: number[]; usable: number[]; warnings: string[] } {
   const warnings: string[] = [];
   const index = new Map(site.strata.map((s, i) => [s.key, i]));
   const mapped = site.strata.map(() => 0);
   const usable = site.strata.map(() => 0);
-  const exBoxes = site.exclusions.map((e) => {
-    const b = boxOf(exclusionPositions(e.geometry));
-    // Degrees per metre, generous: 1/110 000 of latitude, and of longitude widened by the latitude.
-    const lat = Math.max(Math.abs(b[1]), Math.abs(b[3]));
-    const dLat = (e.bufferM + 1) / 110000;
-    const dLon = dLat / Math.max(0.01, Math.cos((Math.min(89, lat) * Math.PI) / 180));
-    return [b[0] - dLon, b[1] - dLat, b[2] + dLon, b[3] + dLat] as Box;
-  });
-  let exIndex: Flatbush | null = null;
-  if (exBoxes.length) {
-    exIndex = new Flatbush(exBoxes.length);
-    for (const b of exBoxes) exIndex.add(b[0], b[1], b[2], b[3]);
-    exIndex.finish();
-  }
-  const pieceCache = new Map<number, { piece: PolygonsLonLat; box: Box }[]>();
-  const piecesOf = (i: number) => {
-    let hit = pieceCache.get(i);
-    if (!hit) pieceCache.set(i, (hit = bufferPiecesLonLat(site.exclusions[i], frame)));
-    return hit;
-  };
-  for (const part of site.parts) {
-    const s = index.get(part.stratum);
+  const measure = made ? (i: number) => made[i] : partAreasMeasurer(site, frame);
+  for (let i = 0; i < site.parts.length; i++) {
+    const s = index.get(site.parts[i].stratum);
     if (s === undefined) continue;
     tick();
-    const area = polygonAreaM2(part.geometry);
-    mapped[s] += area;
-    const rings = part.geometry.type === 'Polygon' ? part.geometry.coordinates : part.geometry.coordinates.flat();
-    const b = boxOf(rings[0] ? rings.flat() : []);
-    const near = exIndex ? exIndex.search(b[0], b[1], b[2], b[3]) : [];
-    if (near.length === 0) {
-      usable[s] += area;
-      continue;
-    }
-    near.sort((x, y) => x - y);
-    try {
-      const pieces = near.flatMap(piecesOf).filter(({ box }) => box[0] <= b[2] && box[2] >= b[0] && box[1] <= b[3] && box[3] >= b[1]);
-      const polygons = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
-      const lost = pieces.length ? polygonCoveredAreaM2(polygons, pieces.map((p) => p.piece)) : 0;
-      // The covered area is measured with straight edges in an equal-area projection, the mapped
-      // area with geodesic ones; they agree to 1e-6 of the part (far better for metre-scale edges),
-      // so a part covered to within that is taken as wholly covered rather than left with a sliver.
-      usable[s] += lost >= area * (1 - COVERED_TOLERANCE) ? 0 : Math.min(area, Math.max(0, area - lost));
-    } catch (error) {
-      const sub: Site = { ...site, parts: [part], exclusions: near.map((i) => site.exclusions[i]) };
-      if (error instanceof Error && error.name === 'InputError') throw error;
-      // Exact clipping can fail on awkward geometry; count instead, and say so with the error bound.
-      const est = usableAreaByGrid({ ...sub, strata: site.strata.filter((x) => x.key === part.stratum) }, frame, area);
-      usable[s] += est.areaM2;
-      warnings.push(
-        `usable area of part "${part.id}" (stratum "${part.stratum}") was counted on a fine grid because exact clipping failed (${(error as Error).message.slice(0, 80)}); it is ${est.areaM2.toFixed(0)} m² ± ${est.errorM2.toFixed(0)} m².`,
-      );
-    }
+    const part = measure(i);
+    mapped[s] += part.mapped;
+    usable[s] += part.usable;
+    if (part.warning) warnings.push(part.warning);
   }
   return { mapped, usable, warnings };
 }

@@ -3,6 +3,7 @@ import type { Footprint } from '../../model/designTypes';
 import type { LocalFrame } from '../../geo/localFrame';
 import { footprintShapeXY, type FootprintXY } from './placementFootprint';
 import { EDGE_CHUNK, type StratumShapeXY, stratumShapesXY } from './placementStrata';
+import type { StratumTrianglesXY } from './stratumTrianglesXY';
 import { convexSegmentDistance, isInRingFlat, pointSegmentDistance } from '../../geometry/segmentDistance';
 import type { ExclusionGeometry, ExclusionKind, LonLat, Site } from '../../model/types';
 
@@ -18,6 +19,8 @@ export interface PlacementConstraintOptions {
   footprint: Footprint;
   /** Ground metres the footprint must keep from its stratum's boundary (0: may not cross it). */
   edgeBufferM: number;
+  /** Every stratum's triangles and boundary, in site order, where another thread has made them for this site and frame. */
+  strataMade?: readonly StratumTrianglesXY[];
 }
 
 /** The site prepared for placement: strata, exclusions and the footprint, all in frame metres. */
@@ -223,7 +226,7 @@ function exclusionsFlatXY(site: Site, frame: LocalFrame, scale: number) {
  * Sources: planar distances (O'Rourke 1998, §1.5); scale factor (Snyder 1987, eq. 8-11).
  */
 export function placementConstraintsBuild(site: Site, frame: LocalFrame, options: PlacementConstraintOptions): PlacementConstraints {
-  const strata = stratumShapesXY(site, frame);
+  const strata = stratumShapesXY(site, frame, options.strataMade);
   const { scale, convergenceDeg, lat0 } = gridScaleAt(strata, frame);
   const footprint = footprintShapeXY(options.footprint, scale, convergenceDeg);
   const edgeGrid = options.edgeBufferM * scale;

@@ -1,0 +1,2 @@
+/** Bundles src/cli into dist-cli (the command and its second thread). */
+export function buildCli(): Promise<void>;

@@ -1,0 +1,51 @@
+import { parentPort } from 'node:worker_threads';
+import { partAreasMeasurer } from '../core/design/partAreas';
+import { stratumPolygons } from '../core/design/place/placementStrata';
+import { stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
+import { siteLocalFrame } from '../core/geo/siteLocalFrame';
+import type { Exclusion, Site, StratumInfo } from '../core/model/types';
+import { type StratumPartsPacked, stratumPartsUnpack } from './stratumPartsPacked';
+
+// The second thread of `stratplot plan` (designStagesAhead): takes stratum and part jobs from the
+// shared counters, the same jobs the main thread takes, and posts back what it made.
+
+interface StrataMessage {
+  kind: 'strata';
+  strata: StratumInfo[];
+  parts: StratumPartsPacked;
+  /** Next stratum job, next part job. */
+  counters: SharedArrayBuffer;
+}
+
+let site: Site | null = null;
+let counters: Int32Array | null = null;
+let frame: ReturnType<typeof siteLocalFrame> | null = null;
+
+parentPort?.on('message', (m: StrataMessage | { kind: 'exclusions'; exclusions: Exclusion[] }) => {
+  try {
+    if (m.kind === 'strata') {
+      const parts = stratumPartsUnpack(m.parts);
+      site = { name: '', strata: m.strata, parts, exclusions: [], access: [], boundary: null };
+      counters = new Int32Array(m.counters);
+      frame = siteLocalFrame(parts);
+      const made = [];
+      const transfer: ArrayBuffer[] = [];
+      for (let k = Atomics.add(counters, 0, 1); k < site.strata.length; k = Atomics.add(counters, 0, 1)) {
+        const shape = stratumTrianglesXY(stratumPolygons(site, site.strata[k].key), frame);
+        made.push({ index: k, shape });
+        transfer.push(shape.triangles.buffer as ArrayBuffer, shape.cumulativeArea.buffer as ArrayBuffer, shape.edges.buffer as ArrayBuffer);
+      }
+      parentPort?.postMessage({ kind: 'strata', made }, transfer);
+      return;
+    }
+    if (!site || !counters || !frame) throw new Error('exclusions came before the strata');
+    const withExclusions: Site = { ...site, exclusions: m.exclusions };
+    const measure = partAreasMeasurer(withExclusions, frame);
+    const made = [];
+    for (let k = Atomics.add(counters, 1, 1); k < site.parts.length; k = Atomics.add(counters, 1, 1)) made.push({ index: k, areas: measure(k) });
+    parentPort?.postMessage({ kind: 'parts', made });
+  } catch (error) {
+    // The main thread then makes every stage itself, and reports any error as it always does.
+    parentPort?.postMessage({ kind: 'failed', message: error instanceof Error ? error.message : String(error) });
+  }
+});
