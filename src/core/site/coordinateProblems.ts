@@ -2,10 +2,10 @@ import type { Position } from 'geojson';
 import { problemMake } from '../common/problemMake';
 import type { Problem, ProblemLocation } from '../model/types';
 
-/** One feature to check: where it is reported and every position it has. */
+/** One feature to check: where it is reported and every position it has, in runs (rings, lines) numbered on across runs. */
 export interface PositionedFeature {
   where: ProblemLocation;
-  positions: readonly Position[];
+  runs: readonly (readonly Position[])[];
 }
 
 /**
@@ -19,45 +19,48 @@ export function coordinateProblems(features: readonly PositionedFeature[]): Prob
   let total = 0;
   let beyond = 0;
   for (const f of features) {
-    for (const p of f.positions) {
-      total++;
-      if (Math.max(Math.abs(p[0]), Math.abs(p[1])) > 360) beyond++;
+    for (const run of f.runs) {
+      total += run.length;
+      for (let i = 0; i < run.length; i++) if (Math.max(Math.abs(run[i][0]), Math.abs(run[i][1])) > 360) beyond++;
     }
   }
   const looksProjected = total > 0 && beyond === total;
   const problems: Problem[] = [];
   for (const f of features) {
-    for (let v = 0; v < f.positions.length; v++) {
-      const p = f.positions[v];
+    const found = firstProblem(f, looksProjected);
+    if (found) problems.push(found);
+  }
+  return problems;
+}
+
+/** The problem of a feature's first bad position, or null when every position is good. */
+function firstProblem(f: PositionedFeature, looksProjected: boolean): Problem | null {
+  let v = -1;
+  for (const run of f.runs) {
+    for (let k = 0; k < run.length; k++) {
+      v++;
+      const p = run[k];
       const lon = p[0];
       const lat = p[1];
       // The common case, a good vertex, allocates nothing (this runs once per vertex of the map).
       if (!looksProjected && Math.abs(lon) <= 180 && Math.abs(lat) <= 90) continue;
       const where = { ...f.where, vertex: v };
       if (!Number.isFinite(lon) || !Number.isFinite(lat)) {
-        problems.push(problemMake('error', 'coordinate-not-finite', where, `vertex ${v} is not a finite number pair`));
-        break;
+        return problemMake('error', 'coordinate-not-finite', where, `vertex ${v} is not a finite number pair`);
       }
       if (looksProjected) {
-        problems.push(
-          problemMake('error', 'coordinates-projected', where,
-            `coordinates ${lon}, ${lat} look like projected metres, not degrees; give WGS84 longitude/latitude or say which EPSG code the file uses`),
-        );
-        break;
+        return problemMake('error', 'coordinates-projected', where,
+          `coordinates ${lon}, ${lat} look like projected metres, not degrees; give WGS84 longitude/latitude or say which EPSG code the file uses`);
       }
       if (Math.abs(lat) > 90 && Math.abs(lon) <= 90) {
         // Zoom to where the vertex would be if swapped back; the message says so.
-        problems.push(
-          problemMake('error', 'coordinates-swapped', { ...where, lonLat: [lat, lon] },
-            `vertex ${v} has latitude ${lat} beyond ±90 — longitude and latitude look swapped (GeoJSON order is longitude, latitude); swapped back it lies`),
-        );
-        break;
+        return problemMake('error', 'coordinates-swapped', { ...where, lonLat: [lat, lon] },
+          `vertex ${v} has latitude ${lat} beyond ±90 — longitude and latitude look swapped (GeoJSON order is longitude, latitude); swapped back it lies`);
       }
       if (Math.abs(lon) > 180 || Math.abs(lat) > 90) {
-        problems.push(problemMake('error', 'coordinate-out-of-range', where, `vertex ${v} (${lon}, ${lat}) is outside longitude ±180 / latitude ±90`));
-        break;
+        return problemMake('error', 'coordinate-out-of-range', where, `vertex ${v} (${lon}, ${lat}) is outside longitude ±180 / latitude ±90`);
       }
     }
   }
-  return problems;
+  return null;
 }

@@ -9,18 +9,19 @@ import { strataGaps } from './strataGaps';
 import { strataOverlaps } from './strataOverlaps';
 import type { AreaGeometry, ExclusionGeometry, Problem, ProblemLocation, Site } from '../model/types';
 
-function allPositions(g: AreaGeometry | ExclusionGeometry): Position[] {
+/** Every position of a geometry, as the runs (rings, lines) it already holds: no copy of a large map's vertices. */
+function positionRuns(g: AreaGeometry | ExclusionGeometry): (readonly Position[])[] {
   switch (g.type) {
     case 'Point':
-      return [g.coordinates];
+      return [[g.coordinates]];
     case 'MultiPoint':
     case 'LineString':
-      return g.coordinates;
+      return [g.coordinates];
     case 'MultiLineString':
     case 'Polygon':
-      return g.coordinates.flat();
+      return g.coordinates;
     case 'MultiPolygon':
-      return g.coordinates.flat(2);
+      return g.coordinates.flat();
   }
 }
 
@@ -66,7 +67,7 @@ function polygonProblems(g: AreaGeometry, where: ProblemLocation): { problems: P
 export function siteValidate(site: Site): Problem[] {
   const problems: Problem[] = [];
   const layerFeatures = <T>(items: readonly T[], layer: ProblemLocation['layer'], geom: (t: T) => AreaGeometry | ExclusionGeometry, id: (t: T) => string) =>
-    items.map<PositionedFeature>((t, i) => ({ where: { featureIndex: i, featureId: id(t) || undefined, layer }, positions: allPositions(geom(t)) }));
+    items.map<PositionedFeature>((t, i) => ({ where: { featureIndex: i, featureId: id(t) || undefined, layer }, runs: positionRuns(geom(t)) }));
 
   const strata = layerFeatures(site.parts, 'strata', (p) => p.geometry, (p) => p.id);
   const coordIssues = coordinateProblems(strata);
@@ -93,13 +94,13 @@ export function siteValidate(site: Site): Problem[] {
   });
 
   problems.push(
-    ...coordinateProblems(site.access.map((a, i) => ({ where: { featureIndex: i, featureId: a.id, layer: 'access' }, positions: [[a.lon, a.lat]] }))),
+    ...coordinateProblems(site.access.map((a, i) => ({ where: { featureIndex: i, featureId: a.id, layer: 'access' }, runs: [[[a.lon, a.lat]]] }))),
   );
 
   let boundaryOk = false;
   if (site.boundary) {
     const where: ProblemLocation = { featureIndex: 0, layer: 'boundary' };
-    const issues = coordinateProblems([{ where, positions: allPositions(site.boundary) }]);
+    const issues = coordinateProblems([{ where, runs: positionRuns(site.boundary) }]);
     pushAll(problems, issues);
     if (issues.length === 0) {
       const { problems: found, ok } = polygonProblems(site.boundary, where);

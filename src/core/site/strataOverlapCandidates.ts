@@ -5,10 +5,8 @@ import type { StratumPart } from '../model/types';
 
 /** Flat segments of every part, each turned so its part lies on its left. */
 interface Segments {
-  ax: Float64Array;
-  ay: Float64Array;
-  bx: Float64Array;
-  by: Float64Array;
+  /** ax, ay, bx, by of each segment side by side: one memory read brings a whole segment. */
+  xy: Float64Array;
   part: Int32Array;
   /** Index of the segment's ring, so runs along a ring can be followed. */
   ring: Int32Array;
@@ -26,10 +24,7 @@ function segmentsOf(parts: readonly StratumPart[]): Segments {
   let total = 0;
   for (const part of parts) for (const poly of ringsOf(part)) for (const ring of poly) total += Math.max(0, ring.length - 1);
   const s: Segments = {
-    ax: new Float64Array(total),
-    ay: new Float64Array(total),
-    bx: new Float64Array(total),
-    by: new Float64Array(total),
+    xy: new Float64Array(4 * total),
     part: new Int32Array(total),
     ring: new Int32Array(total),
     partStart: new Int32Array(parts.length + 1),
@@ -54,10 +49,10 @@ function segmentsOf(parts: readonly StratumPart[]): Segments {
           const [x2, y2] = flip ? ring[ring.length - 2 - k] : ring[k + 1];
           if (x1 === x2 && y1 === y2) continue;
           // + 0 turns −0 into 0, so equal coordinates also have equal bits for the hashes.
-          s.ax[n] = x1 + 0;
-          s.ay[n] = y1 + 0;
-          s.bx[n] = x2 + 0;
-          s.by[n] = y2 + 0;
+          s.xy[4 * n] = x1 + 0;
+          s.xy[4 * n + 1] = y1 + 0;
+          s.xy[4 * n + 2] = x2 + 0;
+          s.xy[4 * n + 3] = y2 + 0;
           s.part[n] = p;
           s.ring[n] = ringId;
           n++;
@@ -93,16 +88,49 @@ function endHashes(s: Segments): { start: Uint32Array; end: Uint32Array } {
   const start = new Uint32Array(s.count);
   const end = new Uint32Array(s.count);
   for (let i = 0; i < s.count; i++) {
-    start[i] = pointHash(s.ax[i], s.ay[i]);
-    end[i] = pointHash(s.bx[i], s.by[i]);
+    start[i] = pointHash(s.xy[4 * i], s.xy[4 * i + 1]);
+    end[i] = pointHash(s.xy[4 * i + 2], s.xy[4 * i + 3]);
   }
   return { start, end };
 }
 
-function tableSize(n: number): number {
-  let size = 16;
-  while (size < 2 * n) size *= 2;
-  return size;
+/**
+ * Indices 0…n−1 ordered by their 32-bit keys (a stable least-significant-digit radix sort, three
+ * passes of 11 bits; common practice, no source): equal keys end up side by side, so groups are
+ * walked in memory order instead of chasing hash chains.
+ */
+function orderByKey(keys: Uint32Array): Int32Array {
+  const n = keys.length;
+  let order = new Int32Array(n);
+  let spare = new Int32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  const counts = new Int32Array(2048);
+  for (let shift = 0; shift < 32; shift += 11) {
+    counts.fill(0);
+    for (let i = 0; i < n; i++) counts[(keys[i] >>> shift) & 2047]++;
+    let sum = 0;
+    for (let d = 0; d < 2048; d++) {
+      const c = counts[d];
+      counts[d] = sum;
+      sum += c;
+    }
+    for (let k = 0; k < n; k++) {
+      const i = order[k];
+      spare[counts[(keys[i] >>> shift) & 2047]++] = i;
+    }
+    [order, spare] = [spare, order];
+  }
+  return order;
+}
+
+/** Calls `visit(from, to)` for each run of `order` whose keys are equal and that holds more than one index. */
+function forEachGroup(order: Int32Array, keys: Uint32Array, visit: (from: number, to: number) => void): void {
+  for (let g = 0; g < order.length; ) {
+    let end = g + 1;
+    while (end < order.length && keys[order[end]] === keys[order[g]]) end++;
+    if (end - g > 1) visit(g, end);
+    g = end;
+  }
 }
 
 /**
@@ -112,36 +140,32 @@ function tableSize(n: number): number {
  * sees it.
  */
 function sharedPartners(s: Segments, ends: { start: Uint32Array; end: Uint32Array }): Int32Array {
-  const size = tableSize(s.count);
-  const mask = size - 1;
-  const head = new Int32Array(size).fill(-1);
-  // Each entry's next index and full key side by side: a chain is walked with one memory read per
-  // entry, and coordinates are read only where the keys agree.
-  const chain = new Int32Array(2 * s.count);
+  // Symmetric in the two ends, so a segment and its reverse have one key.
+  const keys = new Uint32Array(s.count);
   for (let i = 0; i < s.count; i++) {
-    // Symmetric in the two ends, so a segment and its reverse have one key.
     const x = ends.start[i] ^ ends.end[i];
-    const key = Math.imul(x ^ (x >>> 16), 0x7feb352d) ^ (x >>> 15);
-    const h = key & mask;
-    chain[2 * i] = head[h];
-    chain[2 * i + 1] = key;
-    head[h] = i;
+    keys[i] = Math.imul(x ^ (x >>> 16), 0x7feb352d) ^ (x >>> 15);
   }
+  const order = orderByKey(keys);
   const partner = new Int32Array(s.count).fill(-1);
-  for (let i = 0; i < s.count; i++) {
-    let same = 0;
-    let match = -1;
-    const key = chain[2 * i + 1];
-    for (let t = head[key & mask]; t !== -1; t = chain[2 * t]) {
-      if (t === i || chain[2 * t + 1] !== key) continue;
-      const reversed = s.ax[t] === s.bx[i] && s.ay[t] === s.by[i] && s.bx[t] === s.ax[i] && s.by[t] === s.ay[i];
-      const forward = s.ax[t] === s.ax[i] && s.ay[t] === s.ay[i] && s.bx[t] === s.bx[i] && s.by[t] === s.by[i];
-      if (!reversed && !forward) continue;
-      same++;
-      match = reversed ? t : -2;
+  forEachGroup(order, keys, (from, to) => {
+    for (let a = from; a < to; a++) {
+      const i = order[a];
+      let same = 0;
+      let match = -1;
+      // A second equal segment already rules out sharing: stop there, so a run of repeats costs little.
+      for (let b = from; b < to && same < 2; b++) {
+        const t = order[b];
+        if (t === i) continue;
+        const reversed = s.xy[4 * t] === s.xy[4 * i + 2] && s.xy[4 * t + 1] === s.xy[4 * i + 3] && s.xy[4 * t + 2] === s.xy[4 * i] && s.xy[4 * t + 3] === s.xy[4 * i + 1];
+        const forward = s.xy[4 * t] === s.xy[4 * i] && s.xy[4 * t + 1] === s.xy[4 * i + 1] && s.xy[4 * t + 2] === s.xy[4 * i + 2] && s.xy[4 * t + 3] === s.xy[4 * i + 3];
+        if (!reversed && !forward) continue;
+        same++;
+        match = reversed ? t : -2;
+      }
+      if (same === 1 && match >= 0 && s.part[match] !== s.part[i]) partner[i] = match;
     }
-    if (same === 1 && match >= 0 && s.part[match] !== s.part[i]) partner[i] = match;
-  }
+  });
   return partner;
 }
 
@@ -150,26 +174,42 @@ function sharedPartners(s: Segments, ends: { start: Uint32Array; end: Uint32Arra
  * segment's owners (its part, and its partner's part when shared).
  */
 function foreignStarts(s: Segments, other: Int32Array, starts: Uint32Array): Uint8Array {
-  const size = tableSize(s.count);
-  const mask = size - 1;
-  const head = new Int32Array(size).fill(-1);
-  const next = new Int32Array(s.count);
-  for (let i = 0; i < s.count; i++) {
-    const h = starts[i] & mask;
-    next[i] = head[h];
-    head[h] = i;
-  }
+  const order = orderByKey(starts);
   // Every vertex of a ring is the start of one of its segments, so starts stand for all vertices.
   const foreign = new Uint8Array(s.count);
-  for (let i = 0; i < s.count; i++) {
-    const key = starts[i];
-    for (let t = head[key & mask]; t !== -1; t = next[t]) {
-      if (starts[t] === key && s.part[t] !== s.part[i] && s.part[t] !== other[i] && s.ax[t] === s.ax[i] && s.ay[t] === s.ay[i]) {
-        foreign[i] = 1;
-        break;
+  forEachGroup(order, starts, (from, to) => {
+    const first = order[from];
+    let oneVertex = true;
+    // Up to three distinct parts among the group: with three, every member has one not its own.
+    const seen = [-1, -1, -1];
+    let distinct = 0;
+    for (let a = from; a < to; a++) {
+      const t = order[a];
+      if (s.xy[4 * t] !== s.xy[4 * first] || s.xy[4 * t + 1] !== s.xy[4 * first + 1]) oneVertex = false;
+      const p = s.part[t];
+      if (distinct < 3 && p !== seen[0] && p !== seen[1]) seen[distinct++] = p;
+    }
+    for (let a = from; a < to; a++) {
+      const i = order[a];
+      if (oneVertex) {
+        for (let k = 0; k < distinct; k++) {
+          if (seen[k] !== s.part[i] && seen[k] !== other[i]) {
+            foreign[i] = 1;
+            break;
+          }
+        }
+        continue;
+      }
+      // Different vertices under one key (a hash collision, rare): compare pairwise.
+      for (let b = from; b < to; b++) {
+        const t = order[b];
+        if (s.part[t] !== s.part[i] && s.part[t] !== other[i] && s.xy[4 * t] === s.xy[4 * i] && s.xy[4 * t + 1] === s.xy[4 * i + 1]) {
+          foreign[i] = 1;
+          break;
+        }
       }
     }
-  }
+  });
   return foreign;
 }
 
@@ -195,8 +235,8 @@ function within(ax: number, ay: number, bx: number, by: number, cx: number, cy: 
  * cases count as meeting, so doubt always goes to the exact clipper.
  */
 function segmentsMeet(s: Segments, i: number, j: number): boolean {
-  const [ax, ay, bx, by] = [s.ax[i], s.ay[i], s.bx[i], s.by[i]];
-  const [cx, cy, dx, dy] = [s.ax[j], s.ay[j], s.bx[j], s.by[j]];
+  const [ax, ay, bx, by] = [s.xy[4 * i], s.xy[4 * i + 1], s.xy[4 * i + 2], s.xy[4 * i + 3]];
+  const [cx, cy, dx, dy] = [s.xy[4 * j], s.xy[4 * j + 1], s.xy[4 * j + 2], s.xy[4 * j + 3]];
   const aIsC = ax === cx && ay === cy;
   const aIsD = ax === dx && ay === dy;
   const bIsC = bx === cx && by === cy;
@@ -226,7 +266,7 @@ function segmentsMeet(s: Segments, i: number, j: number): boolean {
 function isInsidePart(s: Segments, p: number, x: number, y: number): boolean {
   let inside = false;
   for (let k = s.partStart[p]; k < s.partStart[p + 1]; k++) {
-    if (edgeCrossesRayEast(x, y, s.ax[k], s.ay[k], s.bx[k], s.by[k])) inside = !inside;
+    if (edgeCrossesRayEast(x, y, s.xy[4 * k], s.xy[4 * k + 1], s.xy[4 * k + 2], s.xy[4 * k + 3])) inside = !inside;
   }
   return inside;
 }
@@ -301,10 +341,10 @@ export function strataOverlapCandidates(parts: readonly StratumPart[], boxes: re
     let [x0, y0, x1, y1] = [Infinity, Infinity, -Infinity, -Infinity];
     for (let k = chunkFirst[c]; k < chunkFirst[c + 1]; k++) {
       const i = kept[k];
-      x0 = Math.min(x0, s.ax[i], s.bx[i]);
-      y0 = Math.min(y0, s.ay[i], s.by[i]);
-      x1 = Math.max(x1, s.ax[i], s.bx[i]);
-      y1 = Math.max(y1, s.ay[i], s.by[i]);
+      x0 = Math.min(x0, s.xy[4 * i], s.xy[4 * i + 2]);
+      y0 = Math.min(y0, s.xy[4 * i + 1], s.xy[4 * i + 3]);
+      x1 = Math.max(x1, s.xy[4 * i], s.xy[4 * i + 2]);
+      y1 = Math.max(y1, s.xy[4 * i + 1], s.xy[4 * i + 3]);
     }
     cbox.set([x0, y0, x1, y1], 4 * c);
     index.add(x0, y0, x1, y1);
@@ -325,12 +365,12 @@ export function strataOverlapCandidates(parts: readonly StratumPart[], boxes: re
       near.length = 0;
       for (let k = chunkFirst[d]; k < chunkFirst[d + 1]; k++) {
         const j = kept[k];
-        if (Math.max(s.ax[j], s.bx[j]) >= wx0 && Math.min(s.ax[j], s.bx[j]) <= wx1 && Math.max(s.ay[j], s.by[j]) >= wy0 && Math.min(s.ay[j], s.by[j]) <= wy1) near.push(j);
+        if (Math.max(s.xy[4 * j], s.xy[4 * j + 2]) >= wx0 && Math.min(s.xy[4 * j], s.xy[4 * j + 2]) <= wx1 && Math.max(s.xy[4 * j + 1], s.xy[4 * j + 3]) >= wy0 && Math.min(s.xy[4 * j + 1], s.xy[4 * j + 3]) <= wy1) near.push(j);
       }
       if (near.length === 0) continue;
       for (let k = chunkFirst[c]; k < chunkFirst[c + 1]; k++) {
         const i = kept[k];
-        if (Math.max(s.ax[i], s.bx[i]) < wx0 || Math.min(s.ax[i], s.bx[i]) > wx1 || Math.max(s.ay[i], s.by[i]) < wy0 || Math.min(s.ay[i], s.by[i]) > wy1) continue;
+        if (Math.max(s.xy[4 * i], s.xy[4 * i + 2]) < wx0 || Math.min(s.xy[4 * i], s.xy[4 * i + 2]) > wx1 || Math.max(s.xy[4 * i + 1], s.xy[4 * i + 3]) < wy0 || Math.min(s.xy[4 * i + 1], s.xy[4 * i + 3]) > wy1) continue;
         for (const j of near) if (segmentsMeet(s, i, j)) flagOwners(i, j);
       }
     }
@@ -341,8 +381,8 @@ export function strataOverlapCandidates(parts: readonly StratumPart[], boxes: re
   partIndex.finish();
   for (const k of runStarts) {
     const i = kept[k];
-    const x = (s.ax[i] + s.bx[i]) / 2;
-    const y = (s.ay[i] + s.by[i]) / 2;
+    const x = (s.xy[4 * i] + s.xy[4 * i + 2]) / 2;
+    const y = (s.xy[4 * i + 1] + s.xy[4 * i + 3]) / 2;
     for (const q of partIndex.search(x, y, x, y)) {
       if (q === s.part[i] || q === other[i]) continue;
       const a = Math.min(q, s.part[i]) * n + Math.max(q, s.part[i]);
