@@ -150,10 +150,13 @@ function cliArgs(files: string[], plots: number, bundle = join(root, 'bin/stratp
   return args;
 }
 
-function cliOnce(args: string[]): { ms: number; peakMb: number | null; code: number; err: string } {
+function cliOnce(args: string[], threads?: '1'): { ms: number; peakMb: number | null; code: number; err: string } {
   const useTime = existsSync('/usr/bin/time');
+  const env = threads ? { ...process.env, STRATPLOT_THREADS: threads } : process.env;
   const t = performance.now();
-  const r = useTime ? spawnSync('/usr/bin/time', ['-f', 'PEAK_KB %M', process.execPath, ...args], { encoding: 'utf8' }) : spawnSync(process.execPath, args, { encoding: 'utf8' });
+  const r = useTime
+    ? spawnSync('/usr/bin/time', ['-f', 'PEAK_KB %M', process.execPath, ...args], { encoding: 'utf8', env })
+    : spawnSync(process.execPath, args, { encoding: 'utf8', env });
   const ms = performance.now() - t;
   const m = /PEAK_KB (\d+)/.exec(r.stderr ?? '');
   return { ms, peakMb: m ? Number(m[1]) / 1024 : null, code: r.status ?? -1, err: (r.stderr ?? '').replace(/PEAK_KB \d+\s*/, '').trim() };
@@ -334,10 +337,27 @@ for (const size of MOSAIC_SIZES) {
     console.log(`  ratio: ${(t2.medianMs / t1.medianMs).toFixed(1)}x (target ≥ 50x), ${RUNS} alternating runs`);
     continue;
   }
-  const c = cliMeasure(`${label}/cli`, mFiles, plots);
+  // Alternating runs: the second thread on (the default) and off (STRATPLOT_THREADS=1).
+  const args = cliArgs(mFiles, plots);
+  const first = cliOnce(args);
+  if (first.code !== 0) console.log(`  CLI said (exit ${first.code}): ${first.err.split('\n')[0]}`);
+  const two: ReturnType<typeof cliOnce>[] = [];
+  const one: ReturnType<typeof cliOnce>[] = [];
+  for (let r = 0; r < RUNS; r++) {
+    two.push(cliOnce(args));
+    one.push(cliOnce(args, '1'));
+  }
+  const timing = (runs: ReturnType<typeof cliOnce>[]) => ({ minMs: Math.min(...runs.map((x) => x.ms)), medianMs: median(runs.map((x) => x.ms)), runs: RUNS });
+  const c = timing(two);
+  const c1 = timing(one);
+  record.stages[`${label}/cli`] = c;
+  record.stages[`${label}/cli-one-thread`] = c1;
+  record.ratios[`${label}/second-thread`] = c1.medianMs / c.medianMs;
+  const peak = (runs: ReturnType<typeof cliOnce>[]) => (runs[0].peakMb ? `, peak RSS ${Math.max(...runs.map((x) => x.peakMb ?? 0)).toFixed(0)} MB` : '');
   mosaicCli.push(c.medianMs);
   cliSizes.push(m.vertices);
-  console.log(`  whole CLI process: ${fmt(c)} (target ≤ 1.5 s at 1M), exit ${c.code}` + (c.peakMb ? `, peak RSS ${c.peakMb.toFixed(0)} MB` : ''));
+  console.log(`  whole CLI process: ${fmt(c)} (target ≤ 1.5 s at 1M), exit ${first.code}${peak(two)}`);
+  console.log(`  one thread (STRATPLOT_THREADS=1): ${fmt(c1)}${peak(one)} — the second thread saves ${((1 - c.medianMs / c1.medianMs) * 100).toFixed(0)} %, ${RUNS} alternating runs`);
 }
 if (MOSAIC_SIZES.length > 1) {
   record.slopes['mosaic/stages'] = slope(MOSAIC_SIZES, mosaicStages);
