@@ -8,6 +8,7 @@ import { stratumPolygons } from '../core/design/place/placementStrata';
 import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Site, StratumInfo, StratumPart } from '../core/model/types';
+import { jobsTake } from './jobsTake';
 import { stratumPartsPack } from './stratumPartsPacked';
 
 /** The stages of a design that a second thread helps make while the main thread reads and checks the map. */
@@ -94,12 +95,13 @@ export function designStagesAhead(threads: 1 | 2 = designThreads(), url = new UR
         const frame = siteLocalFrame(site.parts);
         const strata: (StratumTrianglesXY | undefined)[] = new Array(site.strata.length);
         const partAreas: (PartAreas | undefined)[] = new Array(site.parts.length);
-        let mine = 0;
-        for (let k = Atomics.add(counters, 0, 1); k < strata.length; k = Atomics.add(counters, 0, 1), mine++) {
+        let mine = jobsTake(counters, 0, strata.length, (k) => {
           strata[k] = stratumTrianglesXY(stratumPolygons(site, site.strata[k].key), frame);
-        }
+        });
         const measure = partAreasMeasurer(site, frame);
-        for (let k = Atomics.add(counters, 1, 1); k < partAreas.length; k = Atomics.add(counters, 1, 1), mine++) partAreas[k] = measure(k);
+        mine += jobsTake(counters, 1, partAreas.length, (k) => {
+          partAreas[k] = measure(k);
+        });
         if (mine < strata.length + partAreas.length) {
           for (let got = 0; got < 2; got++) {
             const r = await next();

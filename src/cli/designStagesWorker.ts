@@ -1,9 +1,10 @@
 import { parentPort } from 'node:worker_threads';
-import { partAreasMeasurer } from '../core/design/partAreas';
+import { type PartAreas, partAreasMeasurer } from '../core/design/partAreas';
 import { stratumPolygons } from '../core/design/place/placementStrata';
-import { stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
+import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Exclusion, Site, StratumInfo } from '../core/model/types';
+import { jobsTake } from './jobsTake';
 import { type StratumPartsPacked, stratumPartsUnpack } from './stratumPartsPacked';
 
 // The second thread of `stratplot plan` (designStagesAhead): takes stratum and part jobs from the
@@ -28,21 +29,21 @@ parentPort?.on('message', (m: StrataMessage | { kind: 'exclusions'; exclusions: 
       site = { name: '', strata: m.strata, parts, exclusions: [], access: [], boundary: null };
       counters = new Int32Array(m.counters);
       frame = siteLocalFrame(parts);
-      const made = [];
+      const made: { index: number; shape: StratumTrianglesXY }[] = [];
       const transfer: ArrayBuffer[] = [];
-      for (let k = Atomics.add(counters, 0, 1); k < site.strata.length; k = Atomics.add(counters, 0, 1)) {
-        const shape = stratumTrianglesXY(stratumPolygons(site, site.strata[k].key), frame);
+      jobsTake(counters, 0, site.strata.length, (k) => {
+        const shape = stratumTrianglesXY(stratumPolygons(site!, site!.strata[k].key), frame!);
         made.push({ index: k, shape });
         transfer.push(shape.triangles.buffer as ArrayBuffer, shape.cumulativeArea.buffer as ArrayBuffer, shape.edges.buffer as ArrayBuffer);
-      }
+      });
       parentPort?.postMessage({ kind: 'strata', made }, transfer);
       return;
     }
     if (!site || !counters || !frame) throw new Error('exclusions came before the strata');
     const withExclusions: Site = { ...site, exclusions: m.exclusions };
     const measure = partAreasMeasurer(withExclusions, frame);
-    const made = [];
-    for (let k = Atomics.add(counters, 1, 1); k < site.parts.length; k = Atomics.add(counters, 1, 1)) made.push({ index: k, areas: measure(k) });
+    const made: { index: number; areas: PartAreas }[] = [];
+    jobsTake(counters, 1, site.parts.length, (k) => made.push({ index: k, areas: measure(k) }));
     parentPort?.postMessage({ kind: 'parts', made });
   } catch (error) {
     // The main thread then makes every stage itself, and reports any error as it always does.
