@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { type WorkVersion, planHash, workVersionRead, workVersionsList } from '../state/autosaveVersions';
+import { type WorkVersion, planHash, planHashText, workVersionRead, workVersionsList } from '../state/autosaveVersions';
 import { planFileFromState } from '../state/planFile';
 import { planReplace } from '../state/planReplace';
 import { resultsSnapshotTake } from '../state/resultsSnapshot';
@@ -31,7 +31,7 @@ export function EarlierWork({ onClose }: { onClose: () => void }) {
   useEffect(() => {
     close.current?.focus();
     const s = plannerStore.getState();
-    setCurrent(planHash(planFileFromState(s, '', resultsSnapshotTake(resultsStore.getState()))));
+    void planHash(browserStorage, planHashText(planFileFromState(s, '', resultsSnapshotTake(resultsStore.getState())))).then(setCurrent, () => setCurrent(''));
     workVersionsList(browserStorage)
       .then(setVersions)
       .catch(() => setVersions([]));

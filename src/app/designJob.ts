@@ -3,6 +3,7 @@ import * as Comlink from 'comlink';
 import { designResultSet } from '../state/designActions';
 import { plannerStore } from './plannerStoreInstance';
 import { plannerWorkerStart } from './siteAnalysisRunner';
+import { siteJsonOf } from './siteJson';
 
 let running: { worker: Worker } | null = null;
 
@@ -18,12 +19,15 @@ export async function designJobStart(): Promise<void> {
   plannerStore.setState({ job: { fraction: 0, stage: 'starting' }, notice: null });
   try {
     const outcome = await api.design(
-      site,
+      siteJsonOf(site),
       design,
       Comlink.proxy((fraction: number, stage: string) => {
         if (running?.worker === worker) plannerStore.setState({ job: { fraction, stage } });
       }),
     );
+    // The plots arrive in one task (unpacking them, and the collection that follows) and are drawn
+    // and listed in the next, so neither holds the page up as long as both would.
+    await new Promise((resolve) => setTimeout(resolve, 0));
     if (running?.worker !== worker) return;
     if (outcome.ok) {
       designResultSet(plannerStore, outcome.collection);

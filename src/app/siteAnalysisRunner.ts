@@ -2,6 +2,7 @@ import * as Comlink from 'comlink';
 import type { Site } from '../core/model/types';
 import type { PlannerWorkerApi } from '../worker/plannerWorker';
 import { plannerStore } from './plannerStoreInstance';
+import { siteJsonOf } from './siteJson';
 
 /** Starts a planner worker (module worker, same origin). */
 export function plannerWorkerStart(): { api: Comlink.Remote<PlannerWorkerApi>; worker: Worker } {
@@ -18,7 +19,7 @@ export function siteAnalysisRunnerStart(): () => void {
   let timer: ReturnType<typeof setTimeout> | null = null;
   const run = (site: Site) => {
     api
-      .analyse(site)
+      .analyse(siteJsonOf(site))
       .then((a) => {
         if (plannerStore.getState().site === site) plannerStore.setState({ analysis: { ...a, site } });
       })

@@ -5,13 +5,16 @@ import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';
 import { RESULTS_SNAPSHOT_FIELDS, resultsSnapshotTake } from './resultsSnapshot';
-import { workVersionsKeeper } from './autosaveVersions';
+import { planHashText, workVersionsKeeper } from './autosaveVersions';
+import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
 
 /** The calls autosave needs from a key-value store (idb-keyval's get/set/del in the browser). */
 export interface AutosaveStorage {
   get(key: string): Promise<unknown>;
   set(key: string, value: unknown): Promise<void>;
   del?(key: string): Promise<void>;
+  /** See VersionStorage.textSha256. */
+  textSha256?(text: string): Promise<string>;
 }
 
 /** Key under which the working plan is kept in IndexedDB. */
@@ -24,6 +27,18 @@ export const AUTOSAVE_UNREADABLE_KEY = 'stratplot:unreadable-copy';
 interface AutosaveRecord {
   plan: PlanFileDocument;
   saved: boolean;
+}
+
+/** Waits for the next task (letting the page draw), or only for the microtask queue when `urgent`. */
+function pause(urgent: boolean): Promise<void> {
+  return urgent ? Promise.resolve() : new Promise((resolve) => setTimeout(resolve, 0));
+}
+
+/** The plan's text with its save time: `hashText` (the plan's text with savedAt "") with the time put in. */
+function planTextSavedAt(hashText: string, plan: PlanFileDocument, savedAt: string): string {
+  const head = JSON.stringify({ format: plan.format, version: plan.version, savedAt: '' }).slice(0, -1);
+  if (!hashText.startsWith(head)) return jsonStringifyKeepingGeometry({ ...plan, savedAt }, { escapeAboveLatin1: true });
+  return `${head.slice(0, -2)}${JSON.stringify(savedAt)}${hashText.slice(head.length)}`;
 }
 
 /**
@@ -45,31 +60,42 @@ export function autosaveStart(
   let writing: Promise<void> = Promise.resolve();
   const keep = workVersionsKeeper(storage);
   const session = new Date().toISOString();
-  const write = () => {
+  const write = (urgent = false) => {
     timer = null;
     const s = store.getState();
     const now = new Date();
     const snapshot = results ? resultsSnapshotTake(results.getState()) : null;
-    const record: AutosaveRecord = { plan: planFileFromState(s, now.toISOString(), snapshot), saved: s.revision === s.savedRevision };
-    const text = JSON.stringify(record);
+    const saved = s.revision === s.savedRevision;
     const slot = `${session}#${s.planOpened.serial}`;
     writing = writing
-      .then(() => storage.set(AUTOSAVE_KEY, text))
-      .then(() => keep(text, record.plan, slot, now))
+      .then(async () => {
+        // The steps run as separate tasks so the page can draw between them (on a 10,000-plot
+        // design each takes tens of milliseconds); a flush runs them at once.
+        const plan = planFileFromState(s, '', snapshot);
+        await pause(urgent);
+        // One text of the plan serves both the content hash (without the save time) and the
+        // record; only the save time at its head differs, so the site's text is composed once.
+        const hashText = planHashText(plan);
+        const savedAt = now.toISOString();
+        const text = `{"plan":${planTextSavedAt(hashText, plan, savedAt)},"saved":${saved}}`;
+        await pause(urgent);
+        await storage.set(AUTOSAVE_KEY, text);
+        await keep(text, { ...plan, savedAt }, slot, now, hashText);
+      })
       .catch((e) => onError?.(e));
   };
   const unsubscribe = store.subscribe((s, prev) => {
     if (s.site === prev.site && s.design === prev.design && s.result === prev.result && s.field === prev.field && s.savedRevision === prev.savedRevision && s.planOpened === prev.planOpened) return;
-    if (timer === null) timer = setTimeout(write, delayMs);
+    if (timer === null) timer = setTimeout(() => write(), delayMs);
   });
   const unsubscribeResults = results?.subscribe((s, prev) => {
     if (RESULTS_SNAPSHOT_FIELDS.every((k) => s[k] === prev[k])) return;
-    if (timer === null) timer = setTimeout(write, delayMs);
+    if (timer === null) timer = setTimeout(() => write(), delayMs);
   });
   const flush = async () => {
     if (timer !== null) {
       clearTimeout(timer);
-      write();
+      write(true);
     }
     await writing;
   };

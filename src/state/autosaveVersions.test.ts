@@ -1,4 +1,5 @@
-import { planFileOf } from './planFile';
+import { createHash } from 'node:crypto';
+import { planFileFromState, planFileOf } from './planFile';
 import { describe, expect, it } from 'vitest';
 import { designSettingsDefault } from '../core/design/designSettingsDefault';
 import type { PlanFile } from './planFileTypes';
@@ -37,6 +38,29 @@ describe('earlier versions of the work in the browser', () => {
     expect(Date.parse(list[1].at)).toBeGreaterThanOrEqual(Date.parse(list[1].since));
     const back = await workVersionRead(storage, list[1].id);
     expect(back.plan.site.strata.map((s) => s.key)).toEqual(['Heath', 'Marsh']);
+  });
+
+  it('stores the plan with its save time and hashes it without, by SHA-256 of its text (node:crypto)', async () => {
+    const storage = memoryStorage();
+    const hashed: string[] = [];
+    // The storage's own hashing (the browser's worker) is used when it has one.
+    const withHash: AutosaveStorage = { ...storage, textSha256: async (t) => (hashed.push(t), createHash('sha256').update(t, 'utf8').digest('hex')) };
+    const store = plannerStoreCreate(designSettingsDefault());
+    const { flush } = autosaveStart(store, withHash, 5);
+    stratumPartAdd(store, 'Kōwhai scrub — north', box(150));
+    await flush();
+    const record = JSON.parse(storage.data.get(AUTOSAVE_KEY) as string);
+    const expected = planFileFromState(store.getState(), record.plan.savedAt);
+    expect(Date.parse(record.plan.savedAt)).toBeGreaterThan(0);
+    expect(record.plan).toEqual(JSON.parse(JSON.stringify(expected)));
+    expect(record.saved).toBe(false);
+    // The hashed text is the same plan with savedAt "" (names escaped above Latin-1, RFC 8259 §7).
+    expect(hashed).toHaveLength(1);
+    expect(JSON.parse(hashed[0])).toEqual(JSON.parse(JSON.stringify({ ...expected, savedAt: '' })));
+    expect(/[\u0100-\uffff]/.test(hashed[0])).toBe(false);
+    const [version] = await workVersionsList(storage);
+    // FIPS 180-4 SHA-256 as Node's crypto (OpenSSL) computes it, of the UTF-8 bytes.
+    expect(version.hash).toBe(createHash('sha256').update(hashed[0], 'utf8').digest('hex'));
   });
 
   it('lists the same work once, at its latest time, and keeps at most the newest few', async () => {

@@ -4,12 +4,18 @@ import { plotRejections } from '../core/field/plotFieldState';
 import { InputError } from '../core/common/InputError';
 import { sha256Hex } from '../core/common/sha256';
 import { planFileParse } from './planFile';
+import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
 
 /** The key-value calls the kept versions need (idb-keyval's get/set/del in the browser). */
 export interface VersionStorage {
   get(key: string): Promise<unknown>;
   set(key: string, value: unknown): Promise<void>;
   del?(key: string): Promise<void>;
+  /**
+   * SHA-256 of a text's UTF-8 bytes as hex, done away from the caller's thread (the browser's
+   * storage worker); without it the hash is computed here with sha256Hex.
+   */
+  textSha256?(text: string): Promise<string>;
 }
 
 /** Key of the list of kept versions; each version's plan is under this key plus ":" and its id. */
@@ -81,9 +87,17 @@ export async function workVersionRead(storage: VersionStorage, id: string): Prom
   return { plan: planFileParse(JSON.stringify(record.plan), 'the earlier version'), saved: record.saved === true };
 }
 
-/** The content hash a version is compared by: the plan without the time it was written. */
-export function planHash(plan: KeptPlan): string {
-  return sha256Hex(JSON.stringify({ ...plan, savedAt: '' }));
+/**
+ * The text a version's content hash is taken of: the plan's JSON without the time it was written,
+ * characters above Latin-1 escaped (the compact text that crosses to the storage worker quickly).
+ */
+export function planHashText(plan: KeptPlan): string {
+  return jsonStringifyKeepingGeometry({ ...plan, savedAt: '' }, { escapeAboveLatin1: true });
+}
+
+/** The content hash a version is compared by: SHA-256 (FIPS 180-4) of planHashText, hex. */
+export async function planHash(storage: VersionStorage, hashText: string): Promise<string> {
+  return storage.textSha256 ? storage.textSha256(hashText) : sha256Hex(hashText);
 }
 
 /**
@@ -95,9 +109,10 @@ export function planHash(plan: KeptPlan): string {
 export function workVersionsKeeper(storage: VersionStorage, max = 10, windowMs = 10 * 60_000) {
   let index: WorkVersion[] | null = null;
   const remove = (id: string) => (storage.del ? storage.del(`${VERSIONS_KEY}:${id}`) : storage.set(`${VERSIONS_KEY}:${id}`, null));
-  return async function keep(recordText: string, plan: KeptPlan, slot: string, now: Date): Promise<void> {
+  /** Keeps `recordText` as a version of `plan`; `hashText` (planHashText of the plan) when the caller has it already. */
+  return async function keep(recordText: string, plan: KeptPlan, slot: string, now: Date, hashText?: string): Promise<void> {
     index ??= await indexRead(storage);
-    const hash = planHash(plan);
+    const hash = await planHash(storage, hashText ?? planHashText(plan));
     const at = now.toISOString();
     const head = index[0];
     if (head && head.hash === hash) {

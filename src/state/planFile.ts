@@ -1,4 +1,4 @@
-import type { DesignSettings } from '../core/model/designTypes';
+import type { DesignSettings, PlotCollection } from '../core/model/designTypes';
 import { PLAN_FILE_VERSION, type PlanFile, type PlanFileDocument, type ResultsSnapshot } from './planFileTypes';
 import { InputError } from '../core/common/InputError';
 import { FIELD_SETUP_EMPTY } from '../core/model/fieldTypes';
@@ -15,6 +15,21 @@ import { resultsReset, resultsSnapshotIsEmpty, resultsSnapshotParse, resultsSnap
 /** A plan holding a site and design settings and nothing else yet (no design, no results). */
 export function planFileOf(site: Site, design: DesignSettings): PlanFile {
   return { format: 'stratplot-plan', version: PLAN_FILE_VERSION, savedAt: '', site, design, result: null };
+}
+
+/** The last named copy of each result, by result, with the strata it was named for. */
+const named = new WeakMap<PlotCollection, { strata: StratumInfo[]; collection: PlanFileDocument['result'] }>();
+
+/**
+ * A result as the plan file writes it (plotCollectionNamed with ids), made once per result and
+ * strata: the plan is written after every change, and naming 10,000 plots each time held the page up.
+ */
+function resultNamed(result: PlotCollection, strata: StratumInfo[]): PlanFileDocument['result'] {
+  const kept = named.get(result);
+  if (kept && kept.strata === strata) return kept.collection;
+  const collection = plotCollectionNamed(result, strata, { ids: true });
+  named.set(result, { strata, collection });
+  return collection;
 }
 
 /**
@@ -35,7 +50,7 @@ export function planFileFromState(state: PlannerState, savedAt: string, results?
       parts: parts.map(({ stratum, ...p }) => ({ id: p.id, stratum_id: stratum, geometry: p.geometry, ...(p.properties ? { properties: p.properties } : {}) })),
     },
     design: state.design,
-    result: state.result ? plotCollectionNamed(state.result, strata, { ids: true }) : null,
+    result: state.result ? resultNamed(state.result, strata) : null,
   };
   if (state.field.crew || state.field.variables.length || state.field.arrivalRadiusM !== FIELD_SETUP_EMPTY.arrivalRadiusM) plan.field = state.field;
   if (results && !resultsSnapshotIsEmpty(results)) plan.results = results;

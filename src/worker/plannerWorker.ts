@@ -11,22 +11,30 @@ import type { RgbaRaster } from '../io/formats/raster/rasterWarpToMercator';
 import { type WorldFileCrs, worldFileImageWarp } from '../io/formats/raster/worldFileImage';
 import { siteAnalyse } from '../core/design/siteAnalyse';
 
+/** A site as JSON text (JSON.stringify of a Site): how the page hands a site to this worker. */
+export type SiteJson = string & { readonly siteJson: unique symbol };
+
+/** The site a page's text describes (it was written by JSON.stringify of a Site, so no checks are repeated). */
+function siteRead(text: SiteJson): Site {
+  return JSON.parse(text) as Site;
+}
+
 /** A design's outcome as it crosses to the page: the plots, or a message for the user. */
 export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: false; message: string };
 
 /** Calls the page makes into the worker; results are structured-cloned back. */
 const api = {
-  analyse(site: Site) {
-    return siteAnalyse(site, siteValidate);
+  analyse(siteText: SiteJson) {
+    return siteAnalyse(siteRead(siteText), siteValidate);
   },
   /**
    * Runs designRun here, off the page's thread, reporting progress through `onProgress`. The page
    * cancels by terminating this worker, so the run needs no polling of its own.
    */
-  design(site: Site, settings: DesignSettings, onProgress: (fraction: number, stage: string) => void): DesignOutcome {
+  design(siteText: SiteJson, settings: DesignSettings, onProgress: (fraction: number, stage: string) => void): DesignOutcome {
     let last = 0;
     try {
-      const collection = designRun(site, settings, {
+      const collection = designRun(siteRead(siteText), settings, {
         onProgress: (fraction, stage) => {
           const now = Date.now();
           // Progress messages are throttled: a burst of them would slow the page more than the run.
@@ -43,9 +51,9 @@ const api = {
     }
   },
   /** Checks plots from a file against the site (plotsCheck), off the page's thread. */
-  check(site: Site, plots: PlotToCheck[], options: PlotsCheckOptions): { ok: true; report: PlotsCheckReport } | { ok: false; message: string } {
+  check(siteText: SiteJson, plots: PlotToCheck[], options: PlotsCheckOptions): { ok: true; report: PlotsCheckReport } | { ok: false; message: string } {
     try {
-      return { ok: true, report: plotsCheck(site, plots, options) };
+      return { ok: true, report: plotsCheck(siteRead(siteText), plots, options) };
     } catch (e) {
       if (isInputError(e)) return { ok: false, message: (e as Error).message };
       throw e;

@@ -8,6 +8,9 @@ import { plotSymbolImageName, plotSymbolImagesInstall } from './plotSymbolImages
 export const SOURCES = ['sp-strata', 'sp-buffers', 'sp-exclusions', 'sp-access', 'sp-plots', 'sp-footprints', 'sp-selection', 'sp-baseline'] as const;
 export type SourceId = (typeof SOURCES)[number];
 
+/** Zoom from which plot footprints are drawn (below it they would be a pixel or two). */
+export const FOOTPRINTS_MIN_ZOOM = 16;
+
 const kindColour: unknown[] = ['match', ['get', 'kind'], ...Object.entries(EXCLUSION_COLOURS).flat(), '#555555'];
 const EMPTY: FeatureCollection = { type: 'FeatureCollection', features: [] };
 
@@ -50,7 +53,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
     id: 'sp-footprints',
     type: 'line',
     source: 'sp-footprints',
-    minzoom: 16,
+    minzoom: FOOTPRINTS_MIN_ZOOM,
     paint: { 'line-color': INK, 'line-width': 1, 'line-dasharray': ['case', ['==', ['get', 'role'], 'reserve'], ['literal', [2, 2]], ['literal', [1, 0]]] as never },
   });
   map.addLayer({
@@ -59,7 +62,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
     source: 'sp-access',
     paint: { 'circle-radius': 7, 'circle-color': '#ffffff', 'circle-stroke-color': INK, 'circle-stroke-width': 2.5 },
   });
-  // The shared plot symbols (core/plotSymbols), rejected plots under the others.
+  // The shared plot symbols (core/plotSymbols), rejected plots under the others (plotsSource orders them).
   map.addLayer({
     id: 'sp-plots',
     type: 'symbol',
@@ -68,7 +71,9 @@ export function siteLayersAdd(map: MapLibreMap): void {
       'icon-image': ['match', ['get', 'state'], 'reserve', plotSymbolImageName('reserve'), 'promoted', plotSymbolImageName('promoted'), 'rejected', plotSymbolImageName('rejected'), plotSymbolImageName('primary')],
       'icon-allow-overlap': true,
       'icon-ignore-placement': true,
-      'symbol-sort-key': ['match', ['get', 'state'], 'rejected', 0, 'reserve', 1, 2],
+      'symbol-z-order': 'source',
+      // Smaller when the whole of a large site is in view, where full-size symbols only pile up.
+      'icon-size': ['interpolate', ['linear'], ['zoom'], 11, 0.45, 15, 1],
     },
   });
   map.addLayer({

@@ -69,34 +69,55 @@ export function accessSource(site: Site): FeatureCollection {
   };
 }
 
-/** Plots as points; `state` is the plot's field state (plotFieldStates), the key of its symbol. */
+/** Rejected plots are drawn first (under the others), then reserves, then primaries and promoted reserves. */
+const DRAW_ORDER: Record<string, number> = { rejected: 0, reserve: 1 };
+
+/** Plots as points in drawing order; `state` is the plot's field state (plotFieldStates), the key of its symbol. */
 export function plotsSource(result: PlotCollection | null): FeatureCollection {
   if (!result) return EMPTY;
   const states = plotFieldStates(result.features.map((f) => f.properties));
-  return {
-    type: 'FeatureCollection',
-    features: result.features.map((f) => {
-      const p = f.properties;
-      const s = states.get(p.plot_id)!;
-      const replaces = s.key === 'promoted' ? s.replaces : '';
-      return { type: 'Feature', geometry: f.geometry, properties: { plot_id: p.plot_id, stratum: p.stratum, role: p.role, rank: p.rank, state: s.key, replaces } };
-    }),
-  };
+  const features = result.features.map((f): Feature => {
+    const p = f.properties;
+    const s = states.get(p.plot_id)!;
+    const replaces = s.key === 'promoted' ? s.replaces : '';
+    return { type: 'Feature', geometry: f.geometry, properties: { plot_id: p.plot_id, stratum: p.stratum, role: p.role, rank: p.rank, state: s.key, replaces } };
+  });
+  // Drawing order is source order (the layer's symbol-z-order): a per-feature sort key would make
+  // the map issue one draw call per plot, which stalls every frame once thousands are drawn.
+  const layer = (f: Feature) => DRAW_ORDER[f.properties?.state as string] ?? 2;
+  return { type: 'FeatureCollection', features: features.map((f, i) => ({ f, i })).sort((a, b) => layer(a.f) - layer(b.f) || a.i - b.i).map((x) => x.f) };
 }
 
-function footprintRingXY(fp: Footprint, frame: LocalFrame, lon: number, lat: number): [number, number][] | null {
+/**
+ * One footprint's ring in lon/lat around its plot. The ring is laid out in the frame (UTM, so
+ * shapes and true north hold), then carried back by the frame's local linear map at the plot
+ * (a forward difference over 1e-4°): over a footprint's few tens of metres the curvature of the
+ * projection moves a corner by well under a millimetre, and it costs three projections a plot
+ * instead of one per vertex.
+ */
+function footprintRingLonLat(fp: Footprint, frame: LocalFrame, lon: number, lat: number): [number, number][] | null {
+  const d = 1e-4;
   const [cx, cy] = frame.toXY(lon, lat);
   // True north in grid terms differs from grid north by the meridian convergence: measure it here.
-  const [nx, ny] = frame.toXY(lon, lat + 1e-4);
+  const [nx, ny] = frame.toXY(lon, lat + d);
+  const [ex, ey] = frame.toXY(lon + d, lat);
   const len = Math.hypot(nx - cx, ny - cy);
   const north = [(nx - cx) / len, (ny - cy) / len];
   const east = [north[1], -north[0]];
+  // Inverse of the Jacobian [[∂x/∂lon, ∂x/∂lat], [∂y/∂lon, ∂y/∂lat]].
+  const j11 = (ex - cx) / d;
+  const j12 = (nx - cx) / d;
+  const j21 = (ey - cy) / d;
+  const j22 = (ny - cy) / d;
+  const det = j11 * j22 - j12 * j21;
   const at = (e: number, n: number, angleDeg: number): [number, number] => {
     const a = (angleDeg * Math.PI) / 180;
     // Rotate clockwise from true north by the footprint angle.
     const er = e * Math.cos(a) + n * Math.sin(a);
     const nr = -e * Math.sin(a) + n * Math.cos(a);
-    return [cx + er * east[0] + nr * north[0], cy + er * east[1] + nr * north[1]];
+    const dx = er * east[0] + nr * north[0];
+    const dy = er * east[1] + nr * north[1];
+    return [lon + (j22 * dx - j12 * dy) / det, lat + (-j21 * dx + j11 * dy) / det];
   };
   if (fp.shape === 'square' || fp.shape === 'rect') {
     const w = (fp.shape === 'square' ? fp.sideM : fp.widthM) / 2;
@@ -125,9 +146,9 @@ export function footprintsSource(result: PlotCollection | null): FeatureCollecti
   const frame = localFrameAt(first[0], first[1]);
   const features: Feature<Polygon>[] = [];
   for (const f of result.features) {
-    const ring = footprintRingXY(fp, frame, f.geometry.coordinates[0], f.geometry.coordinates[1]);
+    const ring = footprintRingLonLat(fp, frame, f.geometry.coordinates[0], f.geometry.coordinates[1]);
     if (!ring) continue;
-    features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [ring.map(([x, y]) => frame.toLonLat(x, y))] }, properties: { plot_id: f.properties.plot_id, role: f.properties.role } });
+    features.push({ type: 'Feature', geometry: { type: 'Polygon', coordinates: [ring] }, properties: { plot_id: f.properties.plot_id, role: f.properties.role } });
   }
   return { type: 'FeatureCollection', features };
 }

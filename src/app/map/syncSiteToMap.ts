@@ -1,7 +1,8 @@
 import type { Feature, FeatureCollection } from 'geojson';
 import type { Map as MapLibreMap } from 'maplibre-gl';
 import type { PlannerState, PlannerStore } from '../../state/plannerStore';
-import { siteLayerSet } from './siteLayers';
+import { FOOTPRINTS_MIN_ZOOM, siteLayerSet } from './siteLayers';
+import type { PlotCollection } from '../../core/model/designTypes';
 import { accessSource, exclusionsSource, footprintsSource, plotsSource, strataSource } from './siteSources';
 
 function selectionSource(s: PlannerState): FeatureCollection {
@@ -33,9 +34,19 @@ export function syncSiteToMap(map: MapLibreMap, store: PlannerStore): () => void
     siteLayerSet(map, 'sp-exclusions', exclusionsSource(s.site));
     siteLayerSet(map, 'sp-access', accessSource(s.site));
   };
+  // Footprints are drawn only close in: they are built when the map nears that zoom, in a task of
+  // their own, so a 10,000-plot design does not hold the page up for shapes nobody can see yet.
+  let footprintsOf: PlotCollection | null | undefined;
+  const pushFootprints = () => {
+    const result = store.getState().result;
+    if (result === footprintsOf || (result && map.getZoom() < FOOTPRINTS_MIN_ZOOM - 1)) return;
+    footprintsOf = result;
+    siteLayerSet(map, 'sp-footprints', footprintsSource(result));
+  };
+  map.on('zoomend', pushFootprints);
   const pushResult = (s: PlannerState) => {
     siteLayerSet(map, 'sp-plots', plotsSource(s.result));
-    siteLayerSet(map, 'sp-footprints', footprintsSource(s.result));
+    setTimeout(pushFootprints, 0);
   };
   const now = store.getState();
   pushSite(now);
@@ -43,11 +54,15 @@ export function syncSiteToMap(map: MapLibreMap, store: PlannerStore): () => void
   if (now.analysis) siteLayerSet(map, 'sp-buffers', now.analysis.buffers);
   siteLayerSet(map, 'sp-selection', selectionSource(now));
   siteLayerSet(map, 'sp-baseline', baselineSource(now));
-  return store.subscribe((s, prev) => {
+  const unsubscribe = store.subscribe((s, prev) => {
     if (s.site !== prev.site) pushSite(s);
     if (s.result !== prev.result) pushResult(s);
     if (s.design !== prev.design) siteLayerSet(map, 'sp-baseline', baselineSource(s));
     if (s.analysis !== prev.analysis && s.analysis) siteLayerSet(map, 'sp-buffers', s.analysis.buffers);
     if (s.selection !== prev.selection || s.site !== prev.site) siteLayerSet(map, 'sp-selection', selectionSource(s));
   });
+  return () => {
+    unsubscribe();
+    map.off('zoomend', pushFootprints);
+  };
 }
