@@ -73,6 +73,10 @@ export function autosaveStart(
         // design each takes tens of milliseconds); a flush runs them at once.
         const plan = planFileFromState(s, '', snapshot);
         await pause(urgent);
+        // A new design's plots are written on their own first (the text is kept with them), then
+        // the whole plan is put together from kept texts.
+        if (plan.result) jsonStringifyKeepingGeometry(plan.result, { escapeAboveLatin1: true });
+        await pause(urgent);
         // One text of the plan serves both the content hash (without the save time) and the
         // record; only the save time at its head differs, so the site's text is composed once.
         const hashText = planHashText(plan);

@@ -1,3 +1,4 @@
+import type { Site } from '../../core/model/types';
 import type { Map as MapLibreMap } from 'maplibre-gl';
 import type { Polygon } from 'geojson';
 import {
@@ -12,7 +13,7 @@ import { TerraDrawMapLibreGLAdapter } from 'terra-draw-maplibre-gl-adapter';
 import { drawFinish, TOOL_GEOMETRY } from '../../state/drawFinish';
 import type { DrawTool, PlannerStore } from '../../state/plannerStore';
 import { stratumPartReshape } from '../../state/strataActions';
-import { strataSnapIndexBuild, strataSnapNearest } from './strataSnap';
+import { type StrataSnapIndex, strataSnapIndexBuild, strataSnapNearest } from './strataSnap';
 
 const SNAP_PX = 10;
 
@@ -23,8 +24,16 @@ const SNAP_PX = 10;
  * keeps no history of its own: every finished shape is one step in the store's undo history.
  */
 export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (tone: 'info' | 'error', text: string) => void): () => void {
-  let snapIndex = strataSnapIndexBuild(store.getState().site);
+  // Built at the first snap after a change of the site, not at every change: on a million-vertex
+  // map it takes a quarter of a second, and most changes (opening a plan, an import) draw nothing.
+  let snapFor: Site | null = null;
+  let snapIndex: StrataSnapIndex | null = null;
   const snapToStrata: SnapToCustom = (event) => {
+    const site = store.getState().site;
+    if (site !== snapFor) {
+      snapFor = site;
+      snapIndex = strataSnapIndexBuild(site);
+    }
     if (!snapIndex) return undefined;
     const a = map.unproject([event.containerX - SNAP_PX, event.containerY + SNAP_PX]);
     const b = map.unproject([event.containerX + SNAP_PX, event.containerY - SNAP_PX]);
@@ -102,7 +111,6 @@ export function drawControlInstall(map: MapLibreMap, store: PlannerStore, say: (
   });
 
   const unsubscribe = store.subscribe((s, prev) => {
-    if (s.site !== prev.site) snapIndex = strataSnapIndexBuild(s.site);
     if (s.tool !== prev.tool) applyTool(s.tool);
   });
   applyTool(store.getState().tool);

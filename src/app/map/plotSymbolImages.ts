@@ -17,6 +17,11 @@ export function plotSymbolImagesInstall(map: MapLibreMap): void {
     if (map.hasImage(name)) continue;
     map.addImage(name, { width: MAP_ICON_PX, height: MAP_ICON_PX, data: plotIconRgba(key, MAP_ICON_PX) }, { pixelRatio: 2 });
   }
+  // The key's PNGs are made while the page is idle, not in the task that first shows a design.
+  const idle = window.requestIdleCallback ?? ((f: () => void) => setTimeout(f, 200));
+  idle(() => {
+    for (const key of PLOT_FIELD_STATE_KEYS) plotSymbolDataUrl(key);
+  });
 }
 
 const urls = new Map<PlotFieldStateKey, string>();

@@ -14,7 +14,14 @@ export function siteBounds(site: Site): [number, number, number, number] | null 
     if (Array.isArray(c) && typeof c[0] === 'number') add(c[0] as number, c[1] as number);
     else if (Array.isArray(c)) for (const x of c) walk(x);
   };
-  for (const p of site.parts) walk(p.geometry.coordinates);
+  // A polygon lies within its outer ring: its holes need not be read (a mosaic's are large).
+  for (const p of site.parts) {
+    const outers = p.geometry.type === 'Polygon' ? [p.geometry.coordinates[0]] : p.geometry.coordinates.map((poly) => poly[0]);
+    for (const ring of outers) {
+      if (!ring) continue;
+      for (let i = 0; i < ring.length; i++) add(ring[i][0], ring[i][1]);
+    }
+  }
   for (const e of site.exclusions) walk((e.geometry as Exclude<Geometry, { type: 'GeometryCollection' }>).coordinates);
   for (const a of site.access) add(a.lon, a.lat);
   return Number.isFinite(b[0]) ? b : null;

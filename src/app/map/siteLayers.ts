@@ -73,7 +73,7 @@ export function siteLayersAdd(map: MapLibreMap): void {
       'icon-ignore-placement': true,
       'symbol-z-order': 'source',
       // Smaller when the whole of a large site is in view, where full-size symbols only pile up.
-      'icon-size': ['interpolate', ['linear'], ['zoom'], 11, 0.45, 15, 1],
+      'icon-size': ['interpolate', ['linear'], ['zoom'], 12, 0.4, 15, 1],
     },
   });
   map.addLayer({
