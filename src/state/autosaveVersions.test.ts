@@ -44,7 +44,13 @@ describe('earlier versions of the work in the browser', () => {
     const storage = memoryStorage();
     const hashed: string[] = [];
     // The storage's own hashing (the browser's worker) is used when it has one.
-    const withHash: AutosaveStorage = { ...storage, textSha256: async (t) => (hashed.push(t), createHash('sha256').update(t, 'utf8').digest('hex')) };
+    const withHash: AutosaveStorage = {
+      ...storage,
+      textSha256: async (t) => {
+        hashed.push(t);
+        return createHash('sha256').update(t, 'utf8').digest('hex');
+      },
+    };
     const store = plannerStoreCreate(designSettingsDefault());
     const { flush } = autosaveStart(store, withHash, 5);
     stratumPartAdd(store, 'Kōwhai scrub — north', box(150));
