@@ -309,6 +309,29 @@ export const SCENARIOS = [
       await shot('6-markup-as-text');
     },
   },
+  {
+    no: 7,
+    name: 'when the browser-copy worker cannot start, the planner opens and keeps its copy from the page',
+    async run({ page, origin, watch }) {
+      let refused = 0;
+      await page.route('**/assets/browserCopyWorker-*', (route) => {
+        refused++;
+        return route.abort();
+      });
+      await openPlanner(page, origin);
+      await page.locator('input[aria-label="Name of stratum Coastal heath"]').fill('Heath kept without its worker');
+      await page.keyboard.press('Tab');
+      check(await browserCopyWait(page, ['Heath kept without its worker']), 'the rename never reached the browser copy');
+      await page.reload();
+      await openPlanner(page, origin);
+      check((await mappedHaOf(page, 'Heath kept without its worker')) !== null, 'the renamed stratum was not restored');
+      const errors = await page.locator('.notice-error').allTextContents();
+      check(errors.length === 0, `an error was shown: ${errors.join(' | ')}`);
+      check(refused > 0, 'the worker script was never asked for, so the page path was not tried');
+      // The refused worker script is logged by the browser; nothing else may be.
+      watch.consoleErrors = watch.consoleErrors.filter((e) => !/Failed to load resource|browserCopyWorker/.test(e));
+    },
+  },
   RESULTS_SCENARIO,
   IMPORT_CHOICE_SCENARIO,
   FIELD_STATE_SCENARIO,
