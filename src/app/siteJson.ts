@@ -13,7 +13,7 @@ const kept = new WeakMap<Site, SiteJson>();
 export function siteJsonOf(site: Site): SiteJson {
   let text = kept.get(site);
   if (text === undefined) {
-    text = jsonStringifyKeepingGeometry(site, { escapeAboveLatin1: true }) as SiteJson;
+    text = jsonStringifyKeepingGeometry(site) as SiteJson;
     kept.set(site, text);
   }
   return text;

@@ -5,17 +5,11 @@ import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';
 import { RESULTS_SNAPSHOT_FIELDS, resultsSnapshotTake } from './resultsSnapshot';
-import { planHashText, workVersionsKeeper } from './autosaveVersions';
+import { planHashText, type VersionStorage, workVersionsKeeper } from './autosaveVersions';
 import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
 
-/** The calls autosave needs from a key-value store (idb-keyval's get/set/del in the browser). */
-export interface AutosaveStorage {
-  get(key: string): Promise<unknown>;
-  set(key: string, value: unknown): Promise<void>;
-  del?(key: string): Promise<void>;
-  /** See VersionStorage.textSha256. */
-  textSha256?(text: string): Promise<string>;
-}
+/** The calls autosave needs from a key-value store: those of the kept versions (VersionStorage). */
+export type AutosaveStorage = VersionStorage;
 
 /** Key under which the working plan is kept in IndexedDB. */
 export const AUTOSAVE_KEY = 'stratplot:working-plan';
@@ -37,7 +31,7 @@ function pause(urgent: boolean): Promise<void> {
 /** The plan's text with its save time: `hashText` (the plan's text with savedAt "") with the time put in. */
 function planTextSavedAt(hashText: string, plan: PlanFileDocument, savedAt: string): string {
   const head = JSON.stringify({ format: plan.format, version: plan.version, savedAt: '' }).slice(0, -1);
-  if (!hashText.startsWith(head)) return jsonStringifyKeepingGeometry({ ...plan, savedAt }, { escapeAboveLatin1: true });
+  if (!hashText.startsWith(head)) return jsonStringifyKeepingGeometry({ ...plan, savedAt });
   return `${head.slice(0, -2)}${JSON.stringify(savedAt)}${hashText.slice(head.length)}`;
 }
 
@@ -75,7 +69,7 @@ export function autosaveStart(
         await pause(urgent);
         // A new design's plots are written on their own first (the text is kept with them), then
         // the whole plan is put together from kept texts.
-        if (plan.result) jsonStringifyKeepingGeometry(plan.result, { escapeAboveLatin1: true });
+        if (plan.result) jsonStringifyKeepingGeometry(plan.result);
         await pause(urgent);
         // One text of the plan serves both the content hash (without the save time) and the
         // record; only the save time at its head differs, so the site's text is composed once.

@@ -92,7 +92,7 @@ export async function workVersionRead(storage: VersionStorage, id: string): Prom
  * characters above Latin-1 escaped (the compact text that crosses to the storage worker quickly).
  */
 export function planHashText(plan: KeptPlan): string {
-  return jsonStringifyKeepingGeometry({ ...plan, savedAt: '' }, { escapeAboveLatin1: true });
+  return jsonStringifyKeepingGeometry({ ...plan, savedAt: '' });
 }
 
 /** The content hash a version is compared by: SHA-256 (FIPS 180-4) of planHashText, hex. */

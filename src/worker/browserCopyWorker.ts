@@ -5,13 +5,14 @@ function hex(bytes: ArrayBuffer): string {
   return Array.from(new Uint8Array(bytes), (b) => b.toString(16).padStart(2, '0')).join('');
 }
 
+/** The value of the last set call (setLast stores it again). */
+let last: unknown = null;
+
 /**
  * The browser copy of the work (IndexedDB, idb-keyval's default store) and its content hashes,
  * kept off the page's thread: writing a 40 MB plan into IndexedDB and hashing it held the page up
  * for seconds on a million-vertex map, while handing this worker the text costs milliseconds.
  */
-let last: unknown = null;
-
 const api = {
   get(key: string): Promise<unknown> {
     return get(key);
