@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildCli } from '../../scripts/build-cli.mjs';
 import { partAreasMeasurer } from '../core/design/partAreas';
 import { stratumPolygons } from '../core/design/place/placementStrata';
-import { stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
+import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Site } from '../core/model/types';
 import { exclusionsFromFeatures } from '../io/site/exclusionsFromFeatures';
@@ -16,7 +16,7 @@ import { designStagesAhead } from './designStagesAhead';
 
 const root = join(import.meta.dirname, '../..');
 const demo = (name: string) => join(root, `demo-maps/ochre-spit-${name}.geojson`);
-const bytesOf = (a: Float64Array) => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+const bytesOf = (a: ArrayBufferView) => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
 
 function demoSite(): Site {
   const { strata, parts } = strataFromFeatures(JSON.parse(readFileSync(demo('strata'), 'utf8')), { fileName: 'strata' });
@@ -29,9 +29,9 @@ beforeAll(async () => {
 }, 120_000);
 
 describe('designStagesAhead (the second thread of stratplot plan)', () => {
-  it('shares the jobs with the bundled worker and gives exactly what one thread makes', async () => {
+  it.each(['triangles', 'cells'] as const)('shares the jobs with the bundled worker and gives exactly what one thread makes (sampling by %s)', async (sampling) => {
     const site = demoSite();
-    const ahead = designStagesAhead(2, pathToFileURL(join(root, 'dist-cli/designStagesWorker.mjs')));
+    const ahead = designStagesAhead(sampling, 2, pathToFileURL(join(root, 'dist-cli/designStagesWorker.mjs')));
     expect(ahead).not.toBeNull();
     ahead!.strataRead(site.strata, site.parts);
     // Time for the worker to start and take the stratum jobs before this thread joins.
@@ -42,17 +42,21 @@ describe('designStagesAhead (the second thread of stratplot plan)', () => {
     const frame = siteLocalFrame(site.parts);
     site.strata.forEach((s, i) => {
       const one = stratumTrianglesXY(stratumPolygons(site, s.key), frame);
-      const two = got!.made.strata[i];
+      const two = got!.made.strata[i] as Partial<StratumTrianglesXY>;
       expect(two.bbox).toEqual(one.bbox);
-      for (const k of ['triangles', 'cumulativeArea', 'edges'] as const) expect(bytesOf(two[k]).equals(bytesOf(one[k]))).toBe(true);
+      expect(two.areaGrid).toBe(one.areaGrid);
+      for (const k of ['edges', 'coords', 'polygonStarts', 'holeStarts', 'polygonHoles'] as const) expect(bytesOf(two[k]!).equals(bytesOf(one[k]))).toBe(true);
+      // Triangles only where the design samples by them: a cell design never triangulates.
+      if (sampling === 'cells') expect(two.triangles).toBeUndefined();
+      else for (const k of ['triangles', 'cumulativeArea'] as const) expect(bytesOf(two[k]!).equals(bytesOf(one[k]))).toBe(true);
     });
     const measure = partAreasMeasurer(site, frame);
     for (let i = 0; i < site.parts.length; i++) expect(got!.made.partAreas[i]).toEqual(measure(i));
   }, 60_000);
 
   it('is not started where it cannot help: one thread asked for, or no worker file', () => {
-    expect(designStagesAhead(1)).toBeNull();
-    expect(designStagesAhead(2, pathToFileURL(join(tmpdir(), 'no-such-worker.mjs')))).toBeNull();
+    expect(designStagesAhead('cells', 1)).toBeNull();
+    expect(designStagesAhead('cells', 2, pathToFileURL(join(tmpdir(), 'no-such-worker.mjs')))).toBeNull();
   });
 
   it('leaves the design byte for byte as one thread makes it (whole command, bundled)', () => {

@@ -3,9 +3,11 @@ import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { DesignStagesMade } from '../core/design/designRun';
+import { placementPolygonOver } from '../core/design/designSizeCheck';
 import { type PartAreas, partAreasMeasurer } from '../core/design/partAreas';
-import { stratumPolygons } from '../core/design/place/placementStrata';
-import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
+import { type StratumSampling, stratumPolygons } from '../core/design/place/placementStrata';
+import type { StratumOutlineXY } from '../core/design/place/stratumOutlineXY';
+import { stratumMade } from './stratumMade';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Site, StratumInfo, StratumPart } from '../core/model/types';
 import { jobsTake } from './jobsTake';
@@ -26,7 +28,7 @@ export interface DesignStagesAhead {
 }
 
 type Reply =
-  | { kind: 'strata'; made: { index: number; shape: StratumTrianglesXY }[] }
+  | { kind: 'strata'; made: { index: number; shape: StratumOutlineXY }[] }
   | { kind: 'parts'; made: { index: number; areas: PartAreas }[] }
   | { kind: 'failed'; message: string };
 
@@ -39,13 +41,17 @@ export function designThreads(env: NodeJS.ProcessEnv = process.env): 1 | 2 {
 /**
  * Starts the second thread of `stratplot plan`, or gives null where it cannot help (one thread
  * asked for or available, or no bundled worker at `url`, beside this file, as when run from the sources).
- * Work is shared by two counters in shared memory, one for stratum jobs (each stratum's triangles,
- * stratumTrianglesXY) and one for part jobs (each part's areas, partAreasMeasurer): each thread
+ * Work is shared by two counters in shared memory, one for stratum jobs (each stratum's outline,
+ * and its triangles where the design samples by them: stratumMade) and one for part jobs (each part's areas, partAreasMeasurer): each thread
  * takes the next job until none is left, so neither waits on a slow share. The main thread joins
  * once it has checked the map. Each job is the same code on the same numbers in either thread,
  * so the design is byte for byte the one a single thread makes (tested).
  */
-export function designStagesAhead(threads: 1 | 2 = designThreads(), url = new URL('./designStagesWorker.mjs', import.meta.url)): DesignStagesAhead | null {
+export function designStagesAhead(
+  sampling: StratumSampling,
+  threads: 1 | 2 = designThreads(),
+  url = new URL('./designStagesWorker.mjs', import.meta.url),
+): DesignStagesAhead | null {
   if (threads < 2) return null;
   if (url.protocol !== 'file:' || !existsSync(fileURLToPath(url))) return null;
   const worker = new Worker(url);
@@ -79,8 +85,10 @@ export function designStagesAhead(threads: 1 | 2 = designThreads(), url = new UR
   let sent = false;
   return {
     strataRead(strata, parts) {
+      // The design will refuse such a polygon; triangulating it first would only keep the refusal waiting.
+      if (sampling === 'triangles' && placementPolygonOver(parts)) return;
       const packed = stratumPartsPack(parts);
-      worker.postMessage({ kind: 'strata', strata, parts: packed, counters: counters.buffer }, [
+      worker.postMessage({ kind: 'strata', strata, parts: packed, counters: counters.buffer, sampling }, [
         packed.coords.buffer as ArrayBuffer,
         packed.ringVertices.buffer as ArrayBuffer,
         packed.polygonRings.buffer as ArrayBuffer,
@@ -93,10 +101,10 @@ export function designStagesAhead(threads: 1 | 2 = designThreads(), url = new UR
       try {
         worker.postMessage({ kind: 'exclusions', exclusions: site.exclusions });
         const frame = siteLocalFrame(site.parts);
-        const strata: (StratumTrianglesXY | undefined)[] = new Array(site.strata.length);
+        const strata: (StratumOutlineXY | undefined)[] = new Array(site.strata.length);
         const partAreas: (PartAreas | undefined)[] = new Array(site.parts.length);
         let mine = jobsTake(counters, 0, strata.length, (k) => {
-          strata[k] = stratumTrianglesXY(stratumPolygons(site, site.strata[k].key), frame);
+          strata[k] = stratumMade(stratumPolygons(site, site.strata[k].key), frame, sampling);
         });
         const measure = partAreasMeasurer(site, frame);
         mine += jobsTake(counters, 1, partAreas.length, (k) => {
@@ -111,7 +119,7 @@ export function designStagesAhead(threads: 1 | 2 = designThreads(), url = new UR
           }
         }
         if (strata.includes(undefined) || partAreas.includes(undefined)) return null;
-        const made = { strata: strata as StratumTrianglesXY[], partAreas: partAreas as PartAreas[] };
+        const made = { strata: strata as StratumOutlineXY[], partAreas: partAreas as PartAreas[] };
         return { made, otherThreadJobs: strata.length + partAreas.length - mine };
       } catch {
         return null;

@@ -1,10 +1,11 @@
 import { parentPort } from 'node:worker_threads';
 import { type PartAreas, partAreasMeasurer } from '../core/design/partAreas';
-import { stratumPolygons } from '../core/design/place/placementStrata';
-import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
+import { type StratumSampling, stratumPolygons } from '../core/design/place/placementStrata';
+import type { StratumOutlineXY } from '../core/design/place/stratumOutlineXY';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Exclusion, Site, StratumInfo } from '../core/model/types';
 import { jobsTake } from './jobsTake';
+import { stratumMade, stratumMadeBuffers } from './stratumMade';
 import { type StratumPartsPacked, stratumPartsUnpack } from './stratumPartsPacked';
 
 // The second thread of `stratplot plan` (designStagesAhead): takes stratum and part jobs from the
@@ -16,6 +17,7 @@ interface StrataMessage {
   parts: StratumPartsPacked;
   /** Next stratum job, next part job. */
   counters: SharedArrayBuffer;
+  sampling: StratumSampling;
 }
 
 let site: Site | null = null;
@@ -29,12 +31,12 @@ parentPort?.on('message', (m: StrataMessage | { kind: 'exclusions'; exclusions: 
       site = { name: '', strata: m.strata, parts, exclusions: [], access: [], boundary: null };
       counters = new Int32Array(m.counters);
       frame = siteLocalFrame(parts);
-      const made: { index: number; shape: StratumTrianglesXY }[] = [];
+      const made: { index: number; shape: StratumOutlineXY }[] = [];
       const transfer: ArrayBuffer[] = [];
       jobsTake(counters, 0, site.strata.length, (k) => {
-        const shape = stratumTrianglesXY(stratumPolygons(site!, site!.strata[k].key), frame!);
+        const shape = stratumMade(stratumPolygons(site!, site!.strata[k].key), frame!, m.sampling);
         made.push({ index: k, shape });
-        transfer.push(shape.triangles.buffer as ArrayBuffer, shape.cumulativeArea.buffer as ArrayBuffer, shape.edges.buffer as ArrayBuffer);
+        transfer.push(...stratumMadeBuffers(shape));
       });
       parentPort?.postMessage({ kind: 'strata', made }, transfer);
       return;

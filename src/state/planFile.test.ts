@@ -36,7 +36,7 @@ describe('plan files', () => {
     const store = plannerStoreCreate(designSettingsDefault({ seed: 7 }));
     stratumPartAdd(store, 'Heath', square);
     const saved = planFileFromState(store.getState(), '2026-12-01T00:00:00.000Z');
-    expect(planFileParse(JSON.stringify(saved), 'new.stratplot.json').design.rngVersion).toBe(2);
+    expect(planFileParse(JSON.stringify(saved), 'new.stratplot.json').design.rngVersion).toBe(3);
     const { rngVersion: _dropped, ...before } = saved.design;
     const old = planFileParse(JSON.stringify({ ...saved, design: before }), 'old.stratplot.json');
     expect(old.design.rngVersion).toBe(1);

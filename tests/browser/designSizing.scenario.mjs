@@ -31,9 +31,9 @@ export const DESIGN_SIZING_SCENARIO = {
     await page.waitForSelector('text=Opened “older.stratplot.json”', { timeout: 10_000 });
     await page.getByRole('button', { name: /3\s*Design/ }).click();
     const generator = page.locator('[data-fact="generator"]');
-    check(/saved before generator version 2 and still uses random generator version 1/.test((await generator.textContent()) ?? ''), `generator note reads "${await generator.textContent()}"`);
-    await page.getByRole('button', { name: 'Use version 2 for the next design' }).click();
-    await page.waitForFunction(() => /Made with random generator version 2/.test(document.querySelector('[data-fact="generator"]')?.textContent ?? ''));
+    check(/saved when generator version 1 was current and still uses random generator version 1/.test((await generator.textContent()) ?? ''), `generator note reads "${await generator.textContent()}"`);
+    await page.getByRole('button', { name: 'Use version 3 for the next design' }).click();
+    await page.waitForFunction(() => /Made with random generator version 3 \(.*grid of cells/.test(document.querySelector('[data-fact="generator"]')?.textContent ?? ''));
 
     // Size by a budget of 60 at the default cost 1 per plot (no overhead): proportional, 60 plots.
     await page.getByLabel('Size from').selectOption('budget');

@@ -87,14 +87,17 @@ describe('stratplot plan', () => {
   it('says which random generator made the design, and makes version-1 designs on request', async () => {
     const base = ['plan', 'demo-maps/ochre-spit-strata.geojson', '--plots', '12', '--seed', '3', '--json'];
     const now = JSON.parse((await cli(base)).out);
-    expect(now.settings.rngVersion).toBe(2);
-    expect(now.statements.join(' ')).toContain('Seed 3, random generator version 2');
+    expect(now.settings.rngVersion).toBe(3);
+    expect(now.statements.join(' ')).toContain('Seed 3, random generator version 3');
+    const two = JSON.parse((await cli([...base, '--rng-version', '2'])).out);
+    expect(two.settings.rngVersion).toBe(2);
+    expect(two.warnings.join(' ')).not.toContain('random generator version');
     const old = JSON.parse((await cli([...base, '--rng-version', '1'])).out);
     expect(old.settings.rngVersion).toBe(1);
     expect(old.warnings.join(' ')).toContain('random generator version 1');
-    const bad = await cli([...base, '--rng-version', '3']);
+    const bad = await cli([...base, '--rng-version', '4']);
     expect(bad.code).toBe(2);
-    expect(bad.err).toBe('stratplot plan: --rng-version needs 1 or 2, got "3"\n');
+    expect(bad.err).toBe('stratplot plan: --rng-version needs 1, 2 or 3, got "4"\n');
   });
 
   it('refuses strata that cross themselves, naming the feature', async () => {

@@ -1,14 +1,14 @@
 import { writeFile } from 'node:fs/promises';
 import { basename, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { designRun } from '../../core/design/designRun';
+import { designRun, designSampling } from '../../core/design/designRun';
 import { type DesignStagesAhead, designStagesAhead } from '../designStagesAhead';
 import { designSettingsDefault } from '../../core/design/designSettingsDefault';
-import type { DesignSettings, PlotCollection } from '../../core/model/designTypes';
+import type { DesignSettings, PlotCollection, RngVersion } from '../../core/model/designTypes';
 import { footprintParse } from '../../core/design/footprintParse';
 import { InputError } from '../../core/common/InputError';
 import { plotCollectionNamed } from '../../core/field/plotCollectionNamed';
-import { rngSeedFromClock } from '../../core/design/place/rng';
+import { RNG_VERSION_CURRENT, rngSeedFromClock } from '../../core/design/place/rng';
 import { rngVersionOf, rngVersionText } from '../../core/design/place/rngStreams';
 import { DESIGN_OUTPUT_FORMATS, designOutputBytes } from '../../io/plots/designOutput';
 import { type CliIo, type Command, CommandStatus, EXIT_SHORT } from '../command';
@@ -57,8 +57,9 @@ Placement:
   --transect-interval M     transect method: metres between transects
   --quadrat-interval M      transect method: metres between quadrats along a transect
   --seed S                  random seed (default: from the clock, printed to stderr)
-  --rng-version V           random generator version: 2 (default), or 1 to make again a design
-                            saved before version 2 (its plot file records no version)
+  --rng-version V           random generator version: 3 (default), or 2 or 1 to make again a
+                            design its plot file says was made with it (a file that records
+                            no version was made with 1)
 Output:
   --out FILE                write the design; the extension picks the format:
 ${Object.entries(DESIGN_OUTPUT_FORMATS)
@@ -90,10 +91,10 @@ function wholeOption(v: string | undefined, name: string): number | undefined {
   return x;
 }
 
-function rngVersionOption(v: string | undefined): 1 | 2 | undefined {
+function rngVersionOption(v: string | undefined): RngVersion | undefined {
   if (v === undefined) return undefined;
-  if (v === '1' || v === '2') return Number(v) as 1 | 2;
-  throw new InputError(`--rng-version needs 1 or 2, got "${v}"`);
+  if (v === '1' || v === '2' || v === '3') return Number(v) as RngVersion;
+  throw new InputError(`--rng-version needs 1, 2 or 3, got "${v}"`);
 }
 
 /** Reads "KEY=V,KEY=V" (a key may hold spaces; the value follows the last "="). */
@@ -158,7 +159,7 @@ async function run(argv: string[], io: CliIo): Promise<number> {
     }
   }
   const imports = importFlagsRead(o);
-  const ahead = designStagesAhead();
+  const ahead = designStagesAhead(designSampling(rngVersionOption(o['rng-version']) ?? RNG_VERSION_CURRENT));
   try {
     return await planWith(ahead, o, positionals[0], imports, io);
   } finally {

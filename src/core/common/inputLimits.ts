@@ -28,10 +28,11 @@ export const MAX_ZIP_TOTAL_BYTES = 512 * 1024 * 1024;
 export const MAX_FILE_VERTICES = 2_000_000;
 
 /**
- * Vertices in one stratum polygon (shell and holes) that placement triangulates: ear clipping
- * slows down faster than the vertex count on long wavy rings (a 200 000-vertex ring takes about 4 s
- * here, a 2 000 000-vertex one about 6 min), so larger polygons are refused for designs until a
- * faster triangulation lands; areas are measured for them all the same.
+ * Vertices in one stratum polygon (shell and holes) that placement triangulates, which it does only
+ * to remake a design of random generator version 1 or 2 (version 3 draws from a cell grid): ear
+ * clipping slows down faster than the vertex count on long wavy rings (a 200 000-vertex ring takes
+ * about 4 s here, a 2 000 000-vertex one about 6 min), so larger polygons are refused for such
+ * designs; areas are measured for them all the same.
  */
 export const MAX_POLYGON_VERTICES = 200_000;
 

@@ -5,6 +5,7 @@ import type { PlacementConstraints } from './place/placementConstraints';
 import { plotsPlaceBalanced } from './place/plotsPlaceBalanced';
 import { gridLayoutRandom, plotsPlaceGrid } from './place/plotsPlaceGrid';
 import { type CandidateSource, type PlacedPlots, type PlacementHooks, type PlacementTally, plotsPlaceSequential } from './place/plotsPlaceSequential';
+import { plotsPlaceCells } from './place/plotsPlaceCells';
 import { plotsPlaceRandom } from './place/plotsPlaceRandom';
 import { PlotSpacingHash } from './place/plotSpacingHash';
 import { plotsPlaceTransect, transectLayoutRandom } from './place/plotsPlaceTransect';
@@ -102,7 +103,11 @@ export function designPlace(c: PlacementConstraints, s: DesignSettings, request:
     reserveSource = (i) => plotsPlaceTransect(c, i, layout, { rng: streams.stream('transect-reserves', i) });
   } else {
     const sources = c.strata.map((_, i) =>
-      s.method === 'balanced' ? plotsPlaceBalanced(c, i, streams.stream('balanced', i)) : plotsPlaceRandom(c, i, streams.stream('random', i)),
+      s.method === 'balanced'
+        ? plotsPlaceBalanced(c, i, streams.stream('balanced', i))
+        : streams.version >= 3
+          ? plotsPlaceCells(c, i, streams.stream('random', i))
+          : plotsPlaceRandom(c, i, streams.stream('random', i)),
     );
     primarySource = (i) => sources[i];
     reserveSource = (i) => sources[i];

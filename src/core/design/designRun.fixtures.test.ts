@@ -40,3 +40,21 @@ describe('designRun with random generator version 1', () => {
     expect(r.design.settings.rngVersion).toBe(1);
   });
 });
+
+describe('designRun with random generator version 2', () => {
+  it('makes the plots of plan-two-parts-shared-edge exactly as the reviewed fixture held them before version 3', () => {
+    // Plot ids and positions of fixtures/plan/out/plan-two-parts-shared-edge.geojson as reviewed and
+    // committed with generator version 2 (points drawn from each stratum's triangles).
+    const before: [string, number, number][] = [
+      ['HEA-01', 117.902025, -35.0197639], ['HEA-02', 117.9015985, -35.0190551], ['HEA-03', 117.9002486, -35.0190608],
+      ['HEA-04', 117.9012681, -35.0191418], ['HEA-05', 117.9007166, -35.0187171], ['HEA-06', 117.9029563, -35.019506],
+      ['HEA-07', 117.9005489, -35.0198677], ['HEA-08', 117.9030812, -35.0197946], ['HEA-09', 117.9022498, -35.0188446],
+      ['HEA-10', 117.9016332, -35.0198863], ['HEA-11', 117.9013507, -35.0187841], ['HEA-12', 117.9026974, -35.0193554],
+      ['HEA-R1', 117.9010248, -35.0189271], ['HEA-R2', 117.9025008, -35.0198862],
+    ];
+    const input = JSON.parse(inputs['../fixtures/plan/in/plan-two-parts-shared-edge.geojson']) as FeatureCollection & { options: Partial<DesignSettings> };
+    const r = designRun(planFixtureSite(input), { ...designSettingsDefault(input.options), rngVersion: 2 });
+    expect(r.features.map((f) => [f.properties.plot_id, f.properties.lon, f.properties.lat])).toEqual(before);
+    expect(r.design.settings.rngVersion).toBe(2);
+  });
+});

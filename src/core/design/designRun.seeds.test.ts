@@ -42,14 +42,15 @@ function patchCounts(seeds: number, version: RngVersion): number[] {
 }
 
 describe('designRun over consecutive seeds', () => {
-  it('puts primaries in the two Dune grassland patches in proportion to their areas, independently from seed to seed', () => {
+  // Version 2 draws from each stratum's triangles, version 3 from a grid of cells over it.
+  it.each([2, 3] as const)('puts primaries in the two Dune grassland patches in proportion to their areas, independently from seed to seed (generator version %i)', (version) => {
     expect(dune.geometry.coordinates.map((p) => p.length)).toEqual([1, 1]);
     const [a, b] = dune.geometry.coordinates.map((p) => areaM2(p[0]));
     const p = a / (a + b);
     // GeographicLib areas 137 049.714 and 59 868.410 m²: the first patch holds 69.60 % of the stratum.
     expect(p).toBeCloseTo(0.69597, 5);
     const seeds = 1000;
-    const counts = patchCounts(seeds, 2);
+    const counts = patchCounts(seeds, version);
     const n = 10;
     const inFirst = counts.reduce((s, x) => s + x, 0);
     const total = seeds * n;
@@ -65,7 +66,7 @@ describe('designRun over consecutive seeds', () => {
     // Neighbouring seeds: the count of seed s and of seed s + 1 uncorrelated (|r| < 3.291/√399, p = 0.001).
     const r = jStat.corrcoeff(counts.slice(0, -1), counts.slice(1));
     console.log(
-      `Dune grassland, ${seeds} consecutive seeds × ${n} plots: ${((100 * inFirst) / total).toFixed(2)} % in the patch of ${(100 * p).toFixed(2)} % of the area; pooled χ² ${pooled.toFixed(2)} (1 df), spread χ² ${spread.toFixed(1)} (${seeds} df), lag-1 r ${r.toFixed(3)}`,
+      `Dune grassland, generator version ${version}, ${seeds} consecutive seeds × ${n} plots: ${((100 * inFirst) / total).toFixed(2)} % in the patch of ${(100 * p).toFixed(2)} % of the area; pooled χ² ${pooled.toFixed(2)} (1 df), spread χ² ${spread.toFixed(1)} (${seeds} df), lag-1 r ${r.toFixed(3)}`,
     );
     expect(Math.abs(r)).toBeLessThan(3.291 / Math.sqrt(seeds - 1));
   });
@@ -78,8 +79,11 @@ describe('designRun over consecutive seeds', () => {
     const again = designRun(site, { ...designSettingsDefault({ plots: 3, minPerStratum: 0, seed: 7 }), rngVersion: undefined });
     expect(again.features).toEqual(r.features);
     const current = designRun(site, designSettingsDefault({ plots: 3, minPerStratum: 0, seed: 7 }));
-    expect(current.design.settings.rngVersion).toBe(2);
+    expect(current.design.settings.rngVersion).toBe(3);
     expect(current.design.warnings).toEqual([]);
-    expect(current.design.statements.join(' ')).toMatch(/Seed 7, random generator version 2 \(seed expanded by splitmix64/);
+    expect(current.design.statements.join(' ')).toMatch(/Seed 7, random generator version 3 \(seed expanded by splitmix64.*grid of cells/);
+    const two = designRun(site, designSettingsDefault({ plots: 3, minPerStratum: 0, seed: 7, rngVersion: 2 }));
+    expect(two.design.warnings).toEqual([]);
+    expect(two.design.statements.join(' ')).toMatch(/Seed 7, random generator version 2 \(seed expanded by splitmix64[^;]*\)/);
   });
 });

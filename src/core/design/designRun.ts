@@ -5,11 +5,12 @@ import { designSettingsCheck } from './designSettingsCheck';
 import { designCapacityCheck, designSizeCheck, placementPolygonsCheck } from './designSizeCheck';
 import { designUsableAreas } from './designUsableAreas';
 import type { PartAreas } from './partAreas';
-import type { StratumTrianglesXY } from './place/stratumTrianglesXY';
+import type { StratumOutlineXY } from './place/stratumOutlineXY';
 import { designStatements } from './designStatements';
-import type { AllocationRow, DesignSettings, PlotCollection } from '../model/designTypes';
+import type { AllocationRow, DesignSettings, PlotCollection, RngVersion } from '../model/designTypes';
 import { InputError } from '../common/InputError';
 import { type PlacementConstraints, placementConstraintsBuild } from './place/placementConstraints';
+import type { StratumSampling } from './place/placementStrata';
 import { plotIdsFor } from './place/plotIds';
 import { plotRecord } from './plotRecord';
 import { rngStreams, rngVersionOf, rngVersionText } from './place/rngStreams';
@@ -31,10 +32,15 @@ export interface DesignRunOptions {
   made?: DesignStagesMade;
 }
 
-/** Stages of a design that depend on the site only, made ahead: each part's areas and each stratum's triangles. */
+/** How a design made with generator `version` samples and tests its strata (see RngVersion). */
+export function designSampling(version: RngVersion): StratumSampling {
+  return version >= 3 ? 'cells' : 'triangles';
+}
+
+/** Stages of a design that depend on the site only, made ahead: each part's areas and each stratum's outline (with its triangles where the design samples by them). */
 export interface DesignStagesMade {
   partAreas: readonly PartAreas[];
-  strata: readonly StratumTrianglesXY[];
+  strata: readonly StratumOutlineXY[];
 }
 
 /** What the allocation step gives placement: plots per stratum (random and balanced designs), weights for a shortfall, and what to tell the user. */
@@ -139,7 +145,9 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const progress = options.onProgress ?? (() => {});
   if (site.strata.length === 0) throw new InputError('the site has no strata');
   designSizeCheck(settings, site.strata.length);
-  placementPolygonsCheck(site);
+  const rngVersion = rngVersionOf(settings);
+  // Only placement from triangles (generator versions 1 and 2) needs polygons small enough to triangulate.
+  if (designSampling(rngVersion) === 'triangles') placementPolygonsCheck(site);
   progress(0, 'areas');
   const frame = siteLocalFrame(site.parts);
   const keys = site.strata.map((s) => s.key);
@@ -155,9 +163,13 @@ export function designRun(site: Site, settings: DesignSettings, options: DesignR
   const warnings: string[] = [...areas.warnings, ...shares.warnings];
   const extraStatements = shares.statements;
   progress(0.3, 'placing');
-  const constraints = placementConstraintsBuild(site, frame, { footprint: settings.footprint, edgeBufferM: settings.edgeBufferM, strataMade: made?.strata });
+  const constraints = placementConstraintsBuild(site, frame, {
+    footprint: settings.footprint,
+    edgeBufferM: settings.edgeBufferM,
+    strataMade: made?.strata,
+    sampling: designSampling(rngVersion),
+  });
   if (allocation) designCapacityCheck(constraints, settings.spacingM, allocation.plots, settings.reservePerStratum);
-  const rngVersion = rngVersionOf(settings);
   const streams = rngStreams(settings.seed, rngVersion);
   let ticks = 0;
   const placement = designPlace(constraints, settings, {

@@ -34,8 +34,8 @@ export function designSettingsFieldsCheck(s: Partial<DesignSettings>): void {
   if (s.seed !== undefined && !(Number.isInteger(s.seed) && s.seed >= 0 && s.seed <= SEED_MAX)) {
     throw new InputError(`seed must be a whole number from 0 to ${SEED_MAX}, got ${s.seed}`);
   }
-  if (s.rngVersion !== undefined && s.rngVersion !== 1 && s.rngVersion !== 2) {
-    throw new InputError(`random generator version must be 1 or 2, got ${String(s.rngVersion)}`);
+  if (s.rngVersion !== undefined && s.rngVersion !== 1 && s.rngVersion !== 2 && s.rngVersion !== 3) {
+    throw new InputError(`random generator version must be 1, 2 or 3, got ${String(s.rngVersion)}`);
   }
   if (s.gridAngleDeg !== undefined && !Number.isFinite(s.gridAngleDeg)) throw new InputError(`grid angle must be a number of degrees, got ${s.gridAngleDeg}`);
   for (const [key, v] of Object.entries(s.sd ?? {})) nonNegative(v, `pilot standard deviation of stratum "${key}"`);

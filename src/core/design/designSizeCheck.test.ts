@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designSettingsDefault } from './designSettingsDefault';
-import { designSizeCheck, placementPolygonsCheck, stratumCapacityBound } from './designSizeCheck';
+import { designRun } from './designRun';
+import { designSizeCheck, placementPolygonOver, placementPolygonsCheck, stratumCapacityBound } from './designSizeCheck';
 import { localFrameAt } from '../geo/localFrame';
 import { placementConstraintsBuild } from './place/placementConstraints';
 import type { Site } from '../model/types';
@@ -44,5 +45,24 @@ describe('placementPolygonsCheck', () => {
       'stratum "Heath", feature 0: 200,001 vertices is more than placement triangulates in good time (its area is measured all the same); simplify the outline; stratplot\'s limit is 200,000 vertices per polygon in a design',
     );
     expect(() => placementPolygonsCheck(square)).not.toThrow();
+  });
+});
+
+describe('designs on a polygon over the triangulation limit', () => {
+  it('are made by generator version 3, which draws from a cell grid, and refused for version 2, which triangulates', () => {
+    // An invented wavy ring of 250 001 positions around a 1.1 km disc.
+    const n = 250_000;
+    const ring: number[][] = [];
+    for (let i = 0; i < n; i++) {
+      const t = (2 * Math.PI * i) / n;
+      const r = 0.006 * (1 + 0.05 * Math.sin(37 * t) + 0.01 * Math.sin(4001 * t));
+      ring.push([150.505 + (r * Math.cos(t)) / Math.cos((35.095 * Math.PI) / 180), -35.095 + r * Math.sin(t)]);
+    }
+    ring.push(ring[0]);
+    const big: Site = { ...square, parts: [{ id: 'p', stratum: 'Heath', geometry: { type: 'Polygon', coordinates: [ring] } }] };
+    expect(placementPolygonOver(big.parts)).toEqual({ part: 0, polygon: 0, polygons: 1, vertices: 250_001 });
+    const made = designRun(big, designSettingsDefault({ plots: 200, spacingM: 20, seed: 5, rngVersion: 3 }));
+    expect(made.features.filter((f) => f.properties.role === 'primary')).toHaveLength(200);
+    expect(() => designRun(big, designSettingsDefault({ plots: 200, spacingM: 20, seed: 5, rngVersion: 2 }))).toThrow(/250,001 vertices is more than placement triangulates/);
   });
 });

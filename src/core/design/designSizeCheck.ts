@@ -2,26 +2,35 @@ import type { DesignSettings } from '../model/designTypes';
 import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS, MAX_POLYGON_VERTICES } from '../common/inputLimits';
 import { InputError } from '../common/InputError';
 import type { PlacementConstraints } from './place/placementConstraints';
-import type { Site } from '../model/types';
+import type { Site, StratumPart } from '../model/types';
 
 /**
- * Refuses, before placement triangulates them, stratum polygons of more than
+ * Refuses, before placement triangulates them (generator versions 1 and 2), stratum polygons of more than
  * {@link MAX_POLYGON_VERTICES} vertices (shell and holes together).
  * Throws InputError naming the stratum feature, its vertex count and the limit.
  */
 export function placementPolygonsCheck(site: Site): void {
-  site.parts.forEach((part, i) => {
-    const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
-    polys.forEach((rings, k) => {
-      const n = rings.reduce((a, r) => a + r.length, 0);
-      if (n <= MAX_POLYGON_VERTICES) return;
-      throw limitExceeded(
-        `stratum "${part.stratum}", feature ${i}${polys.length > 1 ? `, polygon ${k}` : ''}`,
-        `${limitNumber(n)} vertices is more than placement triangulates in good time (its area is measured all the same); simplify the outline`,
-        `${limitNumber(MAX_POLYGON_VERTICES)} vertices per polygon in a design`,
-      );
-    });
-  });
+  const over = placementPolygonOver(site.parts);
+  if (!over) return;
+  const { part, polygon, polygons, vertices } = over;
+  throw limitExceeded(
+    `stratum "${site.parts[part].stratum}", feature ${part}${polygons > 1 ? `, polygon ${polygon}` : ''}`,
+    `${limitNumber(vertices)} vertices is more than placement triangulates in good time (its area is measured all the same); simplify the outline`,
+    `${limitNumber(MAX_POLYGON_VERTICES)} vertices per polygon in a design`,
+  );
+}
+
+/** The first stratum polygon of more than {@link MAX_POLYGON_VERTICES} vertices: its part, its index in the part, the part's polygon count and its vertices; null when there is none. */
+export function placementPolygonOver(parts: readonly StratumPart[]): { part: number; polygon: number; polygons: number; vertices: number } | null {
+  for (let i = 0; i < parts.length; i++) {
+    const g = parts[i].geometry;
+    const polys = g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
+    for (let k = 0; k < polys.length; k++) {
+      const vertices = polys[k].reduce((a, r) => a + r.length, 0);
+      if (vertices > MAX_POLYGON_VERTICES) return { part: i, polygon: k, polygons: polys.length, vertices };
+    }
+  }
+  return null;
 }
 
 /**
@@ -31,17 +40,18 @@ export function placementPolygonsCheck(site: Site): void {
  * Throws InputError naming the setting, what it comes to and the limit.
  */
 export function designSizeCheck(s: DesignSettings, strataCount: number): void {
-  const limit = `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`;
+  // Made only for a message: the first grouped number of a process loads the locale's data (tens of ms).
+  const limit = () => `${limitNumber(MAX_DESIGN_PLOTS)} plots in one design`;
   if (!s.targetHalfwidth && (s.method === 'random' || s.method === 'balanced') && s.plots > MAX_DESIGN_PLOTS) {
-    throw limitExceeded('number of plots', `${limitNumber(s.plots)} plots asked for`, limit);
+    throw limitExceeded('number of plots', `${limitNumber(s.plots)} plots asked for`, limit());
   }
   if (s.minPerStratum * strataCount > MAX_DESIGN_PLOTS) {
-    throw limitExceeded('minimum plots per stratum', `${limitNumber(s.minPerStratum)} in each of ${strataCount} strata make ${limitNumber(s.minPerStratum * strataCount)} plots`, limit);
+    throw limitExceeded('minimum plots per stratum', `${limitNumber(s.minPerStratum)} in each of ${strataCount} strata make ${limitNumber(s.minPerStratum * strataCount)} plots`, limit());
   }
   const reserves = s.reservePerStratum * strataCount;
   const primaries = s.method === 'random' || s.method === 'balanced' ? (s.targetHalfwidth ? 0 : s.plots) : 0;
   if (primaries + reserves > MAX_DESIGN_PLOTS) {
-    throw limitExceeded('reserve plots per stratum', `${limitNumber(s.reservePerStratum)} reserves in each of ${strataCount} strata${primaries ? ` and ${limitNumber(primaries)} primaries` : ''} make ${limitNumber(primaries + reserves)} plots`, limit);
+    throw limitExceeded('reserve plots per stratum', `${limitNumber(s.reservePerStratum)} reserves in each of ${strataCount} strata${primaries ? ` and ${limitNumber(primaries)} primaries` : ''} make ${limitNumber(primaries + reserves)} plots`, limit());
   }
 }
 
@@ -56,7 +66,7 @@ export function designSizeCheck(s: DesignSettings, strataCount: number): void {
 export function stratumCapacityBound(c: PlacementConstraints, i: number, spacingM: number): number {
   if (!(spacingM > 0)) return Number.POSITIVE_INFINITY;
   const st = c.strata[i];
-  const areaGrid = st.cumulativeArea.length > 0 ? st.cumulativeArea[st.cumulativeArea.length - 1] : 0;
+  const areaGrid = st.areaGrid;
   const e = st.edges;
   let perimeter = 0;
   for (let k = 0; k + 3 < e.length; k += 4) perimeter += Math.hypot(e[k + 2] - e[k], e[k + 3] - e[k + 1]);

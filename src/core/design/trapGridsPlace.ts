@@ -1,7 +1,7 @@
 import type { Feature, Point } from 'geojson';
 import { STRATPLOT_VERSION } from '../common/version';
 import { designSettingsDefault } from './designSettingsDefault';
-import type { AllocationRow, PlotCollection, PlotProperties } from '../model/designTypes';
+import type { AllocationRow, PlotCollection, PlotProperties, RngVersion } from '../model/designTypes';
 import { placementPolygonsCheck } from './designSizeCheck';
 import { limitExceeded, limitNumber, MAX_DESIGN_PLOTS } from '../common/inputLimits';
 import { InputError } from '../common/InputError';
@@ -10,7 +10,6 @@ import { footprintShapeXY } from './place/placementFootprint';
 import { plotRecord } from './plotRecord';
 import { plotsPlaceRandom } from './place/plotsPlaceRandom';
 import { polygonAreaM2 } from '../geo/polygonAreaM2';
-import { RNG_VERSION_CURRENT } from './place/rng';
 import { rngStreams, rngVersionText } from './place/rngStreams';
 import { convexSegmentDistance } from '../geometry/segmentDistance';
 import { siteLocalFrame } from '../geo/siteLocalFrame';
@@ -150,6 +149,12 @@ function trapGridSeparation(outline: { vx: Float64Array; vy: Float64Array }, cel
  *   separation that is not a number ≥ 0, an unknown stratum key in `gridsPerStratum`, or more
  *   stations in all than MAX_DESIGN_PLOTS
  */
+/**
+ * The generator version of trap-grid layouts: grid centres are drawn from each stratum's triangles
+ * as they were when version 2 was current, so a seed keeps giving the same layout.
+ */
+const TRAP_GRID_RNG_VERSION: RngVersion = 2;
+
 export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLayout {
   const { rows, cols, spacingM, minSeparationM } = options;
   trapGridOptionsCheck(site, options);
@@ -171,7 +176,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   // separation, so a hash of that cell size looks at 3 × 3 neighbouring cells only.
   const separation = trapGridSeparation(outline, Math.hypot(widthM, heightM) * c.scale + sepGrid + 1e-6, sepGrid);
 
-  const streams = rngStreams(options.seed, RNG_VERSION_CURRENT);
+  const streams = rngStreams(options.seed, TRAP_GRID_RNG_VERSION);
   const maxTries = options.maxTriesPerGrid ?? 4000;
   const features: Feature<Point, PlotProperties>[] = [];
   const grids: TrapGrid[] = [];
@@ -233,7 +238,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
   }
   const statements = [
     `Each grid is ${rows} × ${cols} stations ${spacingM} m apart, rows running ${angleDeg === 0 ? 'true east–west' : `${angleDeg}° clockwise from true east`}; the whole grid outline lies inside its stratum${edgeBufferM > 0 ? ` at least ${edgeBufferM} m from its edge` : ''}, clear of every buffered exclusion, and at least ${minSeparationM} m from every other grid.`,
-    `Grid centres drawn at random over each stratum, seed ${options.seed}, ${rngVersionText(RNG_VERSION_CURRENT)}.`,
+    `Grid centres drawn at random over each stratum, seed ${options.seed}, ${rngVersionText(TRAP_GRID_RNG_VERSION)}.`,
     'Station densities and stratum shares use the usable area: the mapped area less every exclusion widened by its buffer.',
     ...TRAP_GRID_CAUTIONS,
   ];
@@ -247,7 +252,7 @@ export function trapGridsPlace(site: Site, options: TrapGridOptions): TrapGridLa
     reserve: 0,
     capacity: null,
   }));
-  const settings = designSettingsDefault({ plots: features.length, seed: options.seed, edgeBufferM, spacingM, reservePerStratum: 0 });
+  const settings = designSettingsDefault({ plots: features.length, seed: options.seed, edgeBufferM, spacingM, reservePerStratum: 0, rngVersion: TRAP_GRID_RNG_VERSION });
   return {
     type: 'FeatureCollection',
     features,

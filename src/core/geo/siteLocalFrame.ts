@@ -73,6 +73,18 @@ export function siteLongitudeUnwrap(parts: readonly StratumPart[]): (lon: number
  * large for one UTM frame (naming its reach and the limit).
  */
 export function siteLocalFrame(parts: readonly StratumPart[]): LocalFrame {
+  // A site's parts array is never changed in place (edits make a new one), and each stage of a
+  // design asks for the frame again: one pass over a million vertices is enough.
+  const known = framesMade.get(parts);
+  if (known) return known;
+  const frame = siteLocalFrameMake(parts);
+  framesMade.set(parts, frame);
+  return frame;
+}
+
+const framesMade = new WeakMap<readonly StratumPart[], LocalFrame>();
+
+function siteLocalFrameMake(parts: readonly StratumPart[]): LocalFrame {
   let minLon = Infinity;
   let minLat = Infinity;
   let maxLon = -Infinity;

@@ -9,8 +9,10 @@ export type ResultKind = (typeof RESULT_KINDS)[number];
  * Which random streams made a design. 1: one xoroshiro128+ stream seeded almost directly by the seed
  * (designs made before the version was recorded; neighbouring seeds give correlated designs).
  * 2: the seed expanded by splitmix64, with a separate, named stream for each stratum and method.
+ * 3: the streams of version 2, with random plots drawn from a grid of cells over each stratum and
+ * points tested against the cells, instead of the stratum's triangles (no triangulation).
  */
-export type RngVersion = 1 | 2;
+export type RngVersion = 1 | 2 | 3;
 
 /** A plot's footprint on the ground, in metres; angles clockwise from true north. */
 export type Footprint =

@@ -39,8 +39,8 @@ describe('designReportPdf', () => {
       for (const name of Object.values(FIELD_KIT_RENAMED)) expect(text).toContain(name);
       expect(text).toContain(hash);
       expect(text).toContain('20260315');
-      expect(text).toContain('seed 20260315, generator version 2');
-      expect(text).toContain('random generator version 2 (seed expanded by splitmix64');
+      expect(text).toContain('seed 20260315, generator version 3');
+      expect(text).toContain('random generator version 3 (seed expanded by splitmix64');
       expect(text).toContain(INFERENCE_STATEMENT.slice(0, 60));
       expect(text).toContain('Total cover % by stratum (invented numbers)');
       expect(text).toContain('41.2');

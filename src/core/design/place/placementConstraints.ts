@@ -2,8 +2,8 @@ import Flatbush from 'flatbush';
 import type { Footprint } from '../../model/designTypes';
 import type { LocalFrame } from '../../geo/localFrame';
 import { footprintShapeXY, type FootprintXY } from './placementFootprint';
-import { EDGE_CHUNK, type StratumShapeXY, stratumShapesXY } from './placementStrata';
-import type { StratumTrianglesXY } from './stratumTrianglesXY';
+import { EDGE_CHUNK, type StratumSampling, type StratumShapeXY, stratumShapesXY } from './placementStrata';
+import type { StratumOutlineXY } from './stratumOutlineXY';
 import { convexSegmentDistance, isInRingFlat, pointSegmentDistance } from '../../geometry/segmentDistance';
 import type { ExclusionGeometry, ExclusionKind, LonLat, Site } from '../../model/types';
 
@@ -19,8 +19,10 @@ export interface PlacementConstraintOptions {
   footprint: Footprint;
   /** Ground metres the footprint must keep from its stratum's boundary (0: may not cross it). */
   edgeBufferM: number;
-  /** Every stratum's triangles and boundary, in site order, where another thread has made them for this site and frame. */
-  strataMade?: readonly StratumTrianglesXY[];
+  /** Every stratum's outline (with its triangles, where made), in site order, where another thread has made them for this site and frame. */
+  strataMade?: readonly StratumOutlineXY[];
+  /** How strata are sampled and tested (placementStrata): by triangles (the default) or by cells. */
+  sampling?: StratumSampling;
 }
 
 /** The site prepared for placement: strata, exclusions and the footprint, all in frame metres. */
@@ -226,7 +228,7 @@ function exclusionsFlatXY(site: Site, frame: LocalFrame, scale: number) {
  * Sources: planar distances (O'Rourke 1998, §1.5); scale factor (Snyder 1987, eq. 8-11).
  */
 export function placementConstraintsBuild(site: Site, frame: LocalFrame, options: PlacementConstraintOptions): PlacementConstraints {
-  const strata = stratumShapesXY(site, frame, options.strataMade);
+  const strata = stratumShapesXY(site, frame, options.strataMade, options.sampling);
   const { scale, convergenceDeg, lat0 } = gridScaleAt(strata, frame);
   const footprint = footprintShapeXY(options.footprint, scale, convergenceDeg);
   const edgeGrid = options.edgeBufferM * scale;

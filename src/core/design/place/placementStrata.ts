@@ -1,14 +1,27 @@
 import Flatbush from 'flatbush';
 import type { LocalFrame } from '../../geo/localFrame';
 import type { Site } from '../../model/types';
-import { type StratumTrianglesXY, stratumTrianglesXY } from './stratumTrianglesXY';
+import { type StratumCellsXY, stratumCellsContain, stratumCellsXY } from './stratumCellsXY';
+import { type StratumOutlineXY, stratumOutlineXY } from './stratumOutlineXY';
+import { type StratumTriangles, type StratumTrianglesXY, stratumTriangulate } from './stratumTrianglesXY';
+
+/**
+ * How placement draws and tests points of a stratum: from its earcut triangles (random generator
+ * versions 1 and 2) or from its cell grid (version 3 on), which needs no triangulation.
+ */
+export type StratumSampling = 'triangles' | 'cells';
 
 /** One stratum in frame metres, ready for sampling and containment tests. */
-export interface StratumShapeXY extends StratumTrianglesXY {
+export interface StratumShapeXY extends StratumOutlineXY, StratumTriangles {
   key: string;
   /** Index of runs of {@link EDGE_CHUNK} consecutive segments of `edges` (item k: segments k·EDGE_CHUNK …). */
   edgeIndex: Flatbush | null;
-  /** Whether a point lies in the stratum (not in a hole), by a triangle index built on first use. */
+  /** The stratum's cell grid (stratumCellsXY), made on first use. */
+  cells(): StratumCellsXY;
+  /**
+   * Whether a point lies in the stratum (not in a hole): by a triangle index built on first use,
+   * or with cell sampling by the cell grid.
+   */
   contains(x: number, y: number): boolean;
 }
 
@@ -21,14 +34,19 @@ export function stratumPolygons(site: Site, key: string) {
 }
 
 /**
- * Every stratum of the site in frame metres, in site order: its triangles and boundary
- * (stratumTrianglesXY, or `made` where another thread has made them for this site and frame),
- * boundary segments in a flatbush index, and a point-in-stratum test.
+ * Every stratum of the site in frame metres, in site order: its outline (stratumOutlineXY, or
+ * `made` where another thread has made it, triangles and all, for this site and frame), boundary
+ * segments in a flatbush index, and a point-in-stratum test. Triangles and the cell grid are made
+ * when first asked for, so a design that samples by cells never triangulates.
  */
-export function stratumShapesXY(site: Site, frame: LocalFrame, made?: readonly StratumTrianglesXY[]): StratumShapeXY[] {
+export function stratumShapesXY(site: Site, frame: LocalFrame, made?: readonly (StratumOutlineXY | StratumTrianglesXY)[], sampling: StratumSampling = 'triangles'): StratumShapeXY[] {
   return site.strata.map((info, i) => {
-    const { bbox, triangles, cumulativeArea, edges: seg } = made?.[i] ?? stratumTrianglesXY(stratumPolygons(site, info.key), frame);
-    const nt = triangles.length / 6;
+    const outline = made?.[i] ?? stratumOutlineXY(stratumPolygons(site, info.key), frame);
+    const { bbox, edges: seg } = outline;
+    let triangulated: StratumTriangles | null = 'triangles' in outline ? (outline as StratumTrianglesXY) : null;
+    const triangulation = () => (triangulated ??= stratumTriangulate(outline));
+    let grid: StratumCellsXY | null = null;
+    const cells = () => (grid ??= stratumCellsXY(bbox, seg));
     const ns = seg.length / 4;
     // Runs of EDGE_CHUNK consecutive segments share one index box: far fewer boxes to sort and search.
     const chunks = Math.ceil(ns / EDGE_CHUNK);
@@ -52,7 +70,9 @@ export function stratumShapesXY(site: Site, frame: LocalFrame, made?: readonly S
       edgeIndex.finish();
     }
     let triIndex: Flatbush | null = null;
-    const contains = (x: number, y: number): boolean => {
+    const containsByTriangles = (x: number, y: number): boolean => {
+      const { triangles } = triangulation();
+      const nt = triangles.length / 6;
       if (nt === 0 || x < bbox[0] || x > bbox[2] || y < bbox[1] || y > bbox[3]) return false;
       if (!triIndex) {
         triIndex = new Flatbush(nt);
@@ -69,7 +89,26 @@ export function stratumShapesXY(site: Site, frame: LocalFrame, made?: readonly S
       }
       return triIndex.collides(x, y, x, y, (t) => isInTriangle(triangles, t * 6, x, y));
     };
-    return { key: info.key, bbox, triangles, cumulativeArea, edges: seg, edgeIndex, contains };
+    const containsByCells = (x: number, y: number): boolean => stratumCellsContain(cells(), seg, x, y);
+    return {
+      key: info.key,
+      bbox,
+      edges: seg,
+      areaGrid: outline.areaGrid,
+      coords: outline.coords,
+      polygonStarts: outline.polygonStarts,
+      holeStarts: outline.holeStarts,
+      polygonHoles: outline.polygonHoles,
+      get triangles() {
+        return triangulation().triangles;
+      },
+      get cumulativeArea() {
+        return triangulation().cumulativeArea;
+      },
+      edgeIndex,
+      cells,
+      contains: sampling === 'cells' ? containsByCells : containsByTriangles,
+    };
   });
 }
 

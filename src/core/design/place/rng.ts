@@ -14,7 +14,7 @@ export interface Rng {
 
 
 /** The generator version new designs use. */
-export const RNG_VERSION_CURRENT: RngVersion = 2;
+export const RNG_VERSION_CURRENT: RngVersion = 3;
 
 const TWO_POW_32 = 4294967296;
 const SCALE_53 = 2 ** -53;
