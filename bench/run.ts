@@ -8,6 +8,7 @@ import geodesic from 'geographiclib-geodesic';
 import type { Feature, LineString, Point, Polygon } from 'geojson';
 import { designPlace } from '../src/core/design/designPlace';
 import { designUsableAreas } from '../src/core/design/designUsableAreas';
+import { designSampling } from '../src/core/design/designRun';
 import { designSettingsDefault } from '../src/core/design/designSettingsDefault';
 import { geodesicRingAreaM2 } from '../src/core/geo/geodesicRingAreaM2';
 import { placementConstraintsBuild } from '../src/core/design/place/placementConstraints';
@@ -18,6 +19,7 @@ import { polygonSelfIntersections } from '../src/core/geometry/polygonSelfInters
 import { siteValidate } from '../src/core/site/siteValidate';
 import { stratumUsableRegion } from '../src/core/site/stratumUsableRegion';
 import { utmForwardArray } from '../src/core/geo/utmForwardArray';
+import type { RngVersion } from '../src/core/model/designTypes';
 import type { Site } from '../src/core/model/types';
 import { exclusionsFromFeatures } from '../src/io/site/exclusionsFromFeatures';
 import { strataFromFeatures } from '../src/io/site/strataFromFeatures';
@@ -48,13 +50,13 @@ function siteOf(s: BenchSite): Site {
 }
 
 /** The engine's placement: constraint indexes, then sequential inhibition with a grid hash. */
-function enginePlace(site: Site, plots: number, spacingM: number, sideM: number, seed: number): number {
+function enginePlace(site: Site, plots: number, spacingM: number, sideM: number, seed: number, version: RngVersion = RNG_VERSION_CURRENT): number {
   const frame = siteLocalFrame(site.parts);
-  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'square', sideM, angleDeg: 0 }, edgeBufferM: 0 });
+  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'square', sideM, angleDeg: 0 }, edgeBufferM: 0, sampling: designSampling(version) });
   const h = site.strata.length;
   const wanted = site.strata.map((_, i) => Math.floor(plots / h) + (i < plots % h ? 1 : 0));
   const settings = designSettingsDefault({ plots, spacingM, footprint: { shape: 'square', sideM, angleDeg: 0 }, seed });
-  const p = designPlace(c, settings, { wanted, weights: wanted, basisM2: wanted, streams: rngStreams(seed, RNG_VERSION_CURRENT) });
+  const p = designPlace(c, settings, { wanted, weights: wanted, basisM2: wanted, streams: rngStreams(seed, version) });
   for (let i = 0; i < p.placed.x.length; i++) sink += p.placed.x[i] * 1e-9;
   return p.placed.x.length;
 }
@@ -229,7 +231,7 @@ const ours = measure('stars-100k/placement', () => enginePlace(smallSite, 2000, 
 const naive = measure('stars-100k/placement-straightforward', () => naivePlace(small, 2000, 20, 1), Math.min(RUNS, 3), () => naivePlace(small, 50, 20, 99));
 record.ratios['stars-100k/placement'] = naive.medianMs / ours.medianMs;
 console.log(`\nstars, 100k vertices, ${small.strata.features.length} polygons, 300 exclusions, 2 000 plots at 20 m spacing:`);
-console.log(`  engine (flatbush + earcut + grid hash, 10 m square footprint): ${fmt(ours)}, ${ours.value} plots`);
+console.log(`  engine (flatbush + cell grid + spacing hash, 10 m square footprint): ${fmt(ours)}, ${ours.value} plots`);
 console.log(`  straightforward (bbox points, turf tests against everything, points only): ${fmt(naive)}, ${naive.value} plots`);
 console.log(`  ratio: ${(naive.medianMs / ours.medianMs).toFixed(1)}x (target ≥ 50x)`);
 
@@ -301,6 +303,13 @@ for (const size of MOSAIC_SIZES) {
   const a = measure(`${label}/areas`, () => designUsableAreas(mSite, mFrame).usable.length);
   const p = measure(`${label}/placement`, () => enginePlace(mSite, plots, 20, 10, 1));
   console.log(`  in process: siteValidate ${fmt(v)} (of which overlap check ${fmt(ov)}), mapped + usable areas ${fmt(a)}, indexes + placement ${fmt(p)} (${p.value} plots)`);
+  // The sampler of generator version 2 (earcut triangles of every stratum) beside version 3's cell grid
+  // (not at 5 000 000 vertices, where triangulating takes minutes).
+  if (size <= 1_000_000) {
+    const p2 = measure(`${label}/placement-triangles`, () => enginePlace(mSite, plots, 20, 10, 1, 2), Math.min(RUNS, 3));
+    record.ratios[`${label}/placement-cells`] = p2.medianMs / p.medianMs;
+    console.log(`  placement from triangles (generator version 2) ${fmt(p2)}: the cell grid is ${(p2.medianMs / p.medianMs).toFixed(1)}x faster`);
+  }
   mosaicStages.push(v.medianMs + a.medianMs + p.medianMs);
   if (size === 100_000) {
     const ref = measure(`${label}/overlaps-clipping-every-pair`, () => strataOverlapsByClipping(mSite.parts).length, Math.min(RUNS, 3));

@@ -10,6 +10,7 @@ import type { Site } from '../../model/types';
 
 // An invented stratum in frame metres: a 14-pointed star with a hole near its middle, and a small
 // second patch 300 m east of it (a MultiPolygon), so bins see concave edges, a hole and a gap.
+// The checks and their sources are listed in docs/references.md §8.
 const frame = localFrameAt(117.9, -35.02);
 const [e0, n0] = frame.toXY(117.9, -35.02);
 const star: [number, number][] = [];

@@ -29,7 +29,7 @@ describe('stratumCellsXY', () => {
     expect(outline.edges.length / 4).toBe(ringSegments - 2 * (shared.length - 1));
   });
 
-  it('says inside or outside as turf booleanPointInPolygon (7.2) does, for 20 000 random points over the box and near the edges', () => {
+  it('says inside or outside as turf booleanPointInPolygon (7.4, docs/references.md §8) does, for 20 000 random points over the box and near the edges', () => {
     const rng = rngCreate(11);
     const [x0, y0, x1, y1] = outline.bbox;
     let disagree = 0;
