@@ -80,9 +80,9 @@ export const DESIGN_SIZING_SCENARIO = {
     const statements = (await page.locator('ul.statements').textContent()) ?? '';
     check(statements.includes('Budget: 60 less a fixed overhead of 12 leaves 48 for plots'), 'the budget statement is missing');
     check(statements.includes(`Expected precision at n = ${n} from the pilot SDs`), 'the expected precision statement is missing');
-    check(/Seed 11, random generator version 2/.test(statements), 'the seed line does not name generator version 2');
+    check(/Seed 11, random generator version 3/.test(statements), 'the seed line does not name generator version 3');
     const seedLine = (await page.locator('.allocation p.fine').first().textContent()) ?? '';
-    check(seedLine.includes('Seed 11, random generator version 2'), `the seed line reads "${seedLine}"`);
+    check(seedLine.includes('Seed 11, random generator version 3'), `the seed line reads "${seedLine}"`);
     await page.locator('ul.statements').scrollIntoViewIfNeeded();
     await shot('design-sizing-result');
   },
