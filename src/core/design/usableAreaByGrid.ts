@@ -15,9 +15,10 @@ const MAX_POINTS = 2_000_000;
  * @param mappedM2 the part's ellipsoidal area
  */
 export function usableAreaByGrid(site: Site, frame: LocalFrame, mappedM2: number): { areaM2: number; errorM2: number } {
-  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'point' }, edgeBufferM: 0 });
+  // By cells, not triangles: this fallback must not triangulate a polygon too large for earcut.
+  const c = placementConstraintsBuild(site, frame, { footprint: { shape: 'point' }, edgeBufferM: 0, sampling: 'cells' });
   const st = c.strata[0];
-  const gridArea = st.cumulativeArea.length ? st.cumulativeArea[st.cumulativeArea.length - 1] : 0;
+  const gridArea = st.areaGrid;
   if (!(gridArea > 0)) return { areaM2: 0, errorM2: 0 };
   const boxes: [number, number, number, number][] = [];
   let outline = 0;
