@@ -34,6 +34,8 @@ describe('designStagesAhead (the second thread of stratplot plan)', () => {
     const ahead = designStagesAhead(sampling, 2, pathToFileURL(join(root, 'dist-cli/designStagesWorker.mjs')));
     expect(ahead).not.toBeNull();
     ahead!.strataRead(site.strata, site.parts);
+    // Handed over before the site is checked, as stratplot plan does: the other thread may take part jobs at once.
+    ahead!.exclusionsRead(site.exclusions);
     // Time for the worker to start and take the stratum jobs before this thread joins.
     await new Promise((resolve) => setTimeout(resolve, 1500));
     const got = await ahead!.finish(site);
@@ -58,6 +60,15 @@ describe('designStagesAhead (the second thread of stratplot plan)', () => {
     expect(designStagesAhead('cells', 1)).toBeNull();
     expect(designStagesAhead('cells', 2, pathToFileURL(join(tmpdir(), 'no-such-worker.mjs')))).toBeNull();
   });
+
+  it('gives null rather than part areas measured against another list of exclusions than the site has', async () => {
+    const site = demoSite();
+    const ahead = designStagesAhead('cells', 2, pathToFileURL(join(root, 'dist-cli/designStagesWorker.mjs')));
+    ahead!.strataRead(site.strata, site.parts);
+    ahead!.exclusionsRead(site.exclusions.slice(1));
+    expect(await ahead!.finish(site)).toBeNull();
+    ahead!.stop();
+  }, 60_000);
 
   it('leaves the design byte for byte as one thread makes it (whole command, bundled)', () => {
     const bundle = join(root, 'dist-cli/stratplot.mjs');

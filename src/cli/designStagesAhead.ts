@@ -9,7 +9,7 @@ import { type StratumSampling, stratumPolygons } from '../core/design/place/plac
 import type { StratumOutlineXY } from '../core/design/place/stratumOutlineXY';
 import { stratumMade } from './stratumMade';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
-import type { Site, StratumInfo, StratumPart } from '../core/model/types';
+import type { Exclusion, Site, StratumInfo, StratumPart } from '../core/model/types';
 import { jobsTake } from './jobsTake';
 import { stratumPartsPack } from './stratumPartsPacked';
 
@@ -18,8 +18,14 @@ export interface DesignStagesAhead {
   /** Hands over the strata as soon as they are read, before they are checked. */
   strataRead(strata: readonly StratumInfo[], parts: readonly StratumPart[]): void;
   /**
-   * Hands over the exclusions of the checked site, takes a share of the jobs in this thread, and
-   * waits for the other thread's; null when the two cannot together make every stage (the design
+   * Hands over the exclusions as soon as every exclusion file is read, before anything is checked,
+   * so the other thread measures part areas while this one checks the map. `finish` must get a site
+   * with this very list, or it gives null.
+   */
+  exclusionsRead(exclusions: readonly Exclusion[]): void;
+  /**
+   * Hands over the exclusions of the checked site (unless exclusionsRead already has), takes a
+   * share of the jobs in this thread, and waits for the other thread's; null when the two cannot together make every stage (the design
    * then makes them itself, and reports any error as it always does).
    */
   finish(site: Site): Promise<{ made: DesignStagesMade; otherThreadJobs: number } | null>;
@@ -44,7 +50,8 @@ export function designThreads(env: NodeJS.ProcessEnv = process.env): 1 | 2 {
  * Work is shared by two counters in shared memory, one for stratum jobs (each stratum's outline,
  * and its triangles where the design samples by them: stratumMade) and one for part jobs (each part's areas, partAreasMeasurer): each thread
  * takes the next job until none is left, so neither waits on a slow share. The main thread joins
- * once it has checked the map. Each job is the same code on the same numbers in either thread,
+ * once it has checked the map; the exclusions come over as soon as they are read, so the other
+ * thread measures part areas during that check. Each job is the same code on the same numbers in either thread,
  * so the design is byte for byte the one a single thread makes (tested).
  */
 export function designStagesAhead(
@@ -83,6 +90,7 @@ export function designStagesAhead(
     return replies.shift() ?? null;
   };
   let sent = false;
+  let sentExclusions: readonly Exclusion[] | null = null;
   return {
     strataRead(strata, parts) {
       // The design will refuse such a polygon; triangulating it first would only keep the refusal waiting.
@@ -96,10 +104,17 @@ export function designStagesAhead(
       ]);
       sent = true;
     },
+    exclusionsRead(exclusions) {
+      if (!sent || sentExclusions) return;
+      worker.postMessage({ kind: 'exclusions', exclusions });
+      sentExclusions = exclusions;
+    },
     async finish(site) {
       if (!sent) return null;
+      // The other thread's part areas would be measured against another list: make every stage here.
+      if (sentExclusions && sentExclusions !== site.exclusions) return null;
       try {
-        worker.postMessage({ kind: 'exclusions', exclusions: site.exclusions });
+        if (!sentExclusions) worker.postMessage({ kind: 'exclusions', exclusions: site.exclusions });
         const frame = siteLocalFrame(site.parts);
         const strata: (StratumOutlineXY | undefined)[] = new Array(site.strata.length);
         const partAreas: (PartAreas | undefined)[] = new Array(site.parts.length);

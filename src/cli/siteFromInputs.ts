@@ -25,6 +25,8 @@ export interface SiteInputs {
   imports?: ImportChoices;
   /** Called with the strata as soon as they are read, before they are checked (to start work in another thread). */
   onStrataRead?: (strata: readonly StratumInfo[], parts: readonly StratumPart[]) => void;
+  /** Called with the site's exclusions once every exclusion file is read, before any file is checked; the site gets this very list. */
+  onExclusionsRead?: (exclusions: readonly Exclusion[]) => void;
 }
 
 function failOn(file: string, problems: Problem[]): string[] {
@@ -57,15 +59,31 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   inputs.onStrataRead?.(strata, parts);
   if (inputs.name !== undefined) limitText(inputs.name.trim(), MAX_NAME_LENGTH, '--site-name', 'the site name');
   const empty: Site = { name: inputs.name?.trim() || basename(strataFile.name).replace(/\.[^.]+$/, ''), strata: [], parts: [], exclusions: [], access: [], boundary: null };
-  const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
-
-  const exclusions: Exclusion[] = [];
+  // Exclusion files are read before the strata are checked, so their areas can be measured in
+  // another thread during the check; a file that cannot be read is reported after the strata's own
+  // problems, in the order the files were named, as if read one after the other.
+  const exclusionFiles: ({ name: string; found: Exclusion[] } | { failure: unknown })[] = [];
   for (const path of inputs.exclude ?? []) {
-    const file = await load(path);
-    const found = exclusionsFromFeatures(file.fc, { fileName: file.name });
-    for (const w of failOn(file.name, siteValidate({ ...empty, exclusions: found }))) warnings.push(w);
+    try {
+      const file = await load(path);
+      exclusionFiles.push({ name: file.name, found: exclusionsFromFeatures(file.fc, { fileName: file.name }) });
+    } catch (failure) {
+      exclusionFiles.push({ failure });
+      break;
+    }
+  }
+  const exclusions: Exclusion[] = [];
+  for (const file of exclusionFiles) {
+    if ('failure' in file) break;
+    // An id an earlier file already gave is told apart by this file's name.
     const taken = new Set(exclusions.map((e) => e.id));
-    for (const e of found) exclusions.push(taken.has(e.id) ? { ...e, id: `${file.name}:${e.id}` } : e);
+    for (const e of file.found) exclusions.push(taken.has(e.id) ? { ...e, id: `${file.name}:${e.id}` } : e);
+  }
+  if (!exclusionFiles.some((f) => 'failure' in f)) inputs.onExclusionsRead?.(exclusions);
+  const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
+  for (const file of exclusionFiles) {
+    if ('failure' in file) throw file.failure;
+    for (const w of failOn(file.name, siteValidate({ ...empty, exclusions: file.found }))) warnings.push(w);
   }
   const access = [];
   for (const path of inputs.access ?? []) {

@@ -106,6 +106,16 @@ describe('stratplot plan', () => {
     expect(r.err).toMatch(/^stratplot plan: [^\n]*\.geojson: feature 0 [^\n]*\n$/);
   });
 
+  it('reports an error of the strata file itself before an exclusion file that cannot be read, and a missing exclusion file by name', async () => {
+    // Exclusion files are read before the strata are checked (for the second thread); the order of messages is unchanged.
+    const both = await cli(['plan', 'src/core/fixtures/in/bow-tie.geojson', '--exclude', 'no-such-exclusions.geojson', '--plots', '4', '--seed', '1']);
+    expect(both.code).toBe(2);
+    expect(both.err).toMatch(/^stratplot plan: [^\n]*bow-tie\.geojson: feature 0 [^\n]*\n$/);
+    const missing = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--exclude', 'demo-maps/ochre-spit-exclusions.geojson', '--exclude', 'no-such-exclusions.geojson', '--plots', '4', '--seed', '1']);
+    expect(missing.code).toBe(2);
+    expect(missing.err).toMatch(/^stratplot plan: [^\n]*no-such-exclusions\.geojson[^\n]*\n$/);
+  });
+
   it('sizes the design for a relative target half-width from pilot SDs: exactly the smallest n whose t interval meets it', async () => {
     const keys = ['Coastal heath', 'Dune grassland', 'Saltmarsh', 'Banksia scrub', 'Eucalypt woodland', 'Wet meadow'];
     const sd = keys.map((k) => `${k}=12`).join(',');

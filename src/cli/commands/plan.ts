@@ -179,6 +179,7 @@ async function planWith(ahead: DesignStagesAhead | null, o: PlanOptions, strataP
     name: o['site-name'],
     imports,
     onStrataRead: ahead ? (strata, parts) => ahead.strataRead(strata, parts) : undefined,
+    onExclusionsRead: ahead ? (exclusions) => ahead.exclusionsRead(exclusions) : undefined,
   });
   const { site } = loaded;
   const { strata } = site;
