@@ -7,6 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildCli } from '../../scripts/build-cli.mjs';
 import { partAreasMeasurer } from '../core/design/partAreas';
 import { stratumPolygons } from '../core/design/place/placementStrata';
+import { stratumCellsXY } from '../core/design/place/stratumCellsXY';
 import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
 import { siteLocalFrame } from '../core/geo/siteLocalFrame';
 import type { Site } from '../core/model/types';
@@ -48,9 +49,17 @@ describe('designStagesAhead (the second thread of stratplot plan)', () => {
       expect(two.bbox).toEqual(one.bbox);
       expect(two.areaGrid).toBe(one.areaGrid);
       for (const k of ['edges', 'coords', 'polygonStarts', 'holeStarts', 'polygonHoles'] as const) expect(bytesOf(two[k]!).equals(bytesOf(one[k]))).toBe(true);
-      // Triangles only where the design samples by them: a cell design never triangulates.
-      if (sampling === 'cells') expect(two.triangles).toBeUndefined();
-      else for (const k of ['triangles', 'cumulativeArea'] as const) expect(bytesOf(two[k]!).equals(bytesOf(one[k]))).toBe(true);
+      // Triangles only where the design samples by them: a cell design never triangulates, and gets its cell grid made.
+      if (sampling === 'cells') {
+        expect(two.triangles).toBeUndefined();
+        const grid = stratumCellsXY(one.bbox, one.edges);
+        const made = got!.made.strata[i].cellGrid!;
+        expect([made.x0, made.y0, made.side, made.nx, made.ny]).toEqual([grid.x0, grid.y0, grid.side, grid.nx, grid.ny]);
+        for (const k of ['state', 'ground', 'rowStarts', 'rowSegments'] as const) expect(bytesOf(made[k]).equals(bytesOf(grid[k]))).toBe(true);
+      } else {
+        expect(got!.made.strata[i].cellGrid).toBeUndefined();
+        for (const k of ['triangles', 'cumulativeArea'] as const) expect(bytesOf(two[k]!).equals(bytesOf(one[k]))).toBe(true);
+      }
     });
     const measure = partAreasMeasurer(site, frame);
     for (let i = 0; i < site.parts.length; i++) expect(got!.made.partAreas[i]).toEqual(measure(i));

@@ -48,7 +48,7 @@ export function designThreads(env: NodeJS.ProcessEnv = process.env): 1 | 2 {
  * Starts the second thread of `stratplot plan`, or gives null where it cannot help (one thread
  * asked for or available, or no bundled worker at `url`, beside this file, as when run from the sources).
  * Work is shared by two counters in shared memory, one for stratum jobs (each stratum's outline,
- * and its triangles where the design samples by them: stratumMade) and one for part jobs (each part's areas, partAreasMeasurer): each thread
+ * with its triangles or cell grid, whichever the design samples by: stratumMade) and one for part jobs (each part's areas, partAreasMeasurer): each thread
  * takes the next job until none is left, so neither waits on a slow share. The main thread joins
  * once it has checked the map; the exclusions come over as soon as they are read, so the other
  * thread measures part areas during that check. Each job is the same code on the same numbers in either thread,

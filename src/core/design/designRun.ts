@@ -37,7 +37,7 @@ export function designSampling(version: RngVersion): StratumSampling {
   return version >= 3 ? 'cells' : 'triangles';
 }
 
-/** Stages of a design that depend on the site only, made ahead: each part's areas and each stratum's outline (with its triangles where the design samples by them). */
+/** Stages of a design that depend on the site only, made ahead: each part's areas and each stratum's outline (with its triangles or its cell grid, whichever the design samples by). */
 export interface DesignStagesMade {
   partAreas: readonly PartAreas[];
   strata: readonly StratumOutlineXY[];

@@ -35,7 +35,7 @@ export function stratumPolygons(site: Site, key: string) {
 
 /**
  * Every stratum of the site in frame metres, in site order: its outline (stratumOutlineXY, or
- * `made` where another thread has made it, triangles and all, for this site and frame), boundary
+ * `made` where another thread has made it, triangles or cell grid and all, for this site and frame), boundary
  * segments in a flatbush index, and a point-in-stratum test. Triangles and the cell grid are made
  * when first asked for, so a design that samples by cells never triangulates.
  */
@@ -45,7 +45,7 @@ export function stratumShapesXY(site: Site, frame: LocalFrame, made?: readonly (
     const { bbox, edges: seg } = outline;
     let triangulated: StratumTriangles | null = 'triangles' in outline ? (outline as StratumTrianglesXY) : null;
     const triangulation = () => (triangulated ??= stratumTriangulate(outline));
-    let grid: StratumCellsXY | null = null;
+    let grid: StratumCellsXY | null = outline.cellGrid ?? null;
     const cells = () => (grid ??= stratumCellsXY(bbox, seg));
     const ns = seg.length / 4;
     // Runs of EDGE_CHUNK consecutive segments share one index box: far fewer boxes to sort and search.

@@ -1,6 +1,7 @@
 import type { Position } from 'geojson';
 import type { LocalFrame } from '../../geo/localFrame';
 import { utmForwardArray } from '../../geo/utmForwardArray';
+import type { StratumCellsXY } from './stratumCellsXY';
 
 /** One stratum's outline in frame metres as flat arrays only, so it can be made in one thread and used in another. */
 export interface StratumOutlineXY {
@@ -18,6 +19,8 @@ export interface StratumOutlineXY {
   holeStarts: Int32Array;
   /** Offsets into `holeStarts` of each polygon's holes, and one past the last (length polygons + 1). */
   polygonHoles: Int32Array;
+  /** The cell grid of this box and these edges (stratumCellsXY), where another thread made it ahead; otherwise made on first use. */
+  cellGrid?: StratumCellsXY;
 }
 
 const words = new Float64Array(1);
