@@ -59,8 +59,14 @@ function edgesOf(site: Site, key: string, unwrap: (lon: number) => number): Stra
         y0 = Math.min(y0, ay, by);
         x1 = Math.max(x1, ax, bx);
         y1 = Math.max(y1, ay, by);
-        const kx = Math.cos((((ay + by) / 2) * Math.PI) / 180) * M_PER_DEG_LON;
-        longestM = Math.max(longestM, Math.hypot((bx - ax) * kx, (by - ay) * M_PER_DEG_LAT));
+        // The cosine is taken only for an edge that could be the longest yet: its length with a
+        // cosine of 1 bounds it from above (widened far beyond rounding), so the result is the same.
+        const ex = (bx - ax) * M_PER_DEG_LON;
+        const ey = (by - ay) * M_PER_DEG_LAT;
+        if ((ex * ex + ey * ey) * (1 + 1e-9) >= longestM * longestM) {
+          const kx = Math.cos((((ay + by) / 2) * Math.PI) / 180) * M_PER_DEG_LON;
+          longestM = Math.max(longestM, Math.hypot((bx - ax) * kx, (by - ay) * M_PER_DEG_LAT));
+        }
       }
       index.add(x0, y0, x1, y1);
     }
