@@ -25,8 +25,9 @@ export interface DesignStagesAhead {
   exclusionsRead(exclusions: readonly Exclusion[]): void;
   /**
    * Hands over the exclusions of the checked site (unless exclusionsRead already has), takes a
-   * share of the jobs in this thread, and waits for the other thread's; null when the two cannot together make every stage (the design
-   * then makes them itself, and reports any error as it always does).
+   * share of the jobs in this thread, and waits for the other thread's; null when the two cannot
+   * together make every stage (the design then makes them itself, and reports any error as it
+   * always does).
    */
   finish(site: Site): Promise<{ made: DesignStagesMade; otherThreadJobs: number } | null>;
   /** Ends the second thread (an error ended the command, or the stages are made). */
@@ -48,11 +49,12 @@ export function designThreads(env: NodeJS.ProcessEnv = process.env): 1 | 2 {
  * Starts the second thread of `stratplot plan`, or gives null where it cannot help (one thread
  * asked for or available, or no bundled worker at `url`, beside this file, as when run from the sources).
  * Work is shared by two counters in shared memory, one for stratum jobs (each stratum's outline,
- * with its triangles or cell grid, whichever the design samples by: stratumMade) and one for part jobs (each part's areas, partAreasMeasurer): each thread
- * takes the next job until none is left, so neither waits on a slow share. The main thread joins
- * once it has checked the map; the exclusions come over as soon as they are read, so the other
- * thread measures part areas during that check. Each job is the same code on the same numbers in either thread,
- * so the design is byte for byte the one a single thread makes (tested).
+ * with its triangles or cell grid, whichever the design samples by: stratumMade) and one for part
+ * jobs (each part's areas, partAreasMeasurer): each thread takes the next job until none is left,
+ * so neither waits on a slow share. The main thread joins once it has checked the map; the
+ * exclusions come over as soon as they are read, so the other thread measures part areas during
+ * that check. Each job is the same code on the same numbers in either thread, so the design is
+ * byte for byte the one a single thread makes (tested).
  */
 export function designStagesAhead(
   sampling: StratumSampling,

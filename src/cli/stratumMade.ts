@@ -1,6 +1,6 @@
 import type { Position } from 'geojson';
 import type { StratumSampling } from '../core/design/place/placementStrata';
-import { type StratumCellsXY, stratumCellsXY } from '../core/design/place/stratumCellsXY';
+import { stratumCellsXY } from '../core/design/place/stratumCellsXY';
 import { type StratumOutlineXY, stratumOutlineXY } from '../core/design/place/stratumOutlineXY';
 import { type StratumTrianglesXY, stratumTrianglesXY } from '../core/design/place/stratumTrianglesXY';
 import type { LocalFrame } from '../core/geo/localFrame';
