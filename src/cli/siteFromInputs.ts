@@ -62,29 +62,29 @@ export async function siteFromInputs(io: CliIo, inputs: SiteInputs): Promise<{ s
   // Exclusion files are read before the strata are checked, so their areas can be measured in
   // another thread during the check; a file that cannot be read is reported after the strata's own
   // problems, in the order the files were named, as if read one after the other.
-  const exclusionFiles: ({ name: string; found: Exclusion[] } | { failure: unknown })[] = [];
+  const exclusionFiles: { name: string; found: Exclusion[] }[] = [];
+  let unreadable: { failure: unknown } | null = null;
   for (const path of inputs.exclude ?? []) {
     try {
       const file = await load(path);
       exclusionFiles.push({ name: file.name, found: exclusionsFromFeatures(file.fc, { fileName: file.name }) });
     } catch (failure) {
-      exclusionFiles.push({ failure });
+      unreadable = { failure };
       break;
     }
   }
   const exclusions: Exclusion[] = [];
   for (const file of exclusionFiles) {
-    if ('failure' in file) break;
     // An id an earlier file already gave is told apart by this file's name.
     const taken = new Set(exclusions.map((e) => e.id));
     for (const e of file.found) exclusions.push(taken.has(e.id) ? { ...e, id: `${file.name}:${e.id}` } : e);
   }
-  if (!exclusionFiles.some((f) => 'failure' in f)) inputs.onExclusionsRead?.(exclusions);
+  if (!unreadable) inputs.onExclusionsRead?.(exclusions);
   const warnings = failOn(strataFile.name, siteValidate({ ...empty, strata, parts }));
   for (const file of exclusionFiles) {
-    if ('failure' in file) throw file.failure;
     for (const w of failOn(file.name, siteValidate({ ...empty, exclusions: file.found }))) warnings.push(w);
   }
+  if (unreadable) throw unreadable.failure;
   const access = [];
   for (const path of inputs.access ?? []) {
     const file = await load(path);

@@ -114,6 +114,10 @@ describe('stratplot plan', () => {
     const missing = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--exclude', 'demo-maps/ochre-spit-exclusions.geojson', '--exclude', 'no-such-exclusions.geojson', '--plots', '4', '--seed', '1']);
     expect(missing.code).toBe(2);
     expect(missing.err).toMatch(/^stratplot plan: [^\n]*no-such-exclusions\.geojson[^\n]*\n$/);
+    // A named file's own problem comes before a later file that cannot be read.
+    const crossed = await cli(['plan', 'demo-maps/ochre-spit-strata.geojson', '--exclude', 'src/core/fixtures/in/bow-tie.geojson', '--exclude', 'no-such-exclusions.geojson', '--plots', '4', '--seed', '1']);
+    expect(crossed.code).toBe(2);
+    expect(crossed.err).toMatch(/^stratplot plan: [^\n]*bow-tie\.geojson: [^\n]*\n$/);
   });
 
   it('sizes the design for a relative target half-width from pilot SDs: exactly the smallest n whose t interval meets it', async () => {
