@@ -1,6 +1,7 @@
 import * as Comlink from 'comlink';
 import { del, get, set } from 'idb-keyval';
 import { sha256Hex } from '../core/common/sha256';
+import { type PlanRecord, planRecordDelta, planRecordHashText, planRecordText } from '../io/common/planRecordText';
 import type { AutosaveStorage } from '../state/autosave';
 import type { BrowserCopyWorkerApi } from '../worker/browserCopyWorker';
 
@@ -34,8 +35,14 @@ function call<T>(viaWorker: (w: Comlink.Remote<BrowserCopyWorkerApi>) => Promise
   return Promise.race([viaWorker(w), workerFailed.then(here)]);
 }
 
-/** The value of the last set call: a plan's text is written twice in a row (working copy, version) and crosses once. */
+/**
+ * The value of the last set or setRecord call: a plan's record is written twice in a row (working
+ * copy, version) and crosses once, and its hash text is hashed where it already is (the worker).
+ */
 let lastSet: unknown = null;
+let lastRecord: PlanRecord | null = null;
+/** The pieces of the last record handed to the worker, which it holds (see planRecordDelta). */
+let sentPieces: readonly string[] = [];
 
 /** This browser's IndexedDB (idb-keyval's default store): the working plan and its earlier versions, written by a worker. */
 export const browserStorage: AutosaveStorage = {
@@ -43,8 +50,27 @@ export const browserStorage: AutosaveStorage = {
   set: (k, v) => {
     const again = typeof v === 'string' && v.length > 1 << 16 && v === lastSet;
     lastSet = v;
+    lastRecord = null;
     return call((w) => (again ? w.setLast(k) : w.set(k, v)), () => set(k, v));
+  },
+  setRecord: (k, record) => {
+    const again = record === lastRecord;
+    lastRecord = record;
+    lastSet = null;
+    return call(
+      (w) => {
+        if (again) return w.setLast(k);
+        const delta = planRecordDelta(record, sentPieces);
+        sentPieces = record.hashTextPieces;
+        return w.setRecord(k, delta);
+      },
+      () => set(k, planRecordText(record)),
+    );
   },
   del: (k) => call((w) => w.del(k), () => del(k)),
   textSha256: (text) => call((w) => w.textSha256(text), async () => sha256Hex(text)),
+  recordSha256: (record) => {
+    const held = record === lastRecord;
+    return call((w) => (held ? w.lastRecordSha256() : w.textSha256(planRecordHashText(record))), async () => sha256Hex(planRecordHashText(record)));
+  },
 };

@@ -3,7 +3,7 @@ import * as Comlink from 'comlink';
 import { designResultSet } from '../state/designActions';
 import { plannerStore } from './plannerStoreInstance';
 import { plannerWorkerStart } from './siteAnalysisRunner';
-import { siteJsonOf } from './siteJson';
+import { siteSourceFor } from './siteHandOver';
 
 let running: { worker: Worker } | null = null;
 
@@ -19,7 +19,7 @@ export async function designJobStart(): Promise<void> {
   plannerStore.setState({ job: { fraction: 0, stage: 'starting' }, notice: null });
   try {
     const outcome = await api.design(
-      siteJsonOf(site),
+      siteSourceFor(site),
       design,
       Comlink.proxy((fraction: number, stage: string) => {
         if (running?.worker === worker) plannerStore.setState({ job: { fraction, stage } });

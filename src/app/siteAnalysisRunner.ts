@@ -2,6 +2,7 @@ import * as Comlink from 'comlink';
 import type { Site } from '../core/model/types';
 import type { PlannerWorkerApi } from '../worker/plannerWorker';
 import { plannerStore } from './plannerStoreInstance';
+import { siteHolderSet } from './siteHandOver';
 import { siteJsonOf } from './siteJson';
 
 /** Starts a planner worker (module worker, same origin). */
@@ -12,14 +13,17 @@ export function plannerWorkerStart(): { api: Comlink.Remote<PlannerWorkerApi>; w
 
 /**
  * Keeps `analysis` (areas, buffers, problems) in step with the site: each change is measured in a
- * worker so the page never waits on clipping; only the answer for the latest site is kept.
+ * worker so the page never waits on clipping; only the answer for the latest site is kept. That
+ * worker is also the site's holder (siteHandOver) for design and check workers.
  */
 export function siteAnalysisRunnerStart(): () => void {
   const { api, worker } = plannerWorkerStart();
   let timer: ReturnType<typeof setTimeout> | null = null;
   const run = (site: Site) => {
-    api
-      .analyse(siteJsonOf(site))
+    const measured = api.analyse(siteJsonOf(site));
+    // The worker now holds this site's text: a design or check started on it is handed the text from there.
+    siteHolderSet({ site, handOver: (port) => void api.siteHandOver(Comlink.transfer(port, [port])) });
+    measured
       .then((a) => {
         if (plannerStore.getState().site === site) plannerStore.setState({ analysis: { ...a, site } });
       })
@@ -39,6 +43,7 @@ export function siteAnalysisRunnerStart(): () => void {
   });
   return () => {
     unsubscribe();
+    siteHolderSet(null);
     worker.terminate();
   };
 }

@@ -1,6 +1,6 @@
 import type { Site } from '../core/model/types';
 import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
-import type { SiteJson } from '../worker/plannerWorker';
+import type { SiteJson } from '../worker/siteSource';
 
 const kept = new WeakMap<Site, SiteJson>();
 

@@ -5,8 +5,9 @@ import { planFileApply, planFileFromState, planFileParse } from './planFile';
 import type { PlannerStore } from './plannerStore';
 import type { ResultsStore } from './resultsStore';
 import { RESULTS_SNAPSHOT_FIELDS, resultsSnapshotTake } from './resultsSnapshot';
-import { planHashText, type VersionStorage, workVersionsKeeper } from './autosaveVersions';
+import { planHashTextPieces, planRecordSet, type VersionStorage, workVersionsKeeper } from './autosaveVersions';
 import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
+import type { PlanRecord } from '../io/common/planRecordText';
 
 /** The calls autosave needs from a key-value store: those of the kept versions (VersionStorage). */
 export type AutosaveStorage = VersionStorage;
@@ -26,13 +27,6 @@ interface AutosaveRecord {
 /** Waits for the next task (letting the page draw), or only for the microtask queue when `urgent`. */
 function pause(urgent: boolean): Promise<void> {
   return urgent ? Promise.resolve() : new Promise((resolve) => setTimeout(resolve, 0));
-}
-
-/** The plan's text with its save time: `hashText` (the plan's text with savedAt "") with the time put in. */
-function planTextSavedAt(hashText: string, plan: PlanFileDocument, savedAt: string): string {
-  const head = JSON.stringify({ format: plan.format, version: plan.version, savedAt: '' }).slice(0, -1);
-  if (!hashText.startsWith(head)) return jsonStringifyKeepingGeometry({ ...plan, savedAt });
-  return `${head.slice(0, -2)}${JSON.stringify(savedAt)}${hashText.slice(head.length)}`;
 }
 
 /**
@@ -72,13 +66,12 @@ export function autosaveStart(
         if (plan.result) jsonStringifyKeepingGeometry(plan.result);
         await pause(urgent);
         // One text of the plan serves both the content hash (without the save time) and the
-        // record; only the save time at its head differs, so the site's text is composed once.
-        const hashText = planHashText(plan);
+        // record, which only adds the save time at its head: the storage puts it together.
         const savedAt = now.toISOString();
-        const text = `{"plan":${planTextSavedAt(hashText, plan, savedAt)},"saved":${saved}}`;
+        const record: PlanRecord = { hashTextPieces: planHashTextPieces(plan), savedAt, saved };
         await pause(urgent);
-        await storage.set(AUTOSAVE_KEY, text);
-        await keep(text, { ...plan, savedAt }, slot, now, hashText);
+        await planRecordSet(storage, AUTOSAVE_KEY, record);
+        await keep(record, { ...plan, savedAt }, slot, now);
       })
       .catch((e) => onError?.(e));
   };

@@ -6,6 +6,7 @@ import type { PlanFile } from './planFileTypes';
 import { AUTOSAVE_KEY, AUTOSAVE_UNREADABLE_KEY, type AutosaveStorage, autosaveRestore, autosaveStart } from './autosave';
 import { VERSIONS_KEY, workVersionRead, workVersionsKeeper, workVersionsList } from './autosaveVersions';
 import { planReplace } from './planReplace';
+import { type PlanRecord, planRecordHashText, planRecordText } from '../io/common/planRecordText';
 import { plannerStoreCreate, siteEmpty } from './plannerStore';
 import { stratumPartAdd } from './strataActions';
 
@@ -67,6 +68,43 @@ describe('earlier versions of the work in the browser', () => {
     const [version] = await workVersionsList(storage);
     // FIPS 180-4 SHA-256 as Node's crypto (OpenSSL) computes it, of the UTF-8 bytes.
     expect(version.hash).toBe(createHash('sha256').update(hashed[0], 'utf8').digest('hex'));
+  });
+
+  it('hands a storage that puts records together the plan text once, for the working copy, the version and the hash', async () => {
+    const storage = memoryStorage();
+    const records: [string, PlanRecord][] = [];
+    const hashed: string[] = [];
+    // Stands in for the browser's storage worker: it writes each record's text itself.
+    const composing: AutosaveStorage = {
+      ...storage,
+      setRecord: async (k, r) => {
+        records.push([k, r]);
+        storage.data.set(k, planRecordText(r));
+      },
+      recordSha256: async (r) => {
+        hashed.push(planRecordHashText(r));
+        return createHash('sha256').update(planRecordHashText(r), 'utf8').digest('hex');
+      },
+    };
+    const store = plannerStoreCreate(designSettingsDefault());
+    const { flush } = autosaveStart(store, composing, 5);
+    stratumPartAdd(store, 'Kōwhai scrub — north', box(150));
+    await flush();
+    const [version] = await workVersionsList(storage);
+    const stored0 = () => JSON.parse(storage.data.get(AUTOSAVE_KEY) as string).plan;
+    expect(records.map(([k]) => k)).toEqual([AUTOSAVE_KEY, `${VERSIONS_KEY}:${version.id}`]);
+    expect(records[1][1]).toBe(records[0][1]);
+    expect(hashed).toEqual([planRecordHashText(records[0][1])]);
+    // FIPS 180-4 SHA-256 as Node's crypto (OpenSSL) computes it, of the plan's text without its save time.
+    expect(JSON.parse(hashed[0])).toEqual({ ...stored0(), savedAt: '' });
+    expect(version.hash).toBe(createHash('sha256').update(hashed[0], 'utf8').digest('hex'));
+    const stored = JSON.parse(storage.data.get(AUTOSAVE_KEY) as string);
+    expect(stored.plan).toEqual(JSON.parse(JSON.stringify(planFileFromState(store.getState(), records[0][1].savedAt))));
+    expect(storage.data.get(`${VERSIONS_KEY}:${version.id}`)).toBe(storage.data.get(AUTOSAVE_KEY));
+    // The working copy comes back from the text the storage put together.
+    const again = plannerStoreCreate(designSettingsDefault());
+    expect(await autosaveRestore(again, storage, designSettingsDefault())).toBe(true);
+    expect(again.getState().site.strata.map((x) => x.label)).toEqual(['Kōwhai scrub — north']);
   });
 
   it('lists the same work once, at its latest time, and keeps at most the newest few', async () => {

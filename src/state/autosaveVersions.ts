@@ -4,7 +4,8 @@ import { plotRejections } from '../core/field/plotFieldState';
 import { InputError } from '../core/common/InputError';
 import { sha256Hex } from '../core/common/sha256';
 import { planFileParse } from './planFile';
-import { jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
+import { jsonPiecesKeepingGeometry, jsonStringifyKeepingGeometry } from '../io/common/jsonStringifyKeepingGeometry';
+import { type PlanRecord, planRecordHashText, planRecordText } from '../io/common/planRecordText';
 
 /** The key-value calls the kept versions need (idb-keyval's get/set/del in the browser). */
 export interface VersionStorage {
@@ -16,6 +17,14 @@ export interface VersionStorage {
    * storage worker); without it the hash is computed here with sha256Hex.
    */
   textSha256?(text: string): Promise<string>;
+  /**
+   * Stores under `key` the text of a record (planRecordText), put together where the storage is
+   * (the browser's storage worker, so the page hands over the one hash text); without it the
+   * text is put together here and stored with `set`.
+   */
+  setRecord?(key: string, record: PlanRecord): Promise<void>;
+  /** SHA-256 of a record's hash text as hex, done where the storage holds it; else textSha256 of the joined text. */
+  recordSha256?(record: PlanRecord): Promise<string>;
 }
 
 /** Key of the list of kept versions; each version's plan is under this key plus ":" and its id. */
@@ -95,9 +104,25 @@ export function planHashText(plan: KeptPlan): string {
   return jsonStringifyKeepingGeometry({ ...plan, savedAt: '' });
 }
 
+/** planHashText as the pieces it is joined from (see jsonPiecesKeepingGeometry), for a PlanRecord. */
+export function planHashTextPieces(plan: KeptPlan): string[] {
+  return jsonPiecesKeepingGeometry({ ...plan, savedAt: '' });
+}
+
 /** The content hash a version is compared by: SHA-256 (FIPS 180-4) of planHashText, hex. */
 export async function planHash(storage: VersionStorage, hashText: string): Promise<string> {
   return storage.textSha256 ? storage.textSha256(hashText) : sha256Hex(hashText);
+}
+
+/** planHash of a record's hash text, taken where the storage holds it when it can (recordSha256). */
+function planRecordHash(storage: VersionStorage, record: PlanRecord): Promise<string> {
+  return storage.recordSha256 ? storage.recordSha256(record) : planHash(storage, planRecordHashText(record));
+}
+
+/** Stores a record under `key`: a text as it is, a record's parts put together by the storage (setRecord) or here. */
+export function planRecordSet(storage: VersionStorage, key: string, record: PlanRecord | string): Promise<void> {
+  if (typeof record === 'string') return storage.set(key, record);
+  return storage.setRecord ? storage.setRecord(key, record) : storage.set(key, planRecordText(record));
 }
 
 /**
@@ -109,10 +134,13 @@ export async function planHash(storage: VersionStorage, hashText: string): Promi
 export function workVersionsKeeper(storage: VersionStorage, max = 10, windowMs = 10 * 60_000) {
   let index: WorkVersion[] | null = null;
   const remove = (id: string) => (storage.del ? storage.del(`${VERSIONS_KEY}:${id}`) : storage.set(`${VERSIONS_KEY}:${id}`, null));
-  /** Keeps `recordText` as a version of `plan`; `hashText` (planHashText of the plan) when the caller has it already. */
-  return async function keep(recordText: string, plan: KeptPlan, slot: string, now: Date, hashText?: string): Promise<void> {
+  /**
+   * Keeps `record` (a stored text, or a record's parts: see planRecordSet) as a version of `plan`;
+   * `hashText` (planHashText of the plan) when the caller has it already (a record carries its own).
+   */
+  return async function keep(record: PlanRecord | string, plan: KeptPlan, slot: string, now: Date, hashText?: string): Promise<void> {
     index ??= await indexRead(storage);
-    const hash = await planHash(storage, hashText ?? planHashText(plan));
+    const hash = await (typeof record === 'string' ? planHash(storage, hashText ?? planHashText(plan)) : planRecordHash(storage, record));
     const at = now.toISOString();
     const head = index[0];
     if (head && head.hash === hash) {
@@ -128,7 +156,7 @@ export function workVersionsKeeper(storage: VersionStorage, max = 10, windowMs =
     const dropped = (continues ? index.slice(1) : index).filter((v) => v.hash === hash);
     const entry: WorkVersion = { id, at, since: continues ? head.since : at, siteName: plan.site.name, summary: planSummary(plan), hash, slot };
     const all = [entry, ...rest];
-    await storage.set(`${VERSIONS_KEY}:${id}`, recordText);
+    await planRecordSet(storage, `${VERSIONS_KEY}:${id}`, record);
     index = all.slice(0, max);
     await storage.set(VERSIONS_KEY, JSON.stringify(index));
     for (const v of [...dropped, ...all.slice(max)]) await remove(v.id);

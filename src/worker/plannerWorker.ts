@@ -5,19 +5,16 @@ import { isInputError } from '../core/common/InputError';
 import type { PlotsCheckOptions, PlotsCheckReport, PlotToCheck } from '../core/plotCheck/plotCheckTypes';
 import { plotsCheck } from '../core/plotCheck/plotsCheck';
 import { siteValidate } from '../core/site/siteValidate';
-import type { Site } from '../core/model/types';
 import { type GeotiffImageOptions, geotiffImageWarp } from '../io/formats/raster/geotiffImage';
 import type { RgbaRaster } from '../io/formats/raster/rasterWarpToMercator';
 import { type WorldFileCrs, worldFileImageWarp } from '../io/formats/raster/worldFileImage';
 import { siteAnalyse } from '../core/design/siteAnalyse';
+import { type SiteJson, type SiteSource, siteRead, siteTextReceive } from './siteSource';
 
-/** A site as JSON text (JSON.stringify of a Site): how the page hands a site to this worker. */
-export type SiteJson = string & { readonly siteJson: unique symbol };
+export type { SiteJson, SiteSource } from './siteSource';
 
-/** The site a page's text describes (it was written by JSON.stringify of a Site, so no checks are repeated). */
-function siteRead(text: SiteJson): Site {
-  return JSON.parse(text) as Site;
-}
+/** The text of the site last analysed here, kept so it can be handed to another worker (siteHandOver). */
+let held: SiteJson | null = null;
 
 /** A design's outcome as it crosses to the page: the plots, or a message for the user. */
 export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: false; message: string };
@@ -25,13 +22,22 @@ export type DesignOutcome = { ok: true; collection: PlotCollection } | { ok: fal
 /** Calls the page makes into the worker; results are structured-cloned back. */
 const api = {
   analyse(siteText: SiteJson) {
+    held = siteText;
     return siteAnalyse(siteRead(siteText), siteValidate);
+  },
+  /**
+   * Posts the text of the site last analysed here on `port`, for a design or check worker. Calls
+   * are answered in the order they were made, so this hands over the site of the latest `analyse`.
+   */
+  siteHandOver(port: MessagePort): void {
+    port.postMessage(held);
   },
   /**
    * Runs designRun here, off the page's thread, reporting progress through `onProgress`. The page
    * cancels by terminating this worker, so the run needs no polling of its own.
    */
-  design(siteText: SiteJson, settings: DesignSettings, onProgress: (fraction: number, stage: string) => void): DesignOutcome {
+  async design(site: SiteSource, settings: DesignSettings, onProgress: (fraction: number, stage: string) => void): Promise<DesignOutcome> {
+    const siteText = await siteTextReceive(site);
     let last = 0;
     try {
       const collection = designRun(siteRead(siteText), settings, {
@@ -51,7 +57,8 @@ const api = {
     }
   },
   /** Checks plots from a file against the site (plotsCheck), off the page's thread. */
-  check(siteText: SiteJson, plots: PlotToCheck[], options: PlotsCheckOptions): { ok: true; report: PlotsCheckReport } | { ok: false; message: string } {
+  async check(site: SiteSource, plots: PlotToCheck[], options: PlotsCheckOptions): Promise<{ ok: true; report: PlotsCheckReport } | { ok: false; message: string }> {
+    const siteText = await siteTextReceive(site);
     try {
       return { ok: true, report: plotsCheck(siteRead(siteText), plots, options) };
     } catch (e) {

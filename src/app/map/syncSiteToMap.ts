@@ -36,32 +36,41 @@ export function syncSiteToMap(map: MapLibreMap, store: PlannerStore): () => void
   };
   // Footprints are drawn only close in: they are built when the map nears that zoom, in a task of
   // their own, so a 10,000-plot design does not hold the page up for shapes nobody can see yet.
+  let stopped = false;
   let footprintsOf: PlotCollection | null | undefined;
   const pushFootprints = () => {
     const result = store.getState().result;
-    if (result === footprintsOf || (result && map.getZoom() < FOOTPRINTS_MIN_ZOOM - 1)) return;
+    if (stopped || result === footprintsOf || (result && map.getZoom() < FOOTPRINTS_MIN_ZOOM - 1)) return;
     footprintsOf = result;
     siteLayerSet(map, 'sp-footprints', footprintsSource(result));
   };
   map.on('zoomend', pushFootprints);
-  const pushResult = (s: PlannerState) => {
-    siteLayerSet(map, 'sp-plots', plotsSource(s.result));
+  // A new result's plots go to the map in a task after the one that stored them: handing 10,000
+  // plots to the map's worker (~40 ms) then does not add to the panels' drawing of the same result.
+  let plotsOf: PlotCollection | null | undefined;
+  const pushPlots = () => {
+    const result = store.getState().result;
+    if (stopped || result === plotsOf) return;
+    plotsOf = result;
+    siteLayerSet(map, 'sp-plots', plotsSource(result));
     setTimeout(pushFootprints, 0);
   };
+  const pushResult = () => setTimeout(pushPlots, 0);
   const now = store.getState();
   pushSite(now);
-  pushResult(now);
+  pushPlots();
   if (now.analysis) siteLayerSet(map, 'sp-buffers', now.analysis.buffers);
   siteLayerSet(map, 'sp-selection', selectionSource(now));
   siteLayerSet(map, 'sp-baseline', baselineSource(now));
   const unsubscribe = store.subscribe((s, prev) => {
     if (s.site !== prev.site) pushSite(s);
-    if (s.result !== prev.result) pushResult(s);
+    if (s.result !== prev.result) pushResult();
     if (s.design !== prev.design) siteLayerSet(map, 'sp-baseline', baselineSource(s));
     if (s.analysis !== prev.analysis && s.analysis) siteLayerSet(map, 'sp-buffers', s.analysis.buffers);
     if (s.selection !== prev.selection || s.site !== prev.site) siteLayerSet(map, 'sp-selection', selectionSource(s));
   });
   return () => {
+    stopped = true;
     unsubscribe();
     map.off('zoomend', pushFootprints);
   };

@@ -3,7 +3,7 @@ import { InputError } from '../../core/common/InputError';
 import { type PlotCheckRunner, type PlotCheckState, plotCheckRun, plotCheckStoreCreate } from '../../state/plotCheckStore';
 import { plannerStore } from '../plannerStoreInstance';
 import { plannerWorkerStart } from '../siteAnalysisRunner';
-import { siteJsonOf } from '../siteJson';
+import { siteSourceFor } from '../siteHandOver';
 
 /** The page's one plot-check store (its own slice: checked plots are not part of the plan or its undo history). */
 export const plotCheckStore = plotCheckStoreCreate(plannerStore.getState().design);
@@ -17,7 +17,7 @@ export function usePlotCheck<T>(select: (s: PlotCheckState) => T): T {
 export const plotCheckRunInWorker: PlotCheckRunner = async (site, plots, options) => {
   const { api, worker } = plannerWorkerStart();
   try {
-    const out = await api.check(siteJsonOf(site), plots, options);
+    const out = await api.check(siteSourceFor(site), plots, options);
     if (!out.ok) throw new InputError(out.message);
     return out.report;
   } finally {

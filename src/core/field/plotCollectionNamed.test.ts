@@ -36,4 +36,17 @@ describe('plotCollectionNamed', () => {
     expect(withIds.features.find((f) => f.properties.plot_id === 'FAR-01')?.properties).toMatchObject({ stratum: 'Farm paddock', stratum_code: 'FAR', stratum_id: 'Stratum 2' });
     expect(plotCollectionById(withIds)).toEqual(design);
   });
+
+  it('puts the code and id right after the name, and after everything for a plot known only by its code', () => {
+    const [first] = design.features;
+    const { stratum: _s, ...noName } = first.properties;
+    const byCode = { ...first, properties: { ...noName, stratum_code: 'FAR' } } as unknown as typeof first;
+    const named = plotCollectionNamed({ ...design, features: [first, byCode] }, site.strata, { ids: true });
+    const keys = Object.keys(first.properties);
+    const at = keys.indexOf('stratum');
+    expect(Object.keys(named.features[0].properties)).toEqual([...keys.slice(0, at + 1), 'stratum_code', 'stratum_id', ...keys.slice(at + 1).filter((k) => k !== 'stratum_code' && k !== 'stratum_id')]);
+    const rest = Object.keys(noName).filter((k) => k !== 'stratum_code' && k !== 'stratum_id');
+    expect(Object.keys(named.features[1].properties)).toEqual([...rest, 'stratum', 'stratum_code', 'stratum_id']);
+    expect(named.features[1].properties).toMatchObject({ stratum: 'Farm paddock', stratum_code: 'FAR', stratum_id: 'Stratum 2' });
+  });
 });

@@ -42,11 +42,28 @@ export function plotCollectionNamed(collection: PlotCollection, strata: readonly
     const s = find(p.stratum, p.stratum_code);
     if (!s) return p;
     if (s.id !== s.name) names.set(s.id, s.name);
-    const { stratum_code: _code, stratum_id: _id, ...rest } = p;
-    const out: PlotProperties = { ...rest, stratum: s.name };
-    // Keep the code next to the name, where people look for it.
-    const ordered = Object.fromEntries(Object.entries(out).flatMap(([k, v]) => (k === 'stratum' ? [[k, v], ['stratum_code', s.code], ...(options.ids ? [['stratum_id', s.id]] : [])] : [[k, v]]))) as unknown as PlotProperties;
-    return ordered;
+    // The properties in their order, with the code (and id) right after the name, where people
+    // look for it. A plain loop: on 10,000 plots, building entry arrays took tens of milliseconds
+    // of the page's thread, and the collection after them as much again.
+    const from = p as unknown as Record<string, unknown>;
+    const out: Record<string, unknown> = {};
+    for (const k of Object.keys(from)) {
+      if (k === 'stratum_code' || k === 'stratum_id') continue;
+      if (k !== 'stratum') {
+        out[k] = from[k];
+        continue;
+      }
+      out.stratum = s.name;
+      out.stratum_code = s.code;
+      if (options.ids) out.stratum_id = s.id;
+    }
+    // A plot found by its code alone gets its name (and the code after it) at the end.
+    if (!('stratum' in out)) {
+      out.stratum = s.name;
+      out.stratum_code = s.code;
+      if (options.ids) out.stratum_id = s.id;
+    }
+    return out as unknown as PlotProperties;
   };
   const features = collection.features.map((f) => ({ ...f, properties: named(f.properties) }));
   const d = collection.design;
