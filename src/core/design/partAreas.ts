@@ -22,6 +22,21 @@ function boxOf(positions: Iterable<LonLat>): Box {
   return b;
 }
 
+/** The lon/lat box of rings, read in place (flattening a part of a million vertices first costs more than the loop). */
+function ringsBox(rings: readonly (readonly LonLat[])[]): Box {
+  const b: Box = [Infinity, Infinity, -Infinity, -Infinity];
+  for (const ring of rings) {
+    for (let i = 0; i < ring.length; i++) {
+      const p = ring[i];
+      if (p[0] < b[0]) b[0] = p[0];
+      if (p[1] < b[1]) b[1] = p[1];
+      if (p[0] > b[2]) b[2] = p[0];
+      if (p[1] > b[3]) b[3] = p[1];
+    }
+  }
+  return b;
+}
+
 function* exclusionPositions(g: ExclusionGeometry): Iterable<LonLat> {
   if (g.type === 'Point') yield g.coordinates;
   else if (g.type === 'MultiPoint' || g.type === 'LineString') yield* g.coordinates;
@@ -87,7 +102,7 @@ export function partAreasMeasurer(site: Site, frame: LocalFrame): (partIndex: nu
     const part = site.parts[partIndex];
     const area = polygonAreaM2(part.geometry);
     const rings = part.geometry.type === 'Polygon' ? part.geometry.coordinates : part.geometry.coordinates.flat();
-    const b = boxOf(rings[0] ? rings.flat() : []);
+    const b = ringsBox(rings);
     const near = exIndex ? exIndex.search(b[0], b[1], b[2], b[3]) : [];
     if (near.length === 0) return { mapped: area, usable: area, warning: null };
     near.sort((x, y) => x - y);

@@ -44,21 +44,28 @@ function edgesOf(site: Site, key: string, unwrap: (lon: number) => number): Stra
   let longestM = 0;
   let c = 0;
   for (const ring of rings) {
+    // Each vertex is read and unwrapped once: it ends one edge and starts the next.
+    let bx = unwrap(ring[0][0]);
+    let by = ring[0][1];
     for (let start = 0; start + 1 < ring.length; start += CHUNK, c++) {
-      let [x0, y0, x1, y1] = [Infinity, Infinity, -Infinity, -Infinity];
+      let x0 = bx;
+      let y0 = by;
+      let x1 = bx;
+      let y1 = by;
       for (let i = start, e = c * CHUNK * 4; i < start + CHUNK && i + 1 < ring.length; i++, e += 4) {
-        const ax = unwrap(ring[i][0]);
-        const ay = ring[i][1];
-        const bx = unwrap(ring[i + 1][0]);
-        const by = ring[i + 1][1];
+        const ax = bx;
+        const ay = by;
+        const next = ring[i + 1];
+        bx = unwrap(next[0]);
+        by = next[1];
         edges[e] = ax;
         edges[e + 1] = ay;
         edges[e + 2] = bx;
         edges[e + 3] = by;
-        x0 = Math.min(x0, ax, bx);
-        y0 = Math.min(y0, ay, by);
-        x1 = Math.max(x1, ax, bx);
-        y1 = Math.max(y1, ay, by);
+        if (bx < x0) x0 = bx;
+        if (by < y0) y0 = by;
+        if (bx > x1) x1 = bx;
+        if (by > y1) y1 = by;
         // The cosine is taken only for an edge that could be the longest yet: its length with a
         // cosine of 1 bounds it from above (widened far beyond rounding), so the result is the same.
         const ex = (bx - ax) * M_PER_DEG_LON;

@@ -48,7 +48,9 @@ export function siteLongitudeUnwrap(parts: readonly StratumPart[]): (lon: number
   for (const part of parts) {
     const polys = part.geometry.type === 'Polygon' ? [part.geometry.coordinates] : part.geometry.coordinates;
     for (const poly of polys) {
-      for (const [lon] of poly[0] ?? []) {
+      const shell = poly[0] ?? [];
+      for (let i = 0; i < shell.length; i++) {
+        const lon = shell[i][0];
         if (lon < minLon) minLon = lon;
         if (lon > maxLon) maxLon = lon;
         const shifted = lon < 0 ? lon + 360 : lon;

@@ -1,5 +1,6 @@
 import { edgeCrossesRayEast } from './edgeCrossesRayEast';
-import Flatbush from 'flatbush';
+import type Flatbush from 'flatbush';
+import { SegmentChunkIndex } from './segmentChunkIndex';
 import type { equalAreaXY } from '../geo/equalAreaXY';
 import type { LonLat } from '../model/types';
 
@@ -68,24 +69,16 @@ export function segmentsOf(polygons: readonly PolygonsLonLat[], project: ReturnT
   return { xy, owner, count };
 }
 
-/** A flatbush index of the segments' boxes, or null when there are none. */
-export function segmentsIndex(s: Segments): Flatbush | null {
-  if (s.count === 0) return null;
-  const index = new Flatbush(s.count);
-  const v = s.xy;
-  for (let i = 0; i < s.count; i++) {
-    const o = 4 * i;
-    index.add(Math.min(v[o], v[o + 2]), Math.min(v[o + 1], v[o + 3]), Math.max(v[o], v[o + 2]), Math.max(v[o + 1], v[o + 3]));
-  }
-  index.finish();
-  return index;
+/** A chunked box index of the segments (SegmentChunkIndex), or null when there are none. */
+export function segmentsIndex(s: Segments): SegmentChunkIndex | null {
+  return s.count === 0 ? null : new SegmentChunkIndex(s.xy, s.count);
 }
 
 /** Even–odd point-in-region test against all segments near y = py (one region, e.g. the part). */
-export function segmentsContain(s: Segments, index: Flatbush, px: number, py: number): boolean {
+export function segmentsContain(s: Segments, index: SegmentChunkIndex, px: number, py: number): boolean {
   let inside = false;
   const v = s.xy;
-  index.search(px, py, Number.POSITIVE_INFINITY, py, (i) => {
+  index.some(px, py, Number.POSITIVE_INFINITY, py, (i) => {
     const o = 4 * i;
     if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
     return false;
@@ -93,10 +86,22 @@ export function segmentsContain(s: Segments, index: Flatbush, px: number, py: nu
   return inside;
 }
 
+/** Whether piece `p` holds (px, py), by the even–odd rule over its own segments. */
+function pieceHolds(v: Float64Array, ranges: Int32Array, p: number, px: number, py: number): boolean {
+  let inside = false;
+  for (let i = ranges[2 * p], end = ranges[2 * p + 1]; i < end; i++) {
+    const o = 4 * i;
+    if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
+  }
+  return inside;
+}
+
 /**
  * Whether any piece that `accept` takes holds (px, py), by the even–odd rule over that piece's own
  * segments; pieces are tried only where their box holds the point, and the search stops at the
- * first that does. `ranges` holds each piece's first and past-last segment.
+ * first that does. `ranges` holds each piece's first and past-last segment. With `last`, the piece
+ * in `last[0]` is tried first and the piece found is kept there: test points walk along edges, so
+ * the piece that held the previous one mostly holds the next (the answer is the same either way).
  */
 export function anyPieceContains(
   s: Segments,
@@ -105,21 +110,20 @@ export function anyPieceContains(
   px: number,
   py: number,
   accept: (piece: number) => boolean,
+  last?: Int32Array,
 ): boolean {
   const v = s.xy;
+  const tried = last ? last[0] : -1;
+  if (tried >= 0 && accept(tried) && pieceHolds(v, ranges, tried, px, py)) return true;
   return pieceIndex.collides(px, py, px, py, (p) => {
-    if (!accept(p)) return false;
-    let inside = false;
-    for (let i = ranges[2 * p], end = ranges[2 * p + 1]; i < end; i++) {
-      const o = 4 * i;
-      if (edgeCrossesRayEast(px, py, v[o], v[o + 1], v[o + 2], v[o + 3])) inside = !inside;
-    }
-    return inside;
+    if (p === tried || !accept(p) || !pieceHolds(v, ranges, p, px, py)) return false;
+    if (last) last[0] = p;
+    return true;
   });
 }
 
 /** Parameters along segment `a` where segments of `other` cross or touch it (collinear overlaps give their ends). */
-export function cutsAlong(a: Float64Array, ao: number, other: Segments, index: Flatbush | null, skipOwner: number, out: number[]): void {
+export function cutsAlong(a: Float64Array, ao: number, other: Segments, index: SegmentChunkIndex | null, skipOwner: number, out: number[]): void {
   if (!index) return;
   const ax = a[ao];
   const ay = a[ao + 1];
@@ -129,7 +133,7 @@ export function cutsAlong(a: Float64Array, ao: number, other: Segments, index: F
   if (len2 === 0) return;
   const tol = 1e-12 * Math.sqrt(len2) * (Math.abs(ax) + Math.abs(ay) + Math.sqrt(len2) + 1);
   const v = other.xy;
-  index.search(Math.min(ax, ax + dx), Math.min(ay, ay + dy), Math.max(ax, ax + dx), Math.max(ay, ay + dy), (i) => {
+  index.some(Math.min(ax, ax + dx), Math.min(ay, ay + dy), Math.max(ax, ax + dx), Math.max(ay, ay + dy), (i) => {
     if (other.owner[i] === skipOwner) return false;
     const o = 4 * i;
     const bx = v[o];

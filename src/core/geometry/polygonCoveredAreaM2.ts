@@ -45,7 +45,20 @@ function boundaryTerm(
   const len = Math.hypot(dx, dy);
   if (len === 0) return 0;
   cuts.push(0, 1);
-  cuts.sort((p, q) => p - q);
+  // Most edges have a handful of cuts, where an insertion sort beats a sort with a comparator;
+  // an edge across a long wiggly boundary can have thousands.
+  if (cuts.length > 32) cuts.sort((p, q) => p - q);
+  else {
+    for (let k = 1; k < cuts.length; k++) {
+      const t = cuts[k];
+      let j = k - 1;
+      while (j >= 0 && cuts[j] > t) {
+        cuts[j + 1] = cuts[j];
+        j--;
+      }
+      cuts[j + 1] = t;
+    }
+  }
   let sum = 0;
   for (let k = 0; k + 1 < cuts.length; k++) {
     const t0 = Math.max(0, cuts[k]);
@@ -114,14 +127,17 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
   }
   pieceIndex.finish();
   const every = () => true;
-  const inUnion = (x: number, y: number) => anyPieceContains(b, ranges, pieceIndex, x, y, every);
+  const lastInUnion = new Int32Array([-1]);
+  const lastRight = new Int32Array([-1]);
+  const lastLeft = new Int32Array([-1]);
+  const inUnion = (x: number, y: number) => anyPieceContains(b, ranges, pieceIndex, x, y, every, lastInUnion);
   let area = 0;
   const cuts: number[] = [];
   const near = new Uint8Array(a.count);
   for (let p = 0; p < pieces.length; p++) {
     const q = 4 * p;
     if (Number.isNaN(boxes[q])) continue;
-    aIndex.search(boxes[q], boxes[q + 1], boxes[q + 2], boxes[q + 3], (i) => {
+    aIndex.some(boxes[q], boxes[q + 1], boxes[q + 2], boxes[q + 3], (i) => {
       near[i] = 1;
       return false;
     });
@@ -138,7 +154,7 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
   const pieceSide = (p: number): number => {
     const q = 4 * p;
     const [x0, y0, x1, y1] = [boxes[q] - margin, boxes[q + 1] - margin, boxes[q + 2] + margin, boxes[q + 3] + margin];
-    if (aIndex.collides(x0, y0, x1, y1)) return SIDE_NEAR;
+    if (aIndex.some(x0, y0, x1, y1, () => true)) return SIDE_NEAR;
     return inA((x0 + x1) / 2, (y0 + y1) / 2) ? SIDE_IN : SIDE_OUT;
   };
   for (let i = 0; i < b.count; i++) {
@@ -166,10 +182,10 @@ export function polygonCoveredAreaM2(polygons: PolygonsLonLat, pieces: readonly 
     }
     cutsAlong(b.xy, o, b, bIndex, own, cuts);
     area += boundaryTerm(b, i, cuts, (lx, ly, rx, ry) => {
-      if (anyPieceContains(b, ranges, pieceIndex, rx, ry, (p) => p !== own)) return false;
+      if (anyPieceContains(b, ranges, pieceIndex, rx, ry, (p) => p !== own, lastRight)) return false;
       if (!wholeInA && (!inA(lx, ly) || !inA(rx, ry))) return false;
       // The same edge on an earlier piece, facing the same way, is counted there.
-      return own === 0 || !anyPieceContains(b, ranges, pieceIndex, lx, ly, (p) => p < own);
+      return own === 0 || !anyPieceContains(b, ranges, pieceIndex, lx, ly, (p) => p < own, lastLeft);
     });
   }
   return Math.max(0, area);

@@ -59,13 +59,23 @@ function pairProblem(
   ringLength: readonly number[],
   where: ProblemLocation,
 ): Problem | null {
-  const meet = segmentsMeet(segs, a, b);
-  if (!meet) return null;
   const sameRing = ringOf[a] === ringOf[b];
   const n = ringLength[ringOf[a]];
   const gap = Math.abs(indexInRing[a] - indexInRing[b]);
-  // Neighbours share a vertex; only folding back along each other (a spike) is a problem.
-  if (sameRing && (gap === 1 || gap === n - 1) && meet.kind !== 'overlap') return null;
+  // Neighbours share a vertex; only folding back along each other (a spike) is a problem, and
+  // that needs all four ends on one line: a turn settles nearly every pair without building a meeting.
+  const neighbours = sameRing && (gap === 1 || gap === n - 1);
+  if (neighbours) {
+    const ax = segs[4 * a];
+    const ay = segs[4 * a + 1];
+    const bx = segs[4 * a + 2];
+    const by = segs[4 * a + 3];
+    if (orient(ax, ay, bx, by, segs[4 * b], segs[4 * b + 1]) !== 0) return null;
+    if (orient(ax, ay, bx, by, segs[4 * b + 2], segs[4 * b + 3]) !== 0) return null;
+  }
+  const meet = segmentsMeet(segs, a, b);
+  if (!meet) return null;
+  if (neighbours && meet.kind !== 'overlap') return null;
   if (!sameRing && meet.kind === 'touch') return null;
   const text = sameRing
     ? `crosses itself: edges ${indexInRing[a]} and ${indexInRing[b]} meet`

@@ -30,9 +30,16 @@ function pushAll<T>(list: T[], items: readonly T[]): void {
   for (const item of items) list.push(item);
 }
 
-/** A ring without duplicate consecutive vertices (a zero-length edge would meet its neighbours' neighbours). */
-function ringWithoutRepeats(ring: readonly Position[]): Position[] {
-  return ring.filter((p, i) => i === 0 || p[0] !== ring[i - 1][0] || p[1] !== ring[i - 1][1]);
+/**
+ * A ring without duplicate consecutive vertices (a zero-length edge would meet its neighbours'
+ * neighbours): the ring itself when it has none, as nearly every ring of a large map, so its
+ * vertices are not copied.
+ */
+function ringWithoutRepeats(ring: readonly Position[]): readonly Position[] {
+  let i = 1;
+  while (i < ring.length && (ring[i][0] !== ring[i - 1][0] || ring[i][1] !== ring[i - 1][1])) i++;
+  if (i >= ring.length) return ring;
+  return ring.filter((p, k) => k === 0 || p[0] !== ring[k - 1][0] || p[1] !== ring[k - 1][1]);
 }
 
 /** Ring, hole and self-intersection problems of a polygonal geometry; true in `ok` when it has none that are errors. */

@@ -181,23 +181,28 @@ function foreignStarts(s: Segments, other: Int32Array, starts: Uint32Array): Uin
     const first = order[from];
     let oneVertex = true;
     // Up to three distinct parts among the group: with three, every member has one not its own.
-    const seen = [-1, -1, -1];
+    // Kept in locals, not an array: a large map has a group for nearly every vertex.
+    let seen0 = -1;
+    let seen1 = -1;
+    let seen2 = -1;
     let distinct = 0;
     for (let a = from; a < to; a++) {
       const t = order[a];
       if (s.xy[4 * t] !== s.xy[4 * first] || s.xy[4 * t + 1] !== s.xy[4 * first + 1]) oneVertex = false;
       const p = s.part[t];
-      if (distinct < 3 && p !== seen[0] && p !== seen[1]) seen[distinct++] = p;
+      if (distinct < 3 && p !== seen0 && p !== seen1) {
+        if (distinct === 0) seen0 = p;
+        else if (distinct === 1) seen1 = p;
+        else seen2 = p;
+        distinct++;
+      }
     }
     for (let a = from; a < to; a++) {
       const i = order[a];
       if (oneVertex) {
-        for (let k = 0; k < distinct; k++) {
-          if (seen[k] !== s.part[i] && seen[k] !== other[i]) {
-            foreign[i] = 1;
-            break;
-          }
-        }
+        const own = s.part[i];
+        const partner = other[i];
+        if ((seen0 !== own && seen0 !== partner) || (distinct > 1 && seen1 !== own && seen1 !== partner) || (distinct > 2 && seen2 !== own && seen2 !== partner)) foreign[i] = 1;
         continue;
       }
       // Different vertices under one key (a hash collision, rare): compare pairwise.
