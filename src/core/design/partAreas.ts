@@ -11,28 +11,13 @@ type Box = [number, number, number, number];
 /** Relative agreement of the covered-area measurement with the mapped area (see polygonCoveredAreaM2). */
 const COVERED_TOLERANCE = 1e-6;
 
-function boxOf(positions: Iterable<LonLat>): Box {
-  const b: Box = [Infinity, Infinity, -Infinity, -Infinity];
+/** The lon/lat box of `positions`, widening `b` when given (so many rings share one box without being joined first). */
+function boxOf(positions: Iterable<LonLat>, b: Box = [Infinity, Infinity, -Infinity, -Infinity]): Box {
   for (const p of positions) {
     if (p[0] < b[0]) b[0] = p[0];
     if (p[1] < b[1]) b[1] = p[1];
     if (p[0] > b[2]) b[2] = p[0];
     if (p[1] > b[3]) b[3] = p[1];
-  }
-  return b;
-}
-
-/** The lon/lat box of rings, read in place (flattening a part of a million vertices first costs more than the loop). */
-function ringsBox(rings: readonly (readonly LonLat[])[]): Box {
-  const b: Box = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const ring of rings) {
-    for (let i = 0; i < ring.length; i++) {
-      const p = ring[i];
-      if (p[0] < b[0]) b[0] = p[0];
-      if (p[1] < b[1]) b[1] = p[1];
-      if (p[0] > b[2]) b[2] = p[0];
-      if (p[1] > b[3]) b[3] = p[1];
-    }
   }
   return b;
 }
@@ -102,7 +87,8 @@ export function partAreasMeasurer(site: Site, frame: LocalFrame): (partIndex: nu
     const part = site.parts[partIndex];
     const area = polygonAreaM2(part.geometry);
     const rings = part.geometry.type === 'Polygon' ? part.geometry.coordinates : part.geometry.coordinates.flat();
-    const b = ringsBox(rings);
+    const b = boxOf([]);
+    for (const ring of rings) boxOf(ring, b);
     const near = exIndex ? exIndex.search(b[0], b[1], b[2], b[3]) : [];
     if (near.length === 0) return { mapped: area, usable: area, warning: null };
     near.sort((x, y) => x - y);
