@@ -12,6 +12,9 @@ export async function buildCli() {
     outdir: join(root, 'dist-cli'),
     outExtension: { '.js': '.mjs' },
     bundle: true,
+    // Code loaded only on demand (the PDF writers) goes to chunks of its own, so a plan starts sooner.
+    splitting: true,
+    chunkNames: 'chunks/[name]-[hash]',
     platform: 'node',
     format: 'esm',
     target: 'node20',

@@ -12,7 +12,6 @@ import { plotCheckRecordsBySeverity, plotsCheck } from '../../core/plotCheck/plo
 import { EXCLUSION_KINDS } from '../../core/model/types';
 import { parseFeatureFile } from '../../io/site/parseFeatureFile';
 import { type PlotCheckReportMeta, plotCheckReportCsv } from '../../io/plotCheck/plotCheckReportCsv';
-import { plotCheckReportPdf } from '../../io/plotCheck/plotCheckReportPdf';
 import { plotsFromFeatures } from '../../io/plots/plotsFromFeatures';
 import type { CliIo, Command } from '../command';
 import { IMPORT_FLAG_SPECS, type ImportFlagValues, importFlagsRead, importOptionsFor } from '../importFlags';
@@ -144,7 +143,8 @@ async function run(argv: string[], io: CliIo): Promise<number> {
       files: [`plots: ${file.name}`, `strata: ${o.strata}`, ...(o.exclude ?? []).map((f) => `exclusions: ${f}`), ...(o.access ?? []).map((f) => `access points: ${f}`)],
       software: `stratplot ${STRATPLOT_VERSION}`,
     };
-    const bytes = outExt === 'pdf' ? plotCheckReportPdf(report, loaded.site, meta, { paper }) : plotCheckReportCsv(report, meta);
+    // The PDF writer is loaded only for a PDF (see designOutputBytes).
+    const bytes = outExt === 'pdf' ? (await import('../../io/plotCheck/plotCheckReportPdf')).plotCheckReportPdf(report, loaded.site, meta, { paper }) : plotCheckReportCsv(report, meta);
     await writeFile(resolve(io.cwd, o.out), bytes);
   }
   if (o.json) {

@@ -7,13 +7,11 @@ import { InputError, isInputError } from '../../core/common/InputError';
 import { plotRejectionLines } from '../../core/field/plotFieldState';
 import type { PlotsAnnotateOptions, } from '../../core/field/plotsAnnotate';
 import type { Site } from '../../core/model/types';
-import { designReportPdf } from '../pdf/designReportPdf';
 import { featuresToGeoJson } from '../formats/geojson/featuresToGeoJson';
 import { featuresToGeoPackage } from '../formats/geopackage/featuresToGeoPackage';
 import { featuresToGpx, type GpxLabels } from '../formats/gpx/featuresToGpx';
 import { featuresToKml, featuresToKmz } from '../formats/kml/featuresToKml';
 import { featuresToShapefileFiles } from '../formats/shapefile/featuresToShapefileZip';
-import { fieldSheetsPdf } from '../pdf/fieldSheetsPdf';
 import { plotsToCsv } from './plotsToCsv';
 import { isRejectedPlot, navigationDescription, plotGpxLabels } from './plotGpxLabels';
 import { shapefileCautionText } from './shapefileCautionText';
@@ -142,9 +140,12 @@ async function designOutputUnchecked(fileName: string, plots: PlotCollection, si
     case 'gpkg':
       return featuresToGeoPackage(layers, { sqlJsInit: options.sqlJsInit, description: gpkgDescription(collection) });
     case 'pdf':
-      return options.pdf === 'sheets'
-        ? fieldSheetsPdf(context, { paper: options.paper ?? 'a4', siteName: site?.name })
-        : designReportPdf(context, { paper: options.paper ?? 'a4' });
+      // The PDF writers (and their fonts) are loaded only when a PDF is asked for: they are most of the code.
+      if (options.pdf === 'sheets') {
+        const { fieldSheetsPdf } = await import('../pdf/fieldSheetsPdf');
+        return fieldSheetsPdf(context, { paper: options.paper ?? 'a4', siteName: site?.name });
+      }
+      return (await import('../pdf/designReportPdf')).designReportPdf(context, { paper: options.paper ?? 'a4' });
     default:
       throw new InputError(
         `${fileName}: cannot tell the export format from the extension${ext ? ` ".${ext}"` : ''}; use one of ${Object.keys(DESIGN_OUTPUT_FORMATS)

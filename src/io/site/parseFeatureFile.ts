@@ -3,11 +3,6 @@ import { InputError, isInputError } from '../../core/common/InputError';
 import { featuresLimitCheck } from './featuresLimitCheck';
 import type { ImportOptions } from '../common/importOptions';
 import { parseGeoJson } from '../formats/geojson/parseGeoJson';
-import { parseGeoPackage } from '../formats/geopackage/parseGeoPackage';
-import { parseGpx } from '../formats/gpx/parseGpx';
-import { parseKml } from '../formats/kml/parseKml';
-import { parsePointCsv } from '../formats/csv/parsePointCsv';
-import { parseShapefileZip } from '../formats/shapefile/parseShapefileZip';
 import { textDecoderFor } from '../common/textDecoderFor';
 
 /** Options a reader may use: a layer of a multi-layer file, a CRS for files without one, a text encoding. */
@@ -47,16 +42,20 @@ function decodeText(fileName: string, bytes: Uint8Array, encoding: string | unde
 const readGeoJson: Reader = async (fileName, bytes, options) =>
   parseGeoJson(fileName, decodeText(fileName, bytes, options.encoding), options.epsg);
 
-/** Readers by lower-case file extension (without the dot). */
+/**
+ * Readers by lower-case file extension (without the dot). All but GeoJSON's are loaded when first
+ * used: their libraries (XML, shapefile, CSV, SQLite) are a large share of the code every command
+ * would otherwise compile at start.
+ */
 const READERS: Record<string, Reader> = {
   geojson: readGeoJson,
   json: readGeoJson,
-  zip: parseShapefileZip,
-  kml: parseKml,
-  kmz: parseKml,
-  gpx: (fileName, bytes) => parseGpx(fileName, bytes),
-  gpkg: parseGeoPackage,
-  csv: parsePointCsv,
+  zip: async (fileName, bytes, options) => (await import('../formats/shapefile/parseShapefileZip')).parseShapefileZip(fileName, bytes, options),
+  kml: async (fileName, bytes, options) => (await import('../formats/kml/parseKml')).parseKml(fileName, bytes, options),
+  kmz: async (fileName, bytes, options) => (await import('../formats/kml/parseKml')).parseKml(fileName, bytes, options),
+  gpx: async (fileName, bytes) => (await import('../formats/gpx/parseGpx')).parseGpx(fileName, bytes),
+  gpkg: async (fileName, bytes, options) => (await import('../formats/geopackage/parseGeoPackage')).parseGeoPackage(fileName, bytes, options),
+  csv: async (fileName, bytes, options) => (await import('../formats/csv/parsePointCsv')).parsePointCsv(fileName, bytes, options),
 };
 
 /**
